@@ -1,0 +1,517 @@
+using System.Globalization;
+using CrossCheck.Model;
+using MathNet.Numerics.LinearAlgebra;
+
+namespace CrossCheck.Analysis;
+
+/// <summary>
+/// Independent linear-elastic stiffness analysis of plane frames and continuous beams
+/// (three DOF per joint, prismatic Euler–Bernoulli members, small displacements).
+/// </summary>
+/// <remarks>
+/// Supports, prescribed movements and axially rigid members are constraints eliminated exactly
+/// (<see cref="ConstraintSet"/>); end hinges are condensed out of the member stiffness. A free movement
+/// that no load drives (for example a beam on rollers only, under vertical load) is restrained and noted;
+/// a free movement that a load drives is reported as a mechanism naming the joint and direction.
+/// </remarks>
+public sealed class FrameSolver
+{
+    private static readonly string[] DirectionNames = ["x", "y", "rotation"];
+    private readonly ILinearSolver _linear;
+
+    public FrameSolver(ILinearSolver? linear = null) => _linear = linear ?? DenseCholeskySolver.Instance;
+
+    /// <summary>Analyses every load case.</summary>
+    /// <exception cref="StructureException">The structure is a mechanism or otherwise cannot be analysed.</exception>
+    public AnalysisResult Solve(StructureModel model, IReadOnlyList<LoadCase> cases)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        ArgumentNullException.ThrowIfNull(cases);
+        return new Run(model, cases, _linear).Execute();
+    }
+
+    /// <summary>Analyses every load case, returning false with the reason instead of throwing.</summary>
+    public bool TrySolve(StructureModel model, IReadOnlyList<LoadCase> cases, out AnalysisResult? result, out StructureException? problem)
+    {
+        try
+        {
+            result = Solve(model, cases);
+            problem = null;
+            return true;
+        }
+        catch (StructureException ex)
+        {
+            result = null;
+            problem = ex;
+            return false;
+        }
+    }
+
+    private sealed class Run
+    {
+        private readonly StructureModel _model;
+        private readonly IReadOnlyList<LoadCase> _cases;
+        private readonly ILinearSolver _linear;
+        private readonly Dictionary<string, int> _jointIndex;
+        private readonly Element[] _elements;
+        private readonly List<string> _notes = [];
+        private readonly int _n;
+
+        public Run(StructureModel model, IReadOnlyList<LoadCase> cases, ILinearSolver linear)
+        {
+            _model = model;
+            _cases = cases;
+            _linear = linear;
+            _jointIndex = model.Joints.Select((j, i) => (j.Id, i)).ToDictionary(t => t.Id, t => t.i, StringComparer.Ordinal);
+            _n = 3 * model.Joints.Count;
+            _elements = model.Members.Select(BuildElement).ToArray();
+        }
+
+        private Element BuildElement(Member m)
+        {
+            if (!_jointIndex.TryGetValue(m.Start, out int s) || !_jointIndex.TryGetValue(m.End, out int e))
+                throw new StructureException($"Member {m.Id} refers to a joint that does not exist.");
+            var a = _model.Joint(m.Start);
+            var b = _model.Joint(m.End);
+            double dx = b.X - a.X, dy = b.Y - a.Y;
+            double L = Math.Sqrt((dx * dx) + (dy * dy));
+            if (!(L > 0)) throw new StructureException($"Member {m.Id} has zero length.");
+            double ea = _model.Axial == AxialBehaviour.Elastic
+                ? m.E * (m.A ?? throw new StructureException($"Member {m.Id} has no area A, needed for elastic axial behaviour."))
+                : 0;
+            var k = ElementMatrices.LocalStiffness(m.E * m.I, ea, L);
+            var released = ElementMatrices.Released(m.Hinge);
+            var (kc, _) = ElementMatrices.Condense(k, new double[6], released);
+            return new Element(m, s, e, L, dx / L, dy / L, k, kc, released, ElementMatrices.ToGlobal(kc, dx / L, dy / L));
+        }
+
+        public AnalysisResult Execute()
+        {
+            CheckConnectivity();
+            var perCase = _cases.Select(c => (Case: c, Local: LocalActions(c))).ToList();
+
+            var extra = new List<(int Dof, string Note)>();
+            for (int attempt = 0; ; attempt++)
+            {
+                var constraints = BuildConstraints(extra);
+                var t = constraints.Build();
+                var k = Reduce(t);
+                var loads = perCase.Select(pc => ReducedLoad(t, pc.Case, pc.Local)).ToList();
+                ILinearFactor factor;
+                try
+                {
+                    factor = _linear.Factor(k);
+                }
+                catch (SingularMatrixException ex)
+                {
+                    if (attempt > 3 * _model.Joints.Count) throw new StructureException("The structure could not be stabilised: it is a mechanism.", ex);
+                    extra.AddRange(FreeMovements(k, t, loads, perCase.Select(p => p.Case.Id).ToList(), ex));
+                    continue;
+                }
+                foreach (var (_, note) in extra) _notes.Add(note);
+                var results = new List<CaseResult>();
+                for (int c = 0; c < perCase.Count; c++)
+                {
+                    var q = factor.Solve(loads[c].Reduced);
+                    var d = t.Expand(q);
+                    results.Add(Recover(perCase[c].Case, perCase[c].Local, d, loads[c].Full, constraints));
+                }
+                return new AnalysisResult(_model, results, _notes, 1 / Math.Max(factor.MinPivotRatio, 1e-300));
+            }
+        }
+
+        private void CheckConnectivity()
+        {
+            var touched = new HashSet<string>(StringComparer.Ordinal);
+            foreach (var m in _model.Members) { touched.Add(m.Start); touched.Add(m.End); }
+            foreach (var j in _model.Joints)
+                if (!touched.Contains(j.Id))
+                    throw new StructureException($"Joint {j.Id} is not connected to any member.", j.Id, null);
+        }
+
+        private Dictionary<string, List<LocalAction>> LocalActions(LoadCase loadCase)
+        {
+            var map = _elements.ToDictionary(e => e.Member.Id, _ => new List<LocalAction>(), StringComparer.Ordinal);
+            foreach (var load in loadCase.MemberLoads)
+            {
+                if (!map.TryGetValue(load.Member, out var list))
+                    throw new StructureException($"A load of case {loadCase.Id} acts on member {load.Member}, which does not exist.");
+                var e = _elements.First(x => x.Member.Id == load.Member);
+                list.Add(LocalLoads.Resolve(load, e.Cos, e.Sin));
+            }
+            return map;
+        }
+
+        private ConstraintSet BuildConstraints(List<(int Dof, string Note)> extra)
+        {
+            var cs = new ConstraintSet(_n);
+            for (int j = 0; j < _model.Joints.Count; j++)
+            {
+                var joint = _model.Joints[j];
+                void Fix(Restraint flag, int dir, double value)
+                {
+                    if (!joint.Restraint.HasFlag(flag)) return;
+                    if (!cs.Add(new Dictionary<int, double> { [(3 * j) + dir] = 1 }, value, ("support", joint.Id, dir), out _))
+                        throw new StructureException(
+                            $"The movement prescribed at support {joint.Id} in {DirectionNames[dir]} contradicts the axially rigid members " +
+                            "connecting it to other supports. Give member areas and set 'axial' to 'elastic', or remove the movement.",
+                            joint.Id, DirectionNames[dir]);
+                }
+                Fix(Restraint.X, 0, joint.Movement.X);
+                Fix(Restraint.Y, 1, joint.Movement.Y);
+                Fix(Restraint.Rotation, 2, -joint.Movement.Rotation);
+            }
+            // Joints where every member is hinged and no support holds the rotation: the joint rotation
+            // has no stiffness and no meaning; hold it at zero (a couple there is an error).
+            for (int j = 0; j < _model.Joints.Count; j++)
+            {
+                var joint = _model.Joints[j];
+                if (joint.Restraint.HasFlag(Restraint.Rotation)) continue;
+                bool anyRigid = _elements.Any(e => (e.StartJoint == j && !e.Member.Hinge.HasFlag(Hinge.Start))
+                                                || (e.EndJoint == j && !e.Member.Hinge.HasFlag(Hinge.End)));
+                if (anyRigid) continue;
+                foreach (var c in _cases)
+                    if (c.Loads.OfType<JointCouple>().Any(l => l.Joint == joint.Id && l.M != 0))
+                        throw new StructureException(
+                            $"Case {c.Id} applies a couple at joint {joint.Id}, but every member is hinged there and no support holds its rotation, so nothing can resist it.",
+                            joint.Id, "rotation");
+                cs.Add(new Dictionary<int, double> { [(3 * j) + 2] = 1 }, 0, ("hinged-joint", joint.Id, 2), out _);
+            }
+            if (_model.Axial == AxialBehaviour.Rigid)
+            {
+                foreach (var e in _elements)
+                {
+                    var row = new Dictionary<int, double>();
+                    void Put(int dof, double v) { if (v != 0) row[dof] = row.GetValueOrDefault(dof) + v; }
+                    Put(3 * e.StartJoint, -e.Cos);
+                    Put((3 * e.StartJoint) + 1, -e.Sin);
+                    Put(3 * e.EndJoint, e.Cos);
+                    Put((3 * e.EndJoint) + 1, e.Sin);
+                    if (!cs.Add(row, 0, ("rigid", e.Member.Id, 0), out _))
+                        throw new StructureException(
+                            $"The support movements stretch or shorten member {e.Member.Id}, which is axially rigid. " +
+                            "Give member areas and set 'axial' to 'elastic', or correct the movements.");
+                }
+            }
+            foreach (var (dof, _) in extra)
+                cs.Add(new Dictionary<int, double> { [dof] = 1 }, 0, ("added", dof, 0), out _);
+            return cs;
+        }
+
+        private SparseSymmetricMatrix Reduce(Transformation t)
+        {
+            var k = new SparseSymmetricMatrix(t.MasterCount);
+            foreach (var e in _elements)
+            {
+                var dofs = e.Dofs;
+                for (int a = 0; a < 6; a++)
+                {
+                    var ta = t.Terms[dofs[a]];
+                    if (ta.Length == 0) continue;
+                    for (int b = 0; b < 6; b++)
+                    {
+                        double kab = e.GlobalK[a, b];
+                        if (kab == 0) continue;
+                        var tb = t.Terms[dofs[b]];
+                        foreach (var (ma, ca) in ta)
+                            foreach (var (mb, cb) in tb)
+                                if (ma >= mb) k.Add(ma, mb, ca * kab * cb);
+                    }
+                }
+            }
+            return k;
+        }
+
+        /// <summary>Full load vector F − Σ Tᵀ·f_fixed and its reduction Tᵀ(F − K·d0).</summary>
+        private (double[] Full, double[] Reduced) ReducedLoad(Transformation t, LoadCase loadCase, Dictionary<string, List<LocalAction>> local)
+        {
+            var f = new double[_n];
+            foreach (var jl in loadCase.JointLoads)
+            {
+                if (!_jointIndex.TryGetValue(jl.Joint, out int j))
+                    throw new StructureException($"A load of case {loadCase.Id} acts on joint {jl.Joint}, which does not exist.");
+                switch (jl)
+                {
+                    case JointForce p:
+                        var (ux, uy) = p.Direction.Vector();
+                        f[3 * j] += p.P * ux;
+                        f[(3 * j) + 1] += p.P * uy;
+                        break;
+                    case JointCouple c:
+                        f[(3 * j) + 2] += -c.M;
+                        break;
+                }
+            }
+            foreach (var e in _elements)
+            {
+                var actions = local[e.Member.Id];
+                if (actions.Count == 0) continue;
+                var fixedLocal = FixedEndActions.Compute(actions, e.Length);
+                var (_, condensed) = ElementMatrices.Condense(e.LocalK, fixedLocal, e.Released);
+                var g = ElementMatrices.ToGlobal(condensed, e.Cos, e.Sin);
+                for (int a = 0; a < 6; a++) f[e.Dofs[a]] -= g[a];
+            }
+            // Subtract K·d0 for prescribed movements.
+            var full = (double[])f.Clone();
+            if (t.Constants.Any(c => c != 0))
+            {
+                foreach (var e in _elements)
+                {
+                    var d0 = e.Dofs.Select(i => t.Constants[i]).ToArray();
+                    if (d0.All(v => v == 0)) continue;
+                    for (int a = 0; a < 6; a++)
+                    {
+                        double s = 0;
+                        for (int b = 0; b < 6; b++) s += e.GlobalK[a, b] * d0[b];
+                        f[e.Dofs[a]] -= s;
+                    }
+                }
+            }
+            return (full, t.Reduce(f));
+        }
+
+        /// <summary>
+        /// Finds the free movements of a singular reduced matrix. Movements no load drives are restrained
+        /// (returned with a note); a driven one is a mechanism and throws.
+        /// </summary>
+        private List<(int Dof, string Note)> FreeMovements(SparseSymmetricMatrix k, Transformation t,
+            List<(double[] Full, double[] Reduced)> loads, List<string> caseIds, SingularMatrixException cause)
+        {
+            int n = k.Size;
+            var scale = new double[n];
+            for (int i = 0; i < n; i++) { double d = k.Diagonal(i); scale[i] = d > 0 ? 1 / Math.Sqrt(d) : 1; }
+            var modes = new List<double[]>();
+            // DOFs with no stiffness at all are free on their own.
+            for (int i = 0; i < n; i++)
+                if (!(k.Diagonal(i) > 0))
+                {
+                    var v = new double[n]; v[i] = 1; modes.Add(v);
+                }
+            if (modes.Count == 0)
+            {
+                if (n > 2500)
+                {
+                    int p = cause.PivotIndex >= 0 ? cause.PivotIndex : 0;
+                    var v = new double[n]; v[p] = 1; modes.Add(v);
+                }
+                else
+                {
+                    var a = Matrix<double>.Build.Dense(n, n);
+                    for (int i = 0; i < n; i++)
+                        foreach (var (j, val) in k.LowerRow(i))
+                        {
+                            double s = val * scale[i] * scale[j];
+                            a[i, j] = s; a[j, i] = s;
+                        }
+                    var evd = a.Evd(Symmetricity.Symmetric);
+                    double top = evd.EigenValues.Select(z => Math.Abs(z.Real)).DefaultIfEmpty(1).Max();
+                    for (int m = 0; m < n; m++)
+                        if (Math.Abs(evd.EigenValues[m].Real) <= 1e-10 * top)
+                            modes.Add(evd.EigenVectors.Column(m).ToArray());
+                    if (modes.Count == 0)
+                    {
+                        int p = cause.PivotIndex >= 0 ? cause.PivotIndex : 0;
+                        var v = new double[n]; v[p] = 1; modes.Add(v);
+                    }
+                }
+            }
+            var result = new List<(int, string)>();
+            var taken = new HashSet<int>();
+            foreach (var scaledMode in modes)
+            {
+                // Does any load case do work on this movement?
+                for (int c = 0; c < loads.Count; c++)
+                {
+                    double work = 0, norm = 0;
+                    for (int i = 0; i < n; i++)
+                    {
+                        double fs = loads[c].Reduced[i] * scale[i];
+                        work += scaledMode[i] * fs;
+                        norm += fs * fs;
+                    }
+                    if (Math.Abs(work) > 1e-9 * Math.Sqrt(norm) && norm > 0)
+                    {
+                        var (joint, dir, others) = Describe(scaledMode, scale, t);
+                        string also = others.Count > 0 ? $" (together with joint{(others.Count > 1 ? "s" : "")} {string.Join(", ", others)})" : "";
+                        throw new StructureException(
+                            $"The structure is a mechanism: joint {joint} can move in {dir}{also} without any member or support resisting it, " +
+                            $"and the loads of case {caseIds[c]} push it that way. Check the supports, the hinges and the member connections.",
+                            joint, dir);
+                    }
+                }
+                int best = -1; double bestVal = 0;
+                for (int i = 0; i < n; i++)
+                    if (!taken.Contains(i) && Math.Abs(scaledMode[i]) > bestVal + 1e-12) { bestVal = Math.Abs(scaledMode[i]); best = i; }
+                if (best < 0) continue;
+                taken.Add(best);
+                int dof = t.Masters[best];
+                string jointId = _model.Joints[dof / 3].Id;
+                result.Add((dof, string.Create(CultureInfo.InvariantCulture,
+                    $"Joint {jointId} is free to move in {DirectionNames[dof % 3]} but no load drives that movement; it was held for the analysis (no effect on the results).")));
+            }
+            return result;
+        }
+
+        private (string Joint, string Direction, List<string> Others) Describe(double[] scaledMode, double[] scale, Transformation t)
+        {
+            var q = scaledMode.Select((v, i) => v * scale[i]).ToArray();
+            var d = t.Expand(q);
+            for (int i = 0; i < d.Length; i++) d[i] -= t.Constants[i];
+            double lref = _elements.Length > 0 ? _elements.Average(e => e.Length) : 1;
+            int best = 0; double bestVal = -1;
+            var moving = new List<(int Joint, double Size)>();
+            for (int j = 0; j < _model.Joints.Count; j++)
+            {
+                double size = 0;
+                for (int dir = 0; dir < 3; dir++)
+                {
+                    double v = Math.Abs(d[(3 * j) + dir]) * (dir == 2 ? lref : 1);
+                    size = Math.Max(size, v);
+                    if (v > bestVal) { bestVal = v; best = (3 * j) + dir; }
+                }
+                moving.Add((j, size));
+            }
+            string joint = _model.Joints[best / 3].Id;
+            var others = moving.Where(m => m.Joint != best / 3 && m.Size > 1e-3 * bestVal)
+                .Select(m => _model.Joints[m.Joint].Id).Take(6).ToList();
+            return (joint, DirectionNames[best % 3], others);
+        }
+
+        private CaseResult Recover(LoadCase loadCase, Dictionary<string, List<LocalAction>> local, double[] d, double[] fullLoad, ConstraintSet constraints)
+        {
+            var endForces = new double[_elements.Length][];
+            var localDisp = new double[_elements.Length][];
+            var residual = new double[_n];
+            for (int i = 0; i < _elements.Length; i++)
+            {
+                var e = _elements[i];
+                var dg = e.Dofs.Select(x => d[x]).ToArray();
+                var dl = ElementMatrices.ToLocal(dg, e.Cos, e.Sin);
+                var actions = local[e.Member.Id];
+                var fixedLocal = actions.Count == 0 ? new double[6] : FixedEndActions.Compute(actions, e.Length);
+                ElementMatrices.RecoverReleased(e.LocalK, fixedLocal, e.Released, dl);
+                var f = new double[6];
+                for (int a = 0; a < 6; a++)
+                {
+                    double s = fixedLocal[a];
+                    for (int b = 0; b < 6; b++) s += e.LocalK[a, b] * dl[b];
+                    f[a] = s;
+                }
+                foreach (int r in e.Released) f[r] = 0; // exactly zero at a hinge
+                endForces[i] = f;
+                localDisp[i] = dl;
+                var g = ElementMatrices.ToGlobal(f, e.Cos, e.Sin);
+                for (int a = 0; a < 6; a++) residual[e.Dofs[a]] += g[a];
+            }
+            // Joint loads: the residual Σ member forces − applied joint loads must be carried by constraints.
+            foreach (var jl in loadCase.JointLoads)
+            {
+                int j = _jointIndex[jl.Joint];
+                switch (jl)
+                {
+                    case JointForce p:
+                        var (ux, uy) = p.Direction.Vector();
+                        residual[3 * j] -= p.P * ux;
+                        residual[(3 * j) + 1] -= p.P * uy;
+                        break;
+                    case JointCouple c:
+                        residual[(3 * j) + 2] -= -c.M;
+                        break;
+                }
+            }
+            if (_model.Axial == AxialBehaviour.Rigid) AddRigidAxialForces(constraints, residual, endForces);
+
+            var members = new Dictionary<string, MemberResult>(StringComparer.Ordinal);
+            var reactionVec = new double[_n];
+            for (int i = 0; i < _elements.Length; i++)
+            {
+                var e = _elements[i];
+                members[e.Member.Id] = new MemberResult(e.Member, e.Length, e.Cos, e.Sin, endForces[i], localDisp[i], [.. local[e.Member.Id]]);
+                var g = ElementMatrices.ToGlobal(endForces[i], e.Cos, e.Sin);
+                for (int a = 0; a < 6; a++) reactionVec[e.Dofs[a]] += g[a];
+            }
+            foreach (var jl in loadCase.JointLoads)
+            {
+                int j = _jointIndex[jl.Joint];
+                if (jl is JointForce p) { var (ux, uy) = p.Direction.Vector(); reactionVec[3 * j] -= p.P * ux; reactionVec[(3 * j) + 1] -= p.P * uy; }
+                else if (jl is JointCouple c) reactionVec[(3 * j) + 2] += c.M;
+            }
+            var displacements = new Dictionary<string, JointDisplacement>(StringComparer.Ordinal);
+            var reactions = new Dictionary<string, Reaction>(StringComparer.Ordinal);
+            for (int j = 0; j < _model.Joints.Count; j++)
+            {
+                var joint = _model.Joints[j];
+                displacements[joint.Id] = new JointDisplacement(d[3 * j], d[(3 * j) + 1], -d[(3 * j) + 2]);
+                if (joint.IsSupport)
+                {
+                    reactions[joint.Id] = new Reaction(
+                        joint.Restraint.HasFlag(Restraint.X) ? reactionVec[3 * j] : 0,
+                        joint.Restraint.HasFlag(Restraint.Y) ? reactionVec[(3 * j) + 1] : 0,
+                        joint.Restraint.HasFlag(Restraint.Rotation) ? -reactionVec[(3 * j) + 2] : 0);
+                }
+            }
+            return new CaseResult(loadCase.Id, members, displacements, reactions);
+        }
+
+        /// <summary>
+        /// Axial forces of axially rigid members are constraint forces: find λ with Σ λ_k·c_k = r (the
+        /// out-of-balance joint forces of the bending solution), minimum norm where rigid members form a
+        /// self-straining loop, by iterated Tikhonov on C·Cᵀ.
+        /// </summary>
+        private void AddRigidAxialForces(ConstraintSet constraints, double[] residual, double[][] endForces)
+        {
+            var rows = constraints.Rows;
+            int m = rows.Count;
+            if (m == 0) return;
+            var byDof = new Dictionary<int, List<(int Row, double Coef)>>();
+            for (int r = 0; r < m; r++)
+                foreach (var (dof, c) in rows[r].Coefficients)
+                {
+                    if (!byDof.TryGetValue(dof, out var list)) byDof[dof] = list = [];
+                    list.Add((r, c));
+                }
+            var cct = new SparseSymmetricMatrix(m);
+            foreach (var list in byDof.Values)
+                foreach (var (r1, c1) in list)
+                    foreach (var (r2, c2) in list)
+                        if (r1 >= r2) cct.Add(r1, r2, c1 * c2);
+            double maxDiag = Enumerable.Range(0, m).Max(cct.Diagonal);
+            double delta = 1e-10 * maxDiag;
+            for (int r = 0; r < m; r++) cct.Add(r, r, delta);
+            var b = new double[m];
+            for (int r = 0; r < m; r++)
+                foreach (var (dof, c) in rows[r].Coefficients) b[r] += c * residual[dof];
+            ILinearFactor factor;
+            try { factor = _linear.Factor(cct); }
+            catch (SingularMatrixException) { return; }
+            var lambda = new double[m];
+            for (int iter = 0; iter < 3; iter++)
+            {
+                // r_k = b − (C·Cᵀ)·λ, without the regularisation term.
+                var mv = cct.Multiply(lambda);
+                var rhs = new double[m];
+                for (int r = 0; r < m; r++) rhs[r] = b[r] - (mv[r] - (delta * lambda[r]));
+                var step = factor.Solve(rhs);
+                for (int r = 0; r < m; r++) lambda[r] += step[r];
+            }
+            for (int r = 0; r < m; r++)
+            {
+                if (rows[r].Tag is not ValueTuple<string, string, int> { Item1: "rigid" } tag) continue;
+                int i = Array.FindIndex(_elements, e => e.Member.Id == tag.Item2);
+                double tension = -lambda[r];
+                endForces[i][0] += -tension;
+                endForces[i][3] += tension;
+            }
+        }
+    }
+
+    private sealed record Element(Member Member, int StartJoint, int EndJoint, double Length, double Cos, double Sin,
+        double[,] LocalK, double[,] CondensedK, int[] Released, double[,] GlobalK)
+    {
+        public int[] Dofs { get; } =
+        [
+            3 * StartJoint, (3 * StartJoint) + 1, (3 * StartJoint) + 2,
+            3 * EndJoint, (3 * EndJoint) + 1, (3 * EndJoint) + 2,
+        ];
+    }
+}

@@ -1,0 +1,81 @@
+using CrossCheck.Model;
+
+namespace CrossCheck.Analysis;
+
+/// <summary>
+/// A member load resolved into the member's local axes: x along the member from start to end,
+/// y 90° anticlockwise from x. Forces are positive along the local axes, couples anticlockwise.
+/// </summary>
+internal abstract record LocalAction(Load Origin)
+{
+    /// <summary>Breakpoints along the member where the internal forces change character.</summary>
+    public abstract IEnumerable<double> Breakpoints { get; }
+}
+
+/// <summary>Concentrated force at <paramref name="A"/>.</summary>
+internal sealed record LocalPoint(Load Origin, double A, double Qx, double Qy) : LocalAction(Origin)
+{
+    public override IEnumerable<double> Breakpoints => [A];
+}
+
+/// <summary>Linearly varying load per unit length from <paramref name="A"/> to <paramref name="B"/>.</summary>
+internal sealed record LocalDistributed(Load Origin, double A, double B, double Qx1, double Qx2, double Qy1, double Qy2) : LocalAction(Origin)
+{
+    public override IEnumerable<double> Breakpoints => [A, B];
+
+    public double QyAt(double s) => B == A ? Qy1 : Qy1 + ((Qy2 - Qy1) * (s - A) / (B - A));
+
+    public double QxAt(double s) => B == A ? Qx1 : Qx1 + ((Qx2 - Qx1) * (s - A) / (B - A));
+
+    /// <summary>Resultant (∫q ds) and first moment about <paramref name="x"/> (∫q·(x−s) ds) of the transverse load left of x.</summary>
+    public (double Force, double MomentAboutX) TransverseLeftOf(double x)
+    {
+        if (x <= A) return (0, 0);
+        double end = Math.Min(x, B);
+        double t = end - A;
+        double k = B == A ? 0 : (Qy2 - Qy1) / (B - A);
+        double xx = x - A;
+        double force = (Qy1 * t) + (k * t * t / 2);
+        double moment = (Qy1 * ((xx * t) - (t * t / 2))) + (k * ((xx * t * t / 2) - (t * t * t / 3)));
+        return (force, moment);
+    }
+}
+
+/// <summary>Concentrated couple (anticlockwise positive) at <paramref name="A"/>.</summary>
+internal sealed record LocalCouple(Load Origin, double A, double C) : LocalAction(Origin)
+{
+    public override IEnumerable<double> Breakpoints => [A];
+}
+
+internal static class LocalLoads
+{
+    /// <summary>Resolves a member load given in global directions into local actions.</summary>
+    public static LocalAction Resolve(MemberLoad load, double cos, double sin)
+    {
+        // Local axes in global components: ex = (c, s), ey = (−s, c).
+        (double qx, double qy) Components(LoadDirection dir)
+        {
+            var (gx, gy) = dir.Vector();
+            return ((gx * cos) + (gy * sin), (-gx * sin) + (gy * cos));
+        }
+
+        switch (load)
+        {
+            case PointLoad p:
+            {
+                var (ux, uy) = Components(p.Direction);
+                return new LocalPoint(load, p.A, p.P * ux, p.P * uy);
+            }
+            case DistributedLoad d:
+            {
+                var (ux, uy) = Components(d.Direction);
+                return new LocalDistributed(load, d.A, d.B, d.WStart * ux, d.WEnd * ux, d.WStart * uy, d.WEnd * uy);
+            }
+            case MemberCouple c:
+                // Clockwise positive in the submission; anticlockwise positive here.
+                return new LocalCouple(load, c.A, -c.M);
+            default:
+                throw new NotSupportedException($"Load kind {load.GetType().Name} is not supported on members.");
+        }
+    }
+}

@@ -1,0 +1,68 @@
+namespace CrossCheck.Model;
+
+/// <summary>Global direction of a force or distributed load.</summary>
+public enum LoadDirection
+{
+    Down,
+    Up,
+    Left,
+    Right,
+}
+
+/// <summary>
+/// A load of one load case. Magnitudes are in SI (N, N/m, N·m), positive in the stated direction;
+/// moments are clockwise positive. Positions are metres from the member's start joint.
+/// </summary>
+public abstract record Load(string Case, SourceRef Source);
+
+/// <summary>A load that acts on a member.</summary>
+public abstract record MemberLoad(string Case, string Member, SourceRef Source) : Load(Case, Source);
+
+/// <summary>A concentrated force <paramref name="P"/> at distance <paramref name="A"/> along the member.</summary>
+public sealed record PointLoad(string Case, string Member, double P, double A, LoadDirection Direction, SourceRef Source)
+    : MemberLoad(Case, Member, Source);
+
+/// <summary>
+/// A distributed load per unit length along the member, varying linearly from <paramref name="WStart"/>
+/// at <paramref name="A"/> to <paramref name="WEnd"/> at <paramref name="B"/> (a uniform load has equal ends).
+/// </summary>
+public sealed record DistributedLoad(string Case, string Member, double WStart, double WEnd, double A, double B, LoadDirection Direction, SourceRef Source)
+    : MemberLoad(Case, Member, Source)
+{
+    public bool IsUniform => WStart == WEnd;
+}
+
+/// <summary>A concentrated couple on a member, clockwise positive, at distance <paramref name="A"/>.</summary>
+public sealed record MemberCouple(string Case, string Member, double M, double A, SourceRef Source)
+    : MemberLoad(Case, Member, Source);
+
+/// <summary>A load applied directly to a joint.</summary>
+public abstract record JointLoad(string Case, string Joint, SourceRef Source) : Load(Case, Source);
+
+/// <summary>A force at a joint.</summary>
+public sealed record JointForce(string Case, string Joint, double P, LoadDirection Direction, SourceRef Source)
+    : JointLoad(Case, Joint, Source);
+
+/// <summary>A couple at a joint, clockwise positive.</summary>
+public sealed record JointCouple(string Case, string Joint, double M, SourceRef Source)
+    : JointLoad(Case, Joint, Source);
+
+/// <summary>A load case: its id and its loads in submission order. Support movements apply to every case.</summary>
+public sealed record LoadCase(string Id, IReadOnlyList<Load> Loads)
+{
+    public IEnumerable<MemberLoad> MemberLoads => Loads.OfType<MemberLoad>();
+    public IEnumerable<JointLoad> JointLoads => Loads.OfType<JointLoad>();
+}
+
+public static class LoadDirections
+{
+    /// <summary>Unit vector (x right, y up) of a direction.</summary>
+    public static (double X, double Y) Vector(this LoadDirection d) => d switch
+    {
+        LoadDirection.Down => (0, -1),
+        LoadDirection.Up => (0, 1),
+        LoadDirection.Left => (-1, 0),
+        LoadDirection.Right => (1, 0),
+        _ => throw new ArgumentOutOfRangeException(nameof(d)),
+    };
+}

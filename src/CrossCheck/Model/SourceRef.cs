@@ -1,0 +1,83 @@
+using System.Globalization;
+using System.Text;
+
+namespace CrossCheck.Model;
+
+/// <summary>
+/// Where a value or a problem came from: a file, the table inside it, the line (row) and column,
+/// and for PDF input the page and line as printed. Every imported value keeps one of these so that
+/// a finding can point back at the number the author wrote.
+/// </summary>
+/// <param name="File">File name as the reviewer knows it (relative to the submission).</param>
+/// <param name="Table">Table name of the submission format (<c>members</c>, <c>loads</c>, ...).</param>
+/// <param name="Row">1-based line in the file (CSV) or line on the page (PDF).</param>
+/// <param name="Column">Column name as written in the header.</param>
+/// <param name="Page">1-based page for PDF input; null for CSV.</param>
+/// <param name="Text">The raw text of the cell as read, when known.</param>
+public sealed record SourceRef(
+    string File,
+    string? Table = null,
+    int? Row = null,
+    string? Column = null,
+    int? Page = null,
+    string? Text = null)
+{
+    /// <summary>A reference to one cell of the same row.</summary>
+    public SourceRef Cell(string column, string? text = null) => this with { Column = column, Text = text };
+
+    /// <summary>Compact form used in JSON and tables: <c>members.csv:7:I</c> or <c>calc.pdf:p3:14:I</c>.</summary>
+    public string Compact
+    {
+        get
+        {
+            var sb = new StringBuilder(File);
+            if (Page is int p) sb.Append(CultureInfo.InvariantCulture, $":p{p}");
+            if (Row is int r) sb.Append(CultureInfo.InvariantCulture, $":{r}");
+            if (Column is { Length: > 0 } c) sb.Append(':').Append(c);
+            return sb.ToString();
+        }
+    }
+
+    /// <summary>Long form for messages: <c>members.csv, table 'members', line 7, column 'I'</c>.</summary>
+    public string Describe()
+    {
+        var parts = new List<string> { File };
+        if (Table is { Length: > 0 } t) parts.Add($"table '{t}'");
+        if (Page is int p) parts.Add(string.Create(CultureInfo.InvariantCulture, $"page {p}"));
+        if (Row is int r) parts.Add(string.Create(CultureInfo.InvariantCulture, $"line {r}"));
+        if (Column is { Length: > 0 } c) parts.Add($"column '{c}'");
+        return string.Join(", ", parts);
+    }
+
+    public override string ToString() => Compact;
+
+    /// <summary>Compact form of a span of rows of one table: <c>end-moments.csv:4-6</c>.</summary>
+    public static string Span(IEnumerable<SourceRef> refs)
+    {
+        var list = refs.Where(r => r is not null).ToList();
+        if (list.Count == 0) return "";
+        var groups = list.GroupBy(r => (r.File, r.Page));
+        var pieces = new List<string>();
+        foreach (var g in groups)
+        {
+            var rows = g.Where(r => r.Row is not null).Select(r => r.Row!.Value).Distinct().Order().ToList();
+            var head = g.Key.Page is int p ? string.Create(CultureInfo.InvariantCulture, $"{g.Key.File}:p{p}") : g.Key.File;
+            if (rows.Count == 0) { pieces.Add(head); continue; }
+            pieces.Add(head + ":" + string.Join(",", Runs(rows)));
+        }
+        return string.Join("; ", pieces);
+    }
+
+    private static IEnumerable<string> Runs(List<int> rows)
+    {
+        int start = rows[0], prev = rows[0];
+        for (int i = 1; i <= rows.Count; i++)
+        {
+            if (i < rows.Count && rows[i] == prev + 1) { prev = rows[i]; continue; }
+            yield return start == prev
+                ? start.ToString(CultureInfo.InvariantCulture)
+                : string.Create(CultureInfo.InvariantCulture, $"{start}-{prev}");
+            if (i < rows.Count) { start = prev = rows[i]; }
+        }
+    }
+}

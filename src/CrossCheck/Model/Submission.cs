@@ -1,0 +1,48 @@
+namespace CrossCheck.Model;
+
+/// <summary>How the claimed member-end moments are signed in the submission.</summary>
+public enum SignConvention
+{
+    /// <summary>Moment of the joint on the member end, clockwise positive (slope-deflection / moment distribution).</summary>
+    Clockwise,
+    /// <summary>Internal bending moment, positive when the right-hand fibre (facing start to end) is in tension.</summary>
+    Sagging,
+}
+
+/// <summary>A unit the submission uses for one kind of quantity, with its factor to SI.</summary>
+/// <param name="Symbol">Symbol for display, e.g. <c>kN·m</c>.</param>
+/// <param name="ToSi">Multiply a value in this unit by this to get SI.</param>
+public sealed record UnitChoice(string Symbol, double ToSi)
+{
+    public double FromSi(double si) => si / ToSi;
+    public double ToSiValue(double value) => value * ToSi;
+}
+
+/// <summary>The units the submission's numbers are reported in.</summary>
+public sealed record DisplayUnits(UnitChoice Force, UnitChoice Length, UnitChoice Moment, UnitChoice Displacement)
+{
+    public static DisplayUnits Si { get; } = new(new("kN", 1e3), new("m", 1), new("kN·m", 1e3), new("mm", 1e-3));
+}
+
+/// <summary>Title block and settings from the <c>info</c> table.</summary>
+public sealed record SubmissionInfo(
+    string? Title,
+    string? Reference,
+    string? Revision,
+    string? PreparedBy,
+    string? CheckedBy,
+    string? Date,
+    SignConvention SignConvention,
+    DisplayUnits Units,
+    IReadOnlyDictionary<string, string> Other)
+{
+    public static SubmissionInfo Empty { get; } =
+        new(null, null, null, null, null, null, SignConvention.Clockwise, DisplayUnits.Si, new Dictionary<string, string>());
+}
+
+/// <summary>A calculation under review: title block, structure, load cases and the author's claims.</summary>
+/// <param name="Source">Path of the submission as given (folder, CSV or PDF).</param>
+public sealed record Submission(string Source, SubmissionInfo Info, StructureModel Model, IReadOnlyList<LoadCase> Cases, Claims Claims)
+{
+    public LoadCase? Case(string id) => Cases.FirstOrDefault(c => c.Id == id);
+}
