@@ -1,1 +1,1 @@
-return 0;
+return CrossCheck.Cli.App.Run(args, Console.Out, Console.Error);

@@ -334,7 +334,7 @@ public sealed class FrameSolver
                         var (joint, dir, others) = Describe(scaledMode, scale, t);
                         string also = others.Count > 0 ? $" (together with joint{(others.Count > 1 ? "s" : "")} {string.Join(", ", others)})" : "";
                         throw new StructureException(
-                            $"The structure is a mechanism: joint {joint} can move in {dir}{also} without any member or support resisting it, " +
+                            $"The structure is a mechanism: joint {joint} can {Motion(dir)}{also} without any member or support resisting it, " +
                             $"and the loads of case {caseIds[c]} push it that way. Check the supports, the hinges and the member connections.",
                             joint, dir);
                     }
@@ -347,10 +347,17 @@ public sealed class FrameSolver
                 int dof = t.Masters[best];
                 string jointId = _model.Joints[dof / 3].Id;
                 result.Add((dof, string.Create(CultureInfo.InvariantCulture,
-                    $"Joint {jointId} is free to move in {DirectionNames[dof % 3]} but no load drives that movement; it was held for the analysis (no effect on the results).")));
+                    $"Joint {jointId} is free to {Motion(DirectionNames[dof % 3])} but no load drives that movement; it was held for the analysis (no effect on the results).")));
             }
             return result;
         }
+
+        private static string Motion(string dir) => dir switch
+        {
+            "x" => "move horizontally (x)",
+            "y" => "move vertically (y)",
+            _ => "rotate",
+        };
 
         private (string Joint, string Direction, List<string> Others) Describe(double[] scaledMode, double[] scale, Transformation t)
         {
@@ -358,6 +365,9 @@ public sealed class FrameSolver
             var d = t.Expand(q);
             for (int i = 0; i < d.Length; i++) d[i] -= t.Constants[i];
             double lref = _elements.Length > 0 ? _elements.Average(e => e.Length) : 1;
+            // Prefer naming a translation (what an engineer calls sway or a falling joint) over a rotation.
+            double maxTrans = 0;
+            for (int i = 0; i < d.Length; i++) if (i % 3 != 2) maxTrans = Math.Max(maxTrans, Math.Abs(d[i]));
             int best = 0; double bestVal = -1;
             var moving = new List<(int Joint, double Size)>();
             for (int j = 0; j < _model.Joints.Count; j++)
@@ -367,7 +377,8 @@ public sealed class FrameSolver
                 {
                     double v = Math.Abs(d[(3 * j) + dir]) * (dir == 2 ? lref : 1);
                     size = Math.Max(size, v);
-                    if (v > bestVal) { bestVal = v; best = (3 * j) + dir; }
+                    bool eligible = dir != 2 || maxTrans <= 1e-9 * Math.Abs(d[(3 * j) + dir]) * lref;
+                    if (eligible && v > bestVal) { bestVal = v; best = (3 * j) + dir; }
                 }
                 moving.Add((j, size));
             }
@@ -397,7 +408,6 @@ public sealed class FrameSolver
                     for (int b = 0; b < 6; b++) s += e.LocalK[a, b] * dl[b];
                     f[a] = s;
                 }
-                foreach (int r in e.Released) f[r] = 0; // exactly zero at a hinge
                 endForces[i] = f;
                 localDisp[i] = dl;
                 var g = ElementMatrices.ToGlobal(f, e.Cos, e.Sin);

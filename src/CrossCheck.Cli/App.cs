@@ -1,0 +1,79 @@
+using System.CommandLine;
+using CrossCheck.Cli.Commands;
+
+namespace CrossCheck.Cli;
+
+/// <summary>Exit codes of every command (REVIEW-JSON.md).</summary>
+public static class ExitCodes
+{
+    public const int Concur = 0;
+    public const int Comments = 1;
+    public const int InputError = 2;
+    public const int InternalError = 3;
+}
+
+/// <summary>The command line: parses arguments, calls the library, returns an exit code. No logic of its own.</summary>
+public static class App
+{
+    public static int Run(string[] args, TextWriter output, TextWriter error)
+    {
+        ArgumentNullException.ThrowIfNull(args);
+        var io = new CliIo(output, error, ReferenceEquals(output, Console.Out) && !Console.IsOutputRedirected);
+        var root = new RootCommand(
+            "CrossCheck re-analyses the continuous beams and rigid frames of a calculation, checks the member end moments " +
+            "its author claims, and writes a review memo. It checks analysis arithmetic only; the engineer of record stays responsible.");
+        root.Add(SolveCommand.Create(io));
+        foreach (var cmd in ExtraCommands) root.Add(cmd(io));
+        foreach (var sub in root.Subcommands)
+            if (!sub.Options.OfType<VersionOption>().Any()) sub.Add(new VersionOption());
+
+        // --version answers with this tool's version wherever it appears (the parser's own option would report the host's).
+        if (args.Contains("--version") && !args.Any(a => a is "--help" or "-h" or "-?"))
+        {
+            output.WriteLine(CrossCheck.Memo.ToolInfo.Version);
+            return ExitCodes.Concur;
+        }
+
+        ParseResult parsed;
+        try
+        {
+            parsed = root.Parse(args);
+        }
+        catch (Exception ex)
+        {
+            error.WriteLine($"crosscheck: {ex.Message}");
+            return ExitCodes.InputError;
+        }
+        bool wantsInfo = args.Any(a => a is "--help" or "-h" or "-?" or "--version");
+        if (parsed.Errors.Count > 0 && !wantsInfo)
+        {
+            foreach (var e in parsed.Errors) error.WriteLine($"crosscheck: {e.Message}");
+            error.WriteLine("Run 'crosscheck --help' for usage.");
+            return ExitCodes.InputError;
+        }
+        try
+        {
+            return parsed.Invoke(new InvocationConfiguration { Output = output, Error = error, EnableDefaultExceptionHandler = false });
+        }
+        catch (Exception ex)
+        {
+            error.WriteLine($"crosscheck: internal error: {ex.Message}");
+            error.WriteLine("This is a fault in CrossCheck, not in your input. Please report it with the submission that caused it.");
+            if (Environment.GetEnvironmentVariable("CROSSCHECK_DEBUG") == "1") error.WriteLine(ex.ToString());
+            return ExitCodes.InternalError;
+        }
+    }
+
+    /// <summary>Commands added by later stages (review, extract, screen, ...).</summary>
+    internal static List<Func<CliIo, Command>> ExtraCommands { get; } = [];
+}
+
+/// <summary>Where a command writes: standard output for results, standard error for messages.</summary>
+public sealed class CliIo(TextWriter output, TextWriter error, bool interactive)
+{
+    public TextWriter Output { get; } = output;
+    public TextWriter Error { get; } = error;
+
+    /// <summary>True when standard output is a terminal (colours and progress bars allowed).</summary>
+    public bool Interactive { get; } = interactive;
+}

@@ -1,0 +1,48 @@
+using CrossCheck.Analysis;
+using CrossCheck.Import;
+using CrossCheck.Memo;
+using CrossCheck.Model;
+using Spectre.Console;
+
+namespace CrossCheck.Cli.Commands;
+
+/// <summary>What the commands share: reading a submission, reporting input problems, writing outputs.</summary>
+internal static class CommandSupport
+{
+    /// <summary>Reads a submission; on failure prints every problem and returns null.</summary>
+    public static Submission? Read(string path, CliIo io, bool quietWarnings = false)
+    {
+        var result = SubmissionReader.Read(path);
+        if (!quietWarnings)
+            foreach (var w in result.Warnings) io.Error.WriteLine($"warning: {w}");
+        if (result.Succeeded) return result.Submission;
+        var errors = result.Errors.ToList();
+        io.Error.WriteLine($"crosscheck: '{path}' could not be read ({errors.Count} problem{(errors.Count == 1 ? "" : "s")}):");
+        foreach (var e in errors) io.Error.WriteLine($"  {e.Where.Compact}: {e.Message}");
+        return null;
+    }
+
+    /// <summary>Solves; on a structural problem (mechanism, ...) prints it and returns null.</summary>
+    public static AnalysisResult? Solve(Submission s, CliIo io)
+    {
+        if (new FrameSolver().TrySolve(s.Model, s.Cases, out var result, out var problem)) return result;
+        io.Error.WriteLine($"crosscheck: '{s.Source}' cannot be analysed: {problem!.Message}");
+        return null;
+    }
+
+    /// <summary>Writes to <paramref name="outPath"/> atomically, or to standard output when it is null.</summary>
+    public static void Emit(string? outPath, string content, CliIo io)
+    {
+        if (outPath is null) { io.Output.Write(content); return; }
+        AtomicFile.WriteText(outPath, content);
+        io.Error.WriteLine($"wrote {outPath}");
+    }
+
+    public static IAnsiConsole Console(CliIo io) => AnsiConsole.Create(new AnsiConsoleSettings
+    {
+        Out = new AnsiConsoleOutput(io.Output),
+        Ansi = io.Interactive ? AnsiSupport.Detect : AnsiSupport.No,
+        ColorSystem = io.Interactive ? ColorSystemSupport.Detect : ColorSystemSupport.NoColors,
+        Interactive = io.Interactive ? InteractionSupport.Detect : InteractionSupport.No,
+    });
+}

@@ -1,0 +1,171 @@
+using System.Text;
+using System.Text.RegularExpressions;
+using CrossCheck.Model;
+using CsvHelper;
+
+namespace CrossCheck.Import;
+
+/// <summary>
+/// Reads CSV files into <see cref="RawTable"/>s: a folder with one file per table, or one file holding several
+/// tables, each introduced by a line such as <c>[members]</c>. RFC 4180 quoting (CsvHelper), UTF-8 with or
+/// without BOM, blank lines and lines whose first cell starts with <c>#</c> ignored. A file whose header row
+/// uses <c>;</c> is read as semicolon-separated with decimal commas.
+/// </summary>
+public static partial class CsvTableReader
+{
+    /// <summary>Largest CSV file accepted (bytes); larger files are refused with a clear message.</summary>
+    public static long MaxFileBytes { get; set; } = 20L * 1024 * 1024;
+
+    /// <summary>Reads one file that holds several <c>[table]</c> sections.</summary>
+    public static List<RawTable> ReadSectioned(string path, string displayName, List<InputProblem> problems)
+    {
+        var records = ReadRecords(path, displayName, problems, out bool decimalComma);
+        var tables = new List<RawTable>();
+        string? name = null;
+        RawRow? header = null;
+        var rows = new List<RawRow>();
+        int nameLine = 0;
+        void Flush()
+        {
+            if (name is null) return;
+            if (header is null) problems.Add(new InputProblem(new SourceRef(displayName, name, nameLine), Messages.EmptyTable(name)));
+            else tables.Add(new RawTable(name, displayName, header, rows.ToList(), decimalComma));
+        }
+        bool sawData = false;
+        foreach (var r in records)
+        {
+            var section = SectionName(r);
+            if (section is not null)
+            {
+                Flush();
+                name = section; header = null; rows.Clear(); nameLine = r.Line;
+                continue;
+            }
+            if (name is null) { sawData = true; continue; }
+            if (header is null) header = r; else rows.Add(r);
+        }
+        Flush();
+        if (tables.Count == 0 && (sawData || records.Count == 0))
+            problems.Add(new InputProblem(new SourceRef(displayName), Messages.NoSections));
+        return tables;
+    }
+
+    /// <summary>Reads one file that holds a single table (the folder container); the table name is the file name.</summary>
+    public static RawTable? ReadSingle(string path, string displayName, string tableName, List<InputProblem> problems)
+    {
+        var records = ReadRecords(path, displayName, problems, out bool decimalComma);
+        if (records.Count == 0)
+        {
+            problems.Add(new InputProblem(new SourceRef(displayName, tableName), Messages.EmptyTable(tableName)));
+            return null;
+        }
+        return new RawTable(tableName, displayName, records[0], records.Skip(1).ToList(), decimalComma);
+    }
+
+    private static string? SectionName(RawRow r)
+    {
+        if (r.Cells.Count == 0) return null;
+        var m = SectionLine().Match(r.Cells[0]);
+        if (!m.Success) return null;
+        return r.Cells.Skip(1).All(c => c.Length == 0) ? m.Groups["name"].Value.Trim() : null;
+    }
+
+    private static List<RawRow> ReadRecords(string path, string displayName, List<InputProblem> problems, out bool decimalComma)
+    {
+        decimalComma = false;
+        var where = new SourceRef(displayName);
+        byte[] bytes;
+        try
+        {
+            var info = new FileInfo(path);
+            if (info.Length > MaxFileBytes)
+            {
+                problems.Add(new InputProblem(where, $"the file is {info.Length / (1024 * 1024)} MB; CSV files larger than {MaxFileBytes / (1024 * 1024)} MB are not read"));
+                return [];
+            }
+            bytes = File.ReadAllBytes(path);
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            problems.Add(new InputProblem(where, Messages.NotACsv(ex.Message)));
+            return [];
+        }
+        if (LooksBinary(bytes))
+        {
+            problems.Add(new InputProblem(where, Messages.NotACsv("it contains binary data, not text")));
+            return [];
+        }
+        string text;
+        try
+        {
+            text = new UTF8Encoding(false, true).GetString(bytes);
+        }
+        catch (DecoderFallbackException)
+        {
+            // Not UTF-8: spreadsheets on older systems save Windows-1252; Latin-1 keeps every byte readable.
+            text = Encoding.Latin1.GetString(bytes);
+            problems.Add(new InputProblem(where, "the file is not UTF-8; it was read as Latin-1 (save as 'CSV UTF-8' to be sure of special characters)", ProblemSeverity.Warning));
+        }
+        if (text.Length > 0 && text[0] == '\uFEFF') text = text[1..];
+        char separator = DetectSeparator(text);
+        decimalComma = separator == ';';
+        var records = new List<RawRow>();
+        try
+        {
+            using var reader = CsvReader.FromText(text, new CsvReaderOptions
+            {
+                Separator = separator,
+                HasHeader = false,
+                TrackLineNumbers = true,
+                SkipEmptyLines = true,
+                MaxRecordSize = 1024 * 1024,
+                MissingField = CsvMissingFieldHandling.ReturnEmpty,
+                MalformedData = CsvMalformedDataHandling.Recover,
+                OnMalformedRecord = m => problems.Add(new InputProblem(new SourceRef(displayName, null, (int)m.LineNumber),
+                    $"badly quoted CSV ({m.Reason}); the row was read as best it could be, check it", ProblemSeverity.Warning)),
+            });
+            while (reader.Read())
+            {
+                var cells = new string[reader.FieldCount];
+                for (int i = 0; i < cells.Length; i++) cells[i] = (reader.GetString(i) ?? "").Trim();
+                var row = new RawRow((int)reader.LineNumber, cells);
+                if (row.IsBlank) continue;
+                if (cells.Length > 0 && cells[0].StartsWith('#')) continue;
+                records.Add(row);
+            }
+        }
+        catch (Exception ex) when (ex is CsvFormatException or FormatException or InvalidOperationException or ArgumentException)
+        {
+            problems.Add(new InputProblem(where, Messages.NotACsv(ex.Message)));
+        }
+        return records;
+    }
+
+    private static bool LooksBinary(byte[] bytes)
+    {
+        int n = Math.Min(bytes.Length, 8192), control = 0;
+        for (int i = 0; i < n; i++)
+        {
+            byte b = bytes[i];
+            if (b == 0) return true;
+            if (b < 9 || (b > 13 && b < 32)) control++;
+        }
+        return n > 0 && control > n / 20;
+    }
+
+    /// <summary>The header row decides: <c>;</c> in the first header line means a semicolon file.</summary>
+    private static char DetectSeparator(string text)
+    {
+        foreach (var rawLine in text.Split('\n'))
+        {
+            string line = rawLine.Trim();
+            if (line.Length == 0 || line.StartsWith('#')) continue;
+            if (SectionLine().IsMatch(line.TrimEnd(',', ';'))) continue;
+            return line.Contains(';') ? ';' : ',';
+        }
+        return ',';
+    }
+
+    [GeneratedRegex(@"^\s*\[(?<name>[^\]]+)\]\s*$")]
+    private static partial Regex SectionLine();
+}

@@ -1,0 +1,146 @@
+using System.Text.RegularExpressions;
+
+namespace CrossCheck.Import;
+
+internal enum ColumnType
+{
+    Id,
+    Text,
+    Number,
+}
+
+/// <summary>A column of the submission format: its name, accepted synonyms and kind.</summary>
+internal sealed record ColumnSpec(string Name, ColumnType Type, QuantityKind Kind, bool Required, params string[] Synonyms)
+{
+    public bool Matches(string normalizedHeader) =>
+        TableSchema.Normalize(Name) == normalizedHeader || Synonyms.Any(s => TableSchema.Normalize(s) == normalizedHeader);
+}
+
+/// <summary>A table of the submission format.</summary>
+internal sealed record TableSpec(string Name, ColumnSpec[] Columns, params string[] Synonyms)
+{
+    public bool Matches(string normalizedName) =>
+        TableSchema.Normalize(Name) == normalizedName || Synonyms.Any(s => TableSchema.Normalize(s) == normalizedName);
+
+    public ColumnSpec Column(string name) => Columns.First(c => c.Name == name);
+}
+
+/// <summary>The tables and columns of SUBMISSION-FORMAT.md (format contract v1), in one place.</summary>
+internal static partial class TableSchema
+{
+    private static ColumnSpec Id(string name, bool required = true, params string[] syn) => new(name, ColumnType.Id, QuantityKind.Number, required, syn);
+    private static ColumnSpec Text(string name, bool required = false, params string[] syn) => new(name, ColumnType.Text, QuantityKind.Number, required, syn);
+    private static ColumnSpec Num(string name, QuantityKind kind, bool required = false, params string[] syn) => new(name, ColumnType.Number, kind, required, syn);
+
+    public static readonly TableSpec Info = new("info", [Text("key", true, "item", "field"), Text("value", true)], "title block", "project");
+
+    public static readonly TableSpec Joints = new("joints",
+    [
+        Id("joint", true, "node", "id", "point"),
+        Num("x", QuantityKind.Length, true),
+        Num("y", QuantityKind.Length, true),
+        Text("restraint", false, "support", "fixity", "boundary"),
+        Num("settle x", QuantityKind.Length, false, "settlement x", "dx"),
+        Num("settle y", QuantityKind.Length, false, "settlement y", "settlement", "dy"),
+        Num("settle rotation", QuantityKind.Angle, false, "settlement rotation", "rotation"),
+    ], "nodes");
+
+    public static readonly TableSpec Members = new("members",
+    [
+        Id("member", true, "element", "id", "span", "bar"),
+        Id("start", true, "from", "start joint", "node i", "i", "joint i"),
+        Id("end", true, "to", "end joint", "node j", "j", "joint j"),
+        Num("E", QuantityKind.Modulus, false, "modulus", "elastic modulus", "young's modulus"),
+        Num("I", QuantityKind.SecondMoment, true, "Ixx", "Iz", "second moment of area", "moment of inertia", "inertia"),
+        Num("A", QuantityKind.Area, false, "area", "section area"),
+        Text("hinge", false, "release", "releases", "hinges"),
+    ], "elements", "member properties");
+
+    public static readonly TableSpec Supports = new("supports",
+    [
+        Id("support", true, "joint", "node", "id"),
+        Text("restraint", true, "type", "fixity", "support type"),
+        Num("settle y", QuantityKind.Length, false, "settlement y", "settlement", "dy"),
+        Num("settle rotation", QuantityKind.Angle, false, "settlement rotation", "rotation"),
+    ]);
+
+    public static readonly TableSpec Spans = new("spans",
+    [
+        Id("span", true, "member", "id"),
+        Num("length", QuantityKind.Length, true, "L", "span length"),
+        Num("E", QuantityKind.Modulus, false, "modulus", "elastic modulus"),
+        Num("I", QuantityKind.SecondMoment, true, "Ixx", "Iz", "second moment of area", "moment of inertia", "inertia"),
+        Text("hinge", false, "release", "releases"),
+    ]);
+
+    public static readonly TableSpec Loads = new("loads",
+    [
+        Id("case", false, "load case", "lc", "loadcase", "combination"),
+        Id("on", true, "member", "joint", "span", "applied to", "element", "location"),
+        Text("kind", true, "type", "load type"),
+        Num("P", QuantityKind.Force, false, "force", "load", "F"),
+        Num("w", QuantityKind.ForcePerLength, false, "w start", "intensity", "udl", "w1", "q"),
+        Num("w end", QuantityKind.ForcePerLength, false, "w2", "intensity end", "q end", "q2"),
+        Num("M", QuantityKind.Moment, false, "moment", "couple"),
+        Num("a", QuantityKind.Length, false, "x", "position", "distance", "from", "start at"),
+        Num("b", QuantityKind.Length, false, "to", "end at"),
+        Text("dir", false, "direction"),
+    ], "load table", "applied loads");
+
+    public static readonly TableSpec EndMoments = new("end-moments",
+    [
+        Id("case", false, "load case", "lc", "loadcase", "combination"),
+        Id("member", true, "span", "element"),
+        Id("at", true, "end", "joint", "node"),
+        Num("moment", QuantityKind.Moment, true, "M", "end moment", "member end moment", "final moment"),
+    ], "end moments", "member end moments", "final moments", "moments");
+
+    public static readonly TableSpec Reactions = new("reactions",
+    [
+        Id("case", false, "load case", "lc", "loadcase"),
+        Id("joint", true, "support", "node"),
+        Num("Rx", QuantityKind.Force, false, "H", "horizontal"),
+        Num("Ry", QuantityKind.Force, false, "V", "R", "vertical"),
+        Num("M", QuantityKind.Moment, false, "moment", "Mz"),
+    ], "support reactions");
+
+    public static readonly TableSpec Displacements = new("displacements",
+    [
+        Id("case", false, "load case", "lc", "loadcase"),
+        Id("joint", true, "node"),
+        Num("ux", QuantityKind.Length, false, "dx", "sway", "drift", "horizontal"),
+        Num("uy", QuantityKind.Length, false, "dy", "deflection", "vertical"),
+        Num("rotation", QuantityKind.Angle, false, "theta", "θ", "rz"),
+    ], "deflections", "joint displacements");
+
+    public static readonly TableSpec[] All = [Info, Joints, Members, Supports, Spans, Loads, EndMoments, Reactions, Displacements];
+
+    public static TableSpec? Find(string name)
+    {
+        string n = Normalize(name);
+        return All.FirstOrDefault(t => t.Matches(n));
+    }
+
+    /// <summary>Case-insensitive, trimmed, with space, <c>_</c> and <c>-</c> treated alike.</summary>
+    public static string Normalize(string s) => Separators().Replace(s.Trim().ToLowerInvariant(), " ").Trim();
+
+    /// <summary>Splits <c>x [m]</c> into name and unit; also accepts <c>x (m)</c>.</summary>
+    public static (string Name, string? Unit) SplitHeader(string header)
+    {
+        string h = header.Replace("\uFEFF", "").Trim();
+        var m = BracketUnit().Match(h);
+        if (m.Success) return (m.Groups["name"].Value.Trim(), m.Groups["unit"].Value.Trim());
+        var p = ParenUnit().Match(h);
+        if (p.Success) return (p.Groups["name"].Value.Trim(), p.Groups["unit"].Value.Trim());
+        return (h, null);
+    }
+
+    [GeneratedRegex(@"[\s_\-]+")]
+    private static partial Regex Separators();
+
+    [GeneratedRegex(@"^(?<name>.*?)\s*\[(?<unit>[^\]]*)\]\s*$")]
+    private static partial Regex BracketUnit();
+
+    [GeneratedRegex(@"^(?<name>.*?)\s*\((?<unit>[^)]*)\)\s*$")]
+    private static partial Regex ParenUnit();
+}

@@ -1,0 +1,125 @@
+using System.Globalization;
+using System.Text;
+using System.Text.Encodings.Web;
+using System.Text.Json;
+using CrossCheck.Analysis;
+using CrossCheck.Model;
+
+namespace CrossCheck.Memo;
+
+/// <summary>One recomputed member-end moment, in the submission's unit and sign convention.</summary>
+public sealed record SolvedEndMoment(string Case, string Member, string At, MemberEnd End, double Moment);
+
+/// <summary>
+/// The recomputed results of a submission in its own units and sign convention: what <c>crosscheck solve</c>
+/// prints. Rendered as rows (for a console table), CSV or JSON.
+/// </summary>
+public sealed class SolveReport
+{
+    public SolveReport(Submission submission, AnalysisResult result)
+    {
+        ArgumentNullException.ThrowIfNull(submission);
+        ArgumentNullException.ThrowIfNull(result);
+        Submission = submission;
+        Result = result;
+        var u = submission.Info.Units.Moment;
+        var rows = new List<SolvedEndMoment>();
+        foreach (var c in result.Cases)
+            foreach (var m in submission.Model.Members)
+            {
+                var mr = c.Members[m.Id];
+                rows.Add(new SolvedEndMoment(c.Case, m.Id, m.Start, MemberEnd.Start, u.FromSi(ToConvention(mr.StartMoment, MemberEnd.Start))));
+                rows.Add(new SolvedEndMoment(c.Case, m.Id, m.End, MemberEnd.End, u.FromSi(ToConvention(mr.EndMoment, MemberEnd.End))));
+            }
+        EndMoments = rows;
+    }
+
+    public Submission Submission { get; }
+    public AnalysisResult Result { get; }
+    public IReadOnlyList<SolvedEndMoment> EndMoments { get; }
+
+    public string MomentUnit => Submission.Info.Units.Moment.Symbol;
+
+    /// <summary>Converts a clockwise member-end moment to the submission's convention.</summary>
+    public double ToConvention(double clockwise, MemberEnd end) =>
+        Submission.Info.SignConvention == SignConvention.Sagging && end == MemberEnd.End ? -clockwise : clockwise;
+
+    public string ConventionName => Submission.Info.SignConvention == SignConvention.Sagging
+        ? "sagging positive (internal bending moment)"
+        : "clockwise positive (moment on the member end)";
+
+    public string ToCsv()
+    {
+        var sb = new StringBuilder();
+        sb.Append(CultureInfo.InvariantCulture, $"case,member,at,moment [{MomentUnit}]\n");
+        foreach (var r in EndMoments)
+            sb.Append(CultureInfo.InvariantCulture, $"{Csv(r.Case)},{Csv(r.Member)},{Csv(r.At)},{Fmt.Number(r.Moment, "0.######")}\n");
+        return sb.ToString();
+    }
+
+    public string ToJson()
+    {
+        var units = Submission.Info.Units;
+        var doc = new
+        {
+            schema = "crosscheck-solve/1",
+            tool = new { name = "crosscheck", version = ToolInfo.Version },
+            submission = new
+            {
+                title = Submission.Info.Title,
+                reference = Submission.Info.Reference,
+                source = Submission.Source,
+                momentUnit = units.Moment.Symbol,
+                forceUnit = units.Force.Symbol,
+                displacementUnit = units.Displacement.Symbol,
+                signConvention = Submission.Info.SignConvention == SignConvention.Sagging ? "sagging" : "clockwise",
+            },
+            cases = Result.Cases.Select(c => new
+            {
+                @case = c.Case,
+                endMoments = EndMoments.Where(e => e.Case == c.Case)
+                    .Select(e => new { member = e.Member, at = e.At, moment = Round(e.Moment) }),
+                spanMoments = Submission.Model.Members.Select(m => new
+                {
+                    member = m.Id,
+                    maxSagging = Round(units.Moment.FromSi(c.Members[m.Id].MaxSagging.Moment)),
+                    at = Round(units.Length.FromSi(c.Members[m.Id].MaxSagging.X)),
+                }),
+                reactions = c.Reactions.Select(r => new
+                {
+                    joint = r.Key,
+                    rx = Round(units.Force.FromSi(r.Value.Rx)),
+                    ry = Round(units.Force.FromSi(r.Value.Ry)),
+                    m = Round(units.Moment.FromSi(r.Value.M)),
+                }),
+                displacements = Submission.Model.RelativeStiffness ? null : c.Displacements.Select(d => new
+                {
+                    joint = d.Key,
+                    ux = Round(units.Displacement.FromSi(d.Value.Ux)),
+                    uy = Round(units.Displacement.FromSi(d.Value.Uy)),
+                    rotation = Round(d.Value.Rotation, 9),
+                }),
+            }),
+            notes = Result.Notes,
+        };
+        return JsonSerializer.Serialize(doc, JsonOptions) + "\n";
+    }
+
+    internal static readonly JsonSerializerOptions JsonOptions = new()
+    {
+        WriteIndented = true,
+        Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping,
+    };
+
+    private static double Round(double v, int digits = 6) { double r = Math.Round(v, digits, MidpointRounding.AwayFromZero); return r == 0 ? 0 : r; }
+
+    private static string Csv(string s) =>
+        s.IndexOfAny([',', '"', '\n', '\r']) >= 0 ? "\"" + s.Replace("\"", "\"\"") + "\"" : s;
+}
+
+/// <summary>The tool's name and version for memos and JSON.</summary>
+public static class ToolInfo
+{
+    public static string Version { get; } =
+        typeof(ToolInfo).Assembly.GetName().Version is { } v ? $"{v.Major}.{v.Minor}.{v.Build}" : "0.0.0";
+}

@@ -1,0 +1,99 @@
+using System.Text.Json;
+using CrossCheck.Cli;
+using CrossCheck.Tests.Support;
+
+namespace CrossCheck.Tests.Cli;
+
+public class SolveCommandTests
+{
+    [Fact]
+    public void Solve_PrintsATableOfEndMoments()
+    {
+        var r = CliRunner.Run("solve", CliRunner.Demo("footbridge.csv"));
+        r.ExitCode.ShouldBe(ExitCodes.Concur, r.Err);
+        r.Out.ShouldContain("load case DL");
+        r.Out.ShouldContain("114.73"); // three-moment equation by hand: 5889.33 / 51.333 (see the issue's closing note)
+        r.Out.ShouldContain("kN·m");
+    }
+
+    [Fact]
+    public void Solve_Json_IsValidAndInTheSubmissionsUnits()
+    {
+        var r = CliRunner.Run("solve", CliRunner.Demo("shed-frame"), "--format", "json");
+        r.ExitCode.ShouldBe(0, r.Err);
+        using var doc = JsonDocument.Parse(r.Out);
+        doc.RootElement.GetProperty("schema").GetString().ShouldBe("crosscheck-solve/1");
+        var g = doc.RootElement.GetProperty("cases")[0];
+        g.GetProperty("case").GetString().ShouldBe("G");
+        var ab = g.GetProperty("endMoments").EnumerateArray().First(e => e.GetProperty("member").GetString() == "AB" && e.GetProperty("at").GetString() == "B");
+        // Hand moment distribution at B (symmetric frame, C does not rotate): DF_BA = 128/(128 + 111.1) → 108 × 0.5353 = 57.81 kN·m.
+        ab.GetProperty("moment").GetDouble().ShouldBe(57.81, 0.01);
+    }
+
+    [Fact]
+    public void Solve_Csv_ToAFile_WritesTheFileOnly()
+    {
+        using var t = new TempSubmission();
+        string outFile = Path.Combine(t.Folder, "out", "moments.csv");
+        var r = CliRunner.Run("solve", CliRunner.Demo("footbridge.csv"), "-f", "csv", "--out", outFile);
+        r.ExitCode.ShouldBe(0, r.Err);
+        r.Out.ShouldBeEmpty();
+        File.ReadAllText(outFile).ShouldStartWith("case,member,at,moment [kN·m]\n");
+        Directory.GetFiles(Path.GetDirectoryName(outFile)!).ShouldHaveSingleItem();
+    }
+
+    [Fact]
+    public void Solve_BadInput_ExitsWithTwoAndNamesThePlace()
+    {
+        var r = CliRunner.Run("solve", TempFile("[joints]\njoint,x,y\nA,0,zero"));
+        r.ExitCode.ShouldBe(ExitCodes.InputError);
+        r.Err.ShouldContain("calc.csv:3:y: 'y' must be a number, got \"zero\"");
+        r.Err.ShouldNotContain("   at ");
+        r.Out.ShouldBeEmpty();
+    }
+
+    [Fact]
+    public void Solve_Mechanism_ExitsWithTwo()
+    {
+        var r = CliRunner.Run("solve", TempFile(SampleText.With(frame: """
+            [joints]
+            joint,x,y,restraint
+            A,0,0,roller
+            B,6,0,roller
+
+            [members]
+            member,start,end,E [GPa],I [mm^4]
+            AB,A,B,200,250e6
+            """, loads: "[loads]\non,kind,P,dir\nB,force,3,right")));
+        r.ExitCode.ShouldBe(ExitCodes.InputError);
+        r.Err.ShouldContain("mechanism");
+    }
+
+    [Fact]
+    public void UnknownOption_IsAnInputError()
+    {
+        var r = CliRunner.Run("solve", CliRunner.Demo("footbridge.csv"), "--colour", "red");
+        r.ExitCode.ShouldBe(ExitCodes.InputError);
+    }
+
+    [Theory]
+    [InlineData]
+    [InlineData("solve")]
+    public void HelpAndVersion_WorkEverywhere(params string[] prefix)
+    {
+        var help = CliRunner.Run([.. prefix, "--help"]);
+        help.ExitCode.ShouldBe(0);
+        help.Out.ShouldContain("Usage");
+        var version = CliRunner.Run([.. prefix, "--version"]);
+        version.ExitCode.ShouldBe(0, version.Err);
+        version.Out.Trim().ShouldStartWith("0.1.0");
+    }
+
+    private static string TempFile(string text)
+    {
+        var dir = Directory.CreateTempSubdirectory("crosscheck-cli-").FullName;
+        string p = Path.Combine(dir, "calc.csv");
+        File.WriteAllText(p, text);
+        return p;
+    }
+}
