@@ -22,6 +22,7 @@ public static class App
         var root = new RootCommand(
             "CrossCheck re-analyses the continuous beams and rigid frames of a calculation, checks the member end moments " +
             "its author claims, and writes a review memo. It checks analysis arithmetic only; the engineer of record stays responsible.");
+        root.Add(ReviewCommand.Create(io));
         root.Add(SolveCommand.Create(io));
         foreach (var cmd in ExtraCommands) root.Add(cmd(io));
         foreach (var sub in root.Subcommands)

@@ -31,18 +31,23 @@ internal static class CommandSupport
     }
 
     /// <summary>Writes to <paramref name="outPath"/> atomically, or to standard output when it is null.</summary>
-    public static void Emit(string? outPath, string content, CliIo io)
+    public static void Emit(string? outPath, string content, CliIo io, bool announce = true)
     {
         if (outPath is null) { io.Output.Write(content); return; }
         AtomicFile.WriteText(outPath, content);
-        io.Error.WriteLine($"wrote {outPath}");
+        if (announce) io.Error.WriteLine($"wrote {outPath}");
     }
 
-    public static IAnsiConsole Console(CliIo io) => AnsiConsole.Create(new AnsiConsoleSettings
+    public static IAnsiConsole Console(CliIo io)
     {
-        Out = new AnsiConsoleOutput(io.Output),
-        Ansi = io.Interactive ? AnsiSupport.Detect : AnsiSupport.No,
-        ColorSystem = io.Interactive ? ColorSystemSupport.Detect : ColorSystemSupport.NoColors,
-        Interactive = io.Interactive ? InteractionSupport.Detect : InteractionSupport.No,
-    });
+        var console = AnsiConsole.Create(new AnsiConsoleSettings
+        {
+            Out = new AnsiConsoleOutput(io.Output),
+            Ansi = io.Interactive ? AnsiSupport.Detect : AnsiSupport.No,
+            ColorSystem = io.Interactive ? ColorSystemSupport.Detect : ColorSystemSupport.NoColors,
+            Interactive = io.Interactive ? InteractionSupport.Detect : InteractionSupport.No,
+        });
+        if (!io.Interactive) console.Profile.Width = 132; // files and pipes: wide enough for the tables
+        return console;
+    }
 }

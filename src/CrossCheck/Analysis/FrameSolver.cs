@@ -144,55 +144,14 @@ public sealed class FrameSolver
 
         private ConstraintSet BuildConstraints(List<(int Dof, string Note)> extra)
         {
-            var cs = new ConstraintSet(_n);
-            for (int j = 0; j < _model.Joints.Count; j++)
-            {
-                var joint = _model.Joints[j];
-                void Fix(Restraint flag, int dir, double value)
-                {
-                    if (!joint.Restraint.HasFlag(flag)) return;
-                    if (!cs.Add(new Dictionary<int, double> { [(3 * j) + dir] = 1 }, value, ("support", joint.Id, dir), out _))
-                        throw new StructureException(
-                            $"The movement prescribed at support {joint.Id} in {DirectionNames[dir]} contradicts the axially rigid members " +
-                            "connecting it to other supports. Give member areas and set 'axial' to 'elastic', or remove the movement.",
-                            joint.Id, DirectionNames[dir]);
-                }
-                Fix(Restraint.X, 0, joint.Movement.X);
-                Fix(Restraint.Y, 1, joint.Movement.Y);
-                Fix(Restraint.Rotation, 2, -joint.Movement.Rotation);
-            }
-            // Joints where every member is hinged and no support holds the rotation: the joint rotation
-            // has no stiffness and no meaning; hold it at zero (a couple there is an error).
-            for (int j = 0; j < _model.Joints.Count; j++)
-            {
-                var joint = _model.Joints[j];
-                if (joint.Restraint.HasFlag(Restraint.Rotation)) continue;
-                bool anyRigid = _elements.Any(e => (e.StartJoint == j && !e.Member.Hinge.HasFlag(Hinge.Start))
-                                                || (e.EndJoint == j && !e.Member.Hinge.HasFlag(Hinge.End)));
-                if (anyRigid) continue;
+            // A couple on a joint that cannot carry moment is an error before anything else.
+            foreach (var joint in Kinematics.MomentFreeJoints(_model))
                 foreach (var c in _cases)
                     if (c.Loads.OfType<JointCouple>().Any(l => l.Joint == joint.Id && l.M != 0))
                         throw new StructureException(
                             $"Case {c.Id} applies a couple at joint {joint.Id}, but every member is hinged there and no support holds its rotation, so nothing can resist it.",
                             joint.Id, "rotation");
-                cs.Add(new Dictionary<int, double> { [(3 * j) + 2] = 1 }, 0, ("hinged-joint", joint.Id, 2), out _);
-            }
-            if (_model.Axial == AxialBehaviour.Rigid)
-            {
-                foreach (var e in _elements)
-                {
-                    var row = new Dictionary<int, double>();
-                    void Put(int dof, double v) { if (v != 0) row[dof] = row.GetValueOrDefault(dof) + v; }
-                    Put(3 * e.StartJoint, -e.Cos);
-                    Put((3 * e.StartJoint) + 1, -e.Sin);
-                    Put(3 * e.EndJoint, e.Cos);
-                    Put((3 * e.EndJoint) + 1, e.Sin);
-                    if (!cs.Add(row, 0, ("rigid", e.Member.Id, 0), out _))
-                        throw new StructureException(
-                            $"The support movements stretch or shorten member {e.Member.Id}, which is axially rigid. " +
-                            "Give member areas and set 'axial' to 'elastic', or correct the movements.");
-                }
-            }
+            var cs = Kinematics.Constraints(_model);
             foreach (var (dof, _) in extra)
                 cs.Add(new Dictionary<int, double> { [dof] = 1 }, 0, ("added", dof, 0), out _);
             return cs;

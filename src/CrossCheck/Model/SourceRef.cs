@@ -38,6 +38,21 @@ public sealed record SourceRef(
         }
     }
 
+    /// <summary>The row without the column: <c>end-moments.csv:4</c>, <c>calc.pdf:p3:14</c>.</summary>
+    public string RowCompact => (this with { Column = null }).Compact;
+
+    /// <summary>How a memo cites it: <c>end-moments.csv line 4</c>, <c>calc.pdf p.3 line 14</c>.</summary>
+    public string Citation
+    {
+        get
+        {
+            var sb = new StringBuilder(File);
+            if (Page is int p) sb.Append(CultureInfo.InvariantCulture, $" p.{p}");
+            if (Row is int r) sb.Append(CultureInfo.InvariantCulture, $" line {r}");
+            return sb.ToString();
+        }
+    }
+
     /// <summary>Long form for messages: <c>members.csv, table 'members', line 7, column 'I'</c>.</summary>
     public string Describe()
     {
@@ -52,9 +67,9 @@ public sealed record SourceRef(
     public override string ToString() => Compact;
 
     /// <summary>Compact form of a span of rows of one table: <c>end-moments.csv:4-6</c>.</summary>
-    public static string Span(IEnumerable<SourceRef> refs)
+    public static string Span(IEnumerable<SourceRef?> refs)
     {
-        var list = refs.Where(r => r is not null).ToList();
+        var list = refs.OfType<SourceRef>().ToList();
         if (list.Count == 0) return "";
         var groups = list.GroupBy(r => (r.File, r.Page));
         var pieces = new List<string>();

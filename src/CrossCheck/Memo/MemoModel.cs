@@ -1,0 +1,227 @@
+using System.Globalization;
+using CrossCheck.Model;
+using CrossCheck.Review;
+
+namespace CrossCheck.Memo;
+
+/// <summary>
+/// What a memo template sees: every number already formatted in the submission's units and sign convention,
+/// every string exactly as read (templates escape them for HTML). Property names are the template's names.
+/// </summary>
+public sealed class MemoModel
+{
+    public MemoModel(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        var s = review.Submission;
+        var u = s.Info.Units;
+        var o = review.Options;
+        bool sagging = s.Info.SignConvention == SignConvention.Sagging;
+        double Conv(double cw, MemberEnd? end) => sagging && end == MemberEnd.End ? -cw : cw;
+
+        Title = s.Info.Title ?? Path.GetFileName(Path.TrimEndingDirectorySeparator(s.Source));
+        Reference = s.Info.Reference ?? "—";
+        Revision = s.Info.Revision ?? "—";
+        PreparedBy = s.Info.PreparedBy ?? "—";
+        CheckedBy = s.Info.CheckedBy ?? "—";
+        SubmissionDate = s.Info.Date ?? "—";
+        Reviewer = o.Reviewer ?? "(not stated — use --reviewer)";
+        ReviewDate = (o.Date ?? DateOnly.FromDateTime(DateTime.Today)).ToString("yyyy-MM-dd", CultureInfo.InvariantCulture);
+        ToolVersion = ToolInfo.Version;
+        Source = s.Source;
+        Verdict = review.Verdict.Words();
+        VerdictCode = review.Verdict.Json();
+        MomentUnit = u.Moment.Symbol;
+        ForceUnit = u.Force.Symbol;
+        LengthUnit = u.Length.Symbol;
+        DisplacementUnit = u.Displacement.Symbol;
+        Convention = sagging
+            ? "sagging positive: the internal bending moment, positive when the fibre on the right-hand side of the member (looking from its start to its end) is in tension — as the submission states its moments"
+            : "clockwise positive: the moment the joint exerts on the member end (the slope-deflection and moment-distribution convention) — as the submission states its moments";
+        AbsoluteTolerance = Fmt.Number(o.AbsoluteTolerance, "0.0##");
+        RelativeTolerancePercent = Fmt.Number(o.RelativeTolerance * 100, "0.##");
+        MinorTolerancePercent = Fmt.Number(o.MinorRelativeTolerance * 100, "0.##");
+        Axial = s.Model.Axial == AxialBehaviour.Rigid
+            ? "Axial deformation is neglected: every member keeps its length exactly (as in moment distribution and slope-deflection)."
+            : "Axial deformation is included with E·A/L from the areas given.";
+        Stiffness = s.Model.RelativeStiffness
+            ? "No elastic modulus is given: the I values are used as relative stiffnesses, which fixes the moments of load cases but not displacements."
+            : "Absolute stiffness from the E and I given.";
+        HasMovements = s.Model.HasSupportMovements;
+        HasHinges = s.Model.Members.Any(m => m.Hinge != Hinge.None);
+
+        int total = review.AllEndMoments.Count();
+        int agree = review.AllEndMoments.Count(e => e.Status == EndStatus.Agree);
+        int discrepant = review.AllEndMoments.Count(e => e.Status == EndStatus.Discrepant);
+        int majors = review.AllFlags.Count(f => f.Severity == Severity.Major);
+        VerdictLine = string.Create(CultureInfo.InvariantCulture,
+            $"{agree} of {total} member-end moments agree with the independent analysis; {discrepant} are discrepant; the checks of the claimed numbers raised {majors} major and {review.AllFlags.Count(f => f.Severity == Severity.Minor)} minor finding(s).");
+
+        Cases = review.Cases.Select(c => new MemoCase(c, u, Conv)).ToList();
+        Comments = review.Comments.Select(cm => new MemoComment(cm.Id, cm.Severity.Json(), cm.Case, cm.Where, cm.Text, cm.Source)).ToList();
+        Notes = review.Notes.ToList();
+        Warnings = review.InputWarnings.ToList();
+
+        InfoRows = s.Info.Other.Select(kv => new MemoPair(kv.Key, kv.Value)).ToList();
+        Joints = s.Model.Joints.Select(j => new MemoJoint(j.Id, Fmt.Number(u.Length.FromSi(j.X), "0.###"), Fmt.Number(u.Length.FromSi(j.Y), "0.###"),
+            RestraintWord(j.Restraint), j.Movement.IsZero ? "" : Movement(j.Movement, u), j.Source.Citation)).ToList();
+        Members = s.Model.Members.Select(m => new MemoMember(m.Id, m.Start, m.End, Fmt.Number(u.Length.FromSi(s.Model.Length(m)), "0.###"),
+            s.Model.RelativeStiffness ? "—" : Fmt.Number(m.E / 1e9, "0.###"), Fmt.Number(m.I * (s.Model.RelativeStiffness ? 1 : 1e12), s.Model.RelativeStiffness ? "0.####" : "0.###e+0"),
+            m.A is double a ? Fmt.Number(a * 1e6, "0.#") : "—", m.Hinge == Hinge.None ? "" : m.Hinge.ToString().ToLowerInvariant(), m.Source.Citation)).ToList();
+        IUnit = s.Model.RelativeStiffness ? "relative" : "mm⁴";
+        Loads = s.Cases.SelectMany(c => c.Loads).Select(l => Load(l, u)).ToList();
+        ClaimCount = s.Claims.EndMoments.Count;
+        ReactionClaimCount = s.Claims.Reactions.Count;
+        DisplacementClaimCount = s.Claims.Displacements.Count;
+    }
+
+    public string Title { get; }
+    public string Reference { get; }
+    public string Revision { get; }
+    public string PreparedBy { get; }
+    public string CheckedBy { get; }
+    public string SubmissionDate { get; }
+    public string Reviewer { get; }
+    public string ReviewDate { get; }
+    public string ToolVersion { get; }
+    public string Source { get; }
+    public string Verdict { get; }
+    public string VerdictCode { get; }
+    public string VerdictLine { get; }
+    public string MomentUnit { get; }
+    public string ForceUnit { get; }
+    public string LengthUnit { get; }
+    public string DisplacementUnit { get; }
+    public string Convention { get; }
+    public string AbsoluteTolerance { get; }
+    public string RelativeTolerancePercent { get; }
+    public string MinorTolerancePercent { get; }
+    public string Axial { get; }
+    public string Stiffness { get; }
+    public bool HasMovements { get; }
+    public bool HasHinges { get; }
+    public IReadOnlyList<MemoCase> Cases { get; }
+    public IReadOnlyList<MemoComment> Comments { get; }
+    public IReadOnlyList<string> Notes { get; }
+    public IReadOnlyList<string> Warnings { get; }
+    public IReadOnlyList<MemoPair> InfoRows { get; }
+    public IReadOnlyList<MemoJoint> Joints { get; }
+    public IReadOnlyList<MemoMember> Members { get; }
+    public string IUnit { get; }
+    public IReadOnlyList<MemoLoad> Loads { get; }
+    public int ClaimCount { get; }
+    public int ReactionClaimCount { get; }
+    public int DisplacementClaimCount { get; }
+
+    /// <summary>Extra sections later stages add (diagrams, working tables), as pre-rendered blocks by format.</summary>
+    public IReadOnlyList<MemoAppendix> Appendices { get; init; } = [];
+
+    private static string RestraintWord(Restraint r) => r switch
+    {
+        Restraint.Free => "free",
+        Restraint.Fixed => "fixed",
+        Restraint.Pinned => "pinned",
+        Restraint.Roller => "roller",
+        Restraint.Guided => "guided",
+        _ => r.ToString().ToLowerInvariant(),
+    };
+
+    private static string Movement(SupportMovement mv, DisplayUnits u)
+    {
+        var parts = new List<string>();
+        if (mv.X != 0) parts.Add($"x {Fmt.Number(u.Displacement.FromSi(mv.X), "0.###")} {u.Displacement.Symbol}");
+        if (mv.Y != 0) parts.Add($"y {Fmt.Number(u.Displacement.FromSi(mv.Y), "0.###")} {u.Displacement.Symbol}");
+        if (mv.Rotation != 0) parts.Add($"rotation {Fmt.Number(mv.Rotation, "0.######")} rad");
+        return string.Join(", ", parts);
+    }
+
+    private static MemoLoad Load(Load l, DisplayUnits u)
+    {
+        string F(double v) => $"{Fmt.Number(u.Force.FromSi(v), "0.###")} {u.Force.Symbol}";
+        string W(double v) => $"{Fmt.Number(u.Force.FromSi(v) * u.Length.ToSi, "0.###")} {u.Force.Symbol}/{u.Length.Symbol}";
+        string Lg(double v) => $"{Fmt.Number(u.Length.FromSi(v), "0.###")} {u.Length.Symbol}";
+        string M(double v) => $"{Fmt.Number(u.Moment.FromSi(v), "0.###")} {u.Moment.Symbol}";
+        string Dir(LoadDirection d) => d.ToString().ToLowerInvariant();
+        return l switch
+        {
+            PointLoad p => new MemoLoad(l.Case, p.Member, "point", $"P = {F(p.P)} {Dir(p.Direction)} at a = {Lg(p.A)}", l.Source.Citation),
+            DistributedLoad d when d.IsUniform => new MemoLoad(l.Case, d.Member, "udl", $"w = {W(d.WStart)} {Dir(d.Direction)} from {Lg(d.A)} to {Lg(d.B)}", l.Source.Citation),
+            DistributedLoad d => new MemoLoad(l.Case, d.Member, "linear", $"w = {W(d.WStart)} to {W(d.WEnd)} {Dir(d.Direction)} from {Lg(d.A)} to {Lg(d.B)}", l.Source.Citation),
+            MemberCouple c => new MemoLoad(l.Case, c.Member, "moment", $"M = {M(c.M)} clockwise at a = {Lg(c.A)}", l.Source.Citation),
+            JointForce f => new MemoLoad(l.Case, f.Joint, "force", $"P = {F(f.P)} {Dir(f.Direction)}", l.Source.Citation),
+            JointCouple c => new MemoLoad(l.Case, c.Joint, "moment", $"M = {M(c.M)} clockwise", l.Source.Citation),
+            _ => new MemoLoad(l.Case, "?", "?", "", l.Source.Citation),
+        };
+    }
+}
+
+public sealed record MemoPair(string Key, string Value);
+
+public sealed record MemoJoint(string Id, string X, string Y, string Restraint, string Movement, string Source);
+
+public sealed record MemoMember(string Id, string Start, string End, string Length, string EGPa, string I, string Amm2, string Hinge, string Source);
+
+public sealed record MemoLoad(string Case, string On, string Kind, string Values, string Source);
+
+public sealed record MemoComment(string Id, string Severity, string Case, string Where, string Text, string Source);
+
+public sealed record MemoRow(string Member, string At, string Claimed, string Recomputed, string Difference, string Status, string Source);
+
+public sealed record MemoQuantity(string Joint, string Component, string Unit, string Claimed, string Recomputed, string Status, string Source);
+
+public sealed record MemoFlag(string Kind, string Severity, string Where, string Message, string Source);
+
+public sealed record MemoCause(string Code, string Confidence, string Explains, string Message, string Evidence);
+
+/// <summary>A block a later stage adds to the memo (e.g. diagrams), already rendered for Markdown and HTML.</summary>
+public sealed record MemoAppendix(string Title, string Markdown, string Html);
+
+public sealed class MemoCase
+{
+    /// <param name="conv">Converts a clockwise member-end moment to the submission's own convention.</param>
+    internal MemoCase(CaseReview c, DisplayUnits u, Func<double, MemberEnd?, double> conv)
+    {
+        string mom(double? si, MemberEnd? end, string fmt) => si is double v ? Fmt.Number(u.Moment.FromSi(conv(v, end)), fmt) : "—";
+        Id = c.Case;
+        Peak = mom(c.PeakMoment, null, "0.00");
+        AgreeTolerance = Fmt.Number(u.Moment.FromSi(c.AgreeTolerance), "0.00");
+        MinorTolerance = Fmt.Number(u.Moment.FromSi(c.MinorTolerance), "0.00");
+        Rows = c.EndMoments.Select(e => new MemoRow(e.Member, e.At, mom(e.Claimed, e.End, "0.0##"), mom(e.Recomputed, e.End, "0.00"),
+            e.Difference is double d ? Fmt.Number(u.Moment.FromSi(conv(d, e.End)), "+0.00;-0.00;0.00") : "—",
+            e.Status.Json(), e.Source?.Citation ?? "(not claimed)")).ToList();
+        Agree = c.Count(EndStatus.Agree);
+        Minor = c.Count(EndStatus.Minor);
+        Discrepant = c.Count(EndStatus.Discrepant);
+        Missing = c.Count(EndStatus.Missing);
+        Unmatched = c.Count(EndStatus.Unmatched);
+        Reactions = c.Reactions.Select(q => Quantity(q, true, u)).ToList();
+        Displacements = c.Displacements.Select(q => Quantity(q, false, u)).ToList();
+        Flags = c.Flags.Where(f => f.Severity != Severity.Info).Select(f => new MemoFlag(f.Kind.Json(), f.Severity.Json(), f.Where, f.Message, f.SourceText)).ToList();
+        InfoFlags = c.Flags.Where(f => f.Severity == Severity.Info).Select(f => new MemoFlag(f.Kind.Json(), f.Severity.Json(), f.Where, f.Message, f.SourceText)).ToList();
+        Causes = c.Causes.Select(x => new MemoCause(x.Code, Fmt.Number(x.Confidence * 100, "0") + " %", Fmt.Number(x.Explains * 100, "0") + " %", x.Message, x.Evidence)).ToList();
+    }
+
+    private static MemoQuantity Quantity(QuantityFinding q, bool reaction, DisplayUnits u)
+    {
+        var unit = reaction ? (q.Component == "M" ? u.Moment : u.Force) : (q.Component == "rotation" ? new UnitChoice("rad", 1) : u.Displacement);
+        string fmt = q.Component == "rotation" ? "0.000000" : "0.0##";
+        return new MemoQuantity(q.Joint, q.Component, unit.Symbol, Fmt.Number(unit.FromSi(q.Claimed), fmt), Fmt.Number(unit.FromSi(q.Recomputed), fmt),
+            q.Status.Json(), q.Source.Citation);
+    }
+
+    public string Id { get; }
+    public string Peak { get; }
+    public string AgreeTolerance { get; }
+    public string MinorTolerance { get; }
+    public IReadOnlyList<MemoRow> Rows { get; }
+    public int Agree { get; }
+    public int Minor { get; }
+    public int Discrepant { get; }
+    public int Missing { get; }
+    public int Unmatched { get; }
+    public IReadOnlyList<MemoQuantity> Reactions { get; }
+    public IReadOnlyList<MemoQuantity> Displacements { get; }
+    public IReadOnlyList<MemoFlag> Flags { get; }
+    public IReadOnlyList<MemoFlag> InfoFlags { get; }
+    public IReadOnlyList<MemoCause> Causes { get; }
+}

@@ -1,0 +1,73 @@
+using System.Reflection;
+using Scriban;
+using Scriban.Runtime;
+using Scriban.Syntax;
+
+namespace CrossCheck.Memo;
+
+public enum MemoFormat
+{
+    Markdown,
+    Html,
+}
+
+/// <summary>A memo template that does not parse or refers to something the model does not have.</summary>
+public sealed class MemoTemplateException : Exception
+{
+    public MemoTemplateException() { }
+    public MemoTemplateException(string message) : base(message) { }
+    public MemoTemplateException(string message, Exception inner) : base(message, inner) { }
+}
+
+/// <summary>
+/// Renders memos from Scriban templates: the shipped ones (embedded from <c>templates/</c>) or a firm's own.
+/// Strict variables (a typo is an error, not a blank), no includes, no file access, only public properties
+/// of the model are visible.
+/// </summary>
+public static class MemoRenderer
+{
+    public static string TemplateName(MemoFormat format) => format == MemoFormat.Html ? "memo.html.sbn" : "memo.md.sbn";
+
+    /// <summary>Text of a shipped template.</summary>
+    public static string BuiltInTemplate(MemoFormat format)
+    {
+        string name = "CrossCheck.Templates." + TemplateName(format);
+        using var stream = typeof(MemoRenderer).Assembly.GetManifestResourceStream(name)
+            ?? throw new InvalidOperationException($"Template resource {name} is missing from the build.");
+        using var reader = new StreamReader(stream);
+        return reader.ReadToEnd();
+    }
+
+    public static string Render(MemoModel model, MemoFormat format) => Render(model, BuiltInTemplate(format), TemplateName(format));
+
+    /// <exception cref="MemoTemplateException">The template has errors or refers to unknown names.</exception>
+    public static string Render(MemoModel model, string templateText, string templateName)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        ArgumentNullException.ThrowIfNull(templateText);
+        var template = Template.Parse(templateText, templateName);
+        if (template.HasErrors)
+            throw new MemoTemplateException($"{templateName}: {string.Join("; ", template.Messages.Select(m => m.ToString()))}");
+        var context = new TemplateContext
+        {
+            StrictVariables = true,
+            EnableRelaxedMemberAccess = false,
+            MemberRenamer = m => m.Name,
+            MemberFilter = m => m is PropertyInfo,
+            TemplateLoader = null,
+            LoopLimit = 500_000,
+            RecursiveLimit = 50,
+            RegexTimeOut = TimeSpan.FromSeconds(2),
+        };
+        var globals = new ScriptObject { ["model"] = model };
+        context.PushGlobal(globals);
+        try
+        {
+            return template.Render(context);
+        }
+        catch (ScriptRuntimeException ex)
+        {
+            throw new MemoTemplateException($"{templateName}: {ex.Message}", ex);
+        }
+    }
+}

@@ -1,0 +1,164 @@
+using System.Text.Json;
+using CrossCheck.Cli;
+using CrossCheck.Tests.Support;
+
+namespace CrossCheck.Tests.Cli;
+
+public class ReviewCommandTests
+{
+    [Fact]
+    public void Review_Demo_PrintsASummaryWritesTheMemoAndExitsWithOne()
+    {
+        using var t = new TempSubmission();
+        string memo = Path.Combine(t.Folder, "memo.md");
+        var r = CliRunner.Run("review", CliRunner.Demo("shed-frame"), "--out", memo, "--reviewer", "A. Checker");
+        r.ExitCode.ShouldBe(ExitCodes.Comments, r.Err);
+        r.Out.ShouldContain("verdict: Revise and resubmit");
+        r.Out.ShouldContain("storey-shear");
+        File.ReadAllText(memo).ShouldContain("Reviewed by | A. Checker");
+    }
+
+    [Fact]
+    public void Review_ConcurringSubmission_ExitsWithZero()
+    {
+        using var t = new TempSubmission();
+        // Propped cantilever, UDL: −wL²/8 = −81 kN·m (Hicks Fig. 2.2 case 10).
+        string path = t.Write("ok.csv", SampleText.All);
+        var r = CliRunner.Run("review", path, "--out", Path.Combine(t.Folder, "m.md"), "--quiet");
+        r.ExitCode.ShouldBe(ExitCodes.Concur, r.Err);
+        r.Out.ShouldBeEmpty();
+    }
+
+    [Fact]
+    public void Review_Json_OnStandardOutput_CarriesTheJsonAlone_AndEveryContractField()
+    {
+        var r = CliRunner.Run("review", CliRunner.Demo("footbridge.csv"), "--format", "json");
+        r.ExitCode.ShouldBe(ExitCodes.Comments, r.Err);
+        using var doc = JsonDocument.Parse(r.Out); // nothing but JSON on standard output
+        var root = doc.RootElement;
+        root.GetProperty("schema").GetString().ShouldBe("crosscheck-review/1");
+        root.GetProperty("tool").GetProperty("name").GetString().ShouldBe("crosscheck");
+        root.GetProperty("tool").GetProperty("version").GetString().ShouldBe("0.1.0");
+        var sub = root.GetProperty("submission");
+        sub.GetProperty("title").GetString().ShouldBe("Alder Mill footbridge - main deck girder");
+        sub.GetProperty("reference").GetString().ShouldBe("DEMO-FB-01");
+        sub.GetProperty("source").GetString().ShouldBe(CliRunner.Demo("footbridge.csv"));
+        sub.GetProperty("momentUnit").GetString().ShouldBe("kN·m");
+        sub.GetProperty("signConvention").GetString().ShouldBe("clockwise");
+        var tol = root.GetProperty("tolerance");
+        tol.GetProperty("absolute").GetDouble().ShouldBe(0.1);
+        tol.GetProperty("relative").GetDouble().ShouldBe(0.01);
+        tol.GetProperty("minorRelative").GetDouble().ShouldBe(0.05);
+        root.GetProperty("verdict").GetString().ShouldBe("revise");
+        root.GetProperty("inputErrors").GetArrayLength().ShouldBe(0);
+        var dl = root.GetProperty("cases")[0];
+        dl.GetProperty("case").GetString().ShouldBe("DL");
+        dl.GetProperty("peakMoment").GetDouble().ShouldBe(114.727273, 1e-6);
+        var worst = dl.GetProperty("endMoments")[0];
+        worst.GetProperty("member").GetString().ShouldBe("BC");
+        worst.GetProperty("at").GetString().ShouldBe("C");
+        worst.GetProperty("claimed").GetDouble().ShouldBe(141.7);
+        worst.GetProperty("recomputed").GetDouble().ShouldBe(114.727273, 1e-6);
+        worst.GetProperty("difference").GetDouble().ShouldBe(26.972727, 1e-6);
+        worst.GetProperty("status").GetString().ShouldBe("discrepant");
+        worst.GetProperty("source").GetString().ShouldBe("footbridge.csv:41");
+        string[] statuses = ["agree", "minor", "discrepant", "missing", "unmatched"];
+        string[] kinds = ["end-moment", "joint-equilibrium", "released-end", "storey-shear", "reaction", "displacement", "symmetry", "compatibility"];
+        foreach (var c in root.GetProperty("cases").EnumerateArray())
+        {
+            foreach (var e in c.GetProperty("endMoments").EnumerateArray()) statuses.ShouldContain(e.GetProperty("status").GetString());
+            foreach (var f in c.GetProperty("flags").EnumerateArray())
+            {
+                kinds.ShouldContain(f.GetProperty("kind").GetString());
+                new[] { "info", "minor", "major" }.ShouldContain(f.GetProperty("severity").GetString());
+                f.GetProperty("where").GetString().ShouldNotBeNullOrEmpty();
+                f.GetProperty("message").GetString().ShouldNotBeNullOrEmpty();
+                f.GetProperty("source").GetString().ShouldNotBeNullOrEmpty();
+                f.TryGetProperty("value", out _).ShouldBeTrue();
+            }
+            c.GetProperty("causes").ValueKind.ShouldBe(JsonValueKind.Array);
+        }
+        var eq = dl.GetProperty("flags").EnumerateArray().First(f => f.GetProperty("kind").GetString() == "joint-equilibrium");
+        eq.GetProperty("where").GetString().ShouldBe("joint C");
+        eq.GetProperty("value").GetDouble().ShouldBe(27.0, 1e-9);
+        eq.GetProperty("source").GetString().ShouldBe("footbridge.csv:41-42");
+    }
+
+    [Fact]
+    public void Review_BadInput_AsJson_HasNullVerdictAndTheErrors_AndExitsWithTwo()
+    {
+        using var t = new TempSubmission();
+        string path = t.Write("bad.csv", SampleText.With(frame: SampleText.Frame.Replace("AB,A,B,200,250e6", "AB,A,B,200,-1")));
+        var r = CliRunner.Run("review", path, "--format", "json");
+        r.ExitCode.ShouldBe(ExitCodes.InputError);
+        using var doc = JsonDocument.Parse(r.Out);
+        doc.RootElement.GetProperty("verdict").ValueKind.ShouldBe(JsonValueKind.Null);
+        var e = doc.RootElement.GetProperty("inputErrors")[0];
+        e.GetProperty("source").GetString().ShouldBe("bad.csv:14:I [mm^4]");
+        e.GetProperty("message").GetString()!.ShouldContain("greater than zero");
+        r.Err.ShouldContain("bad.csv:14:I [mm^4]");
+    }
+
+    [Fact]
+    public void Review_BadInput_WritesNoMemo()
+    {
+        using var t = new TempSubmission();
+        string path = t.Write("bad.csv", "[joints]\njoint,x\nA,1");
+        string memo = Path.Combine(t.Folder, "memo.md");
+        CliRunner.Run("review", path, "--out", memo).ExitCode.ShouldBe(ExitCodes.InputError);
+        File.Exists(memo).ShouldBeFalse();
+        Directory.GetFiles(t.Folder).ShouldHaveSingleItem(); // no temporary leftovers either
+    }
+
+    [Fact]
+    public void Review_Html_IsWritten()
+    {
+        using var t = new TempSubmission();
+        string memo = Path.Combine(t.Folder, "memo.html");
+        CliRunner.Run("review", CliRunner.Demo("footbridge.csv"), "-f", "html", "-o", memo, "-q").ExitCode.ShouldBe(ExitCodes.Comments);
+        File.ReadAllText(memo).ShouldStartWith("<!DOCTYPE html>");
+    }
+
+    [Fact]
+    public void Review_OwnTemplate_IsUsed_AndABrokenOneIsAnInputError()
+    {
+        using var t = new TempSubmission();
+        string good = t.Write("firm.sbn", "Check of {{ model.Reference }}: {{ model.Verdict }}");
+        string bad = t.Write("broken.sbn", "{{ model.NoSuchThing }}");
+        string memo = Path.Combine(t.Folder, "memo.md");
+        CliRunner.Run("review", CliRunner.Demo("footbridge.csv"), "--template", good, "-o", memo, "-q").ExitCode.ShouldBe(ExitCodes.Comments);
+        File.ReadAllText(memo).ShouldBe("Check of DEMO-FB-01: Revise and resubmit");
+        var r = CliRunner.Run("review", CliRunner.Demo("footbridge.csv"), "--template", bad, "-o", memo, "-q");
+        r.ExitCode.ShouldBe(ExitCodes.InputError);
+        r.Err.ShouldContain("broken.sbn");
+    }
+
+    [Fact]
+    public void Review_Tolerances_ChangeTheStatus()
+    {
+        // With a 30 % agreement band the transcription slip of the demo (27 of 115 kN·m) becomes agreement.
+        var r = CliRunner.Run("review", CliRunner.Demo("footbridge.csv"), "-f", "json", "--tolerance", "0.3", "--minor-tolerance", "0.4");
+        using var doc = JsonDocument.Parse(r.Out);
+        doc.RootElement.GetProperty("cases")[0].GetProperty("endMoments").EnumerateArray()
+            .ShouldAllBe(e => e.GetProperty("status").GetString() == "agree");
+    }
+
+    [Fact]
+    public void Review_Mechanism_IsAnInputError()
+    {
+        using var t = new TempSubmission();
+        string path = t.Write("m.csv", SampleText.With(frame: """
+            [joints]
+            joint,x,y,restraint
+            A,0,0,roller
+            B,6,0,roller
+
+            [members]
+            member,start,end,E [GPa],I [mm^4]
+            AB,A,B,200,250e6
+            """, loads: "[loads]\non,kind,P,dir\nB,force,3,right"));
+        var r = CliRunner.Run("review", path, "-f", "json");
+        r.ExitCode.ShouldBe(ExitCodes.InputError);
+        JsonDocument.Parse(r.Out).RootElement.GetProperty("inputErrors")[0].GetProperty("message").GetString()!.ShouldContain("mechanism");
+    }
+}
