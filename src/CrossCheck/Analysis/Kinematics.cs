@@ -33,6 +33,25 @@ public sealed class Kinematics
         return new LinearForm(_t.Terms[dof].ToDictionary(x => x.Master, x => -x.Coef), -_t.Constants[dof]);
     }
 
+    /// <summary>Horizontal and vertical displacement of a joint as linear forms of the independent unknowns.</summary>
+    public (LinearForm Ux, LinearForm Uy) JointTranslation(string joint)
+    {
+        int dof = 3 * _jointIndex[joint];
+        LinearForm Form(int i) => new(_t.Terms[i].ToDictionary(x => x.Master, x => x.Coef), _t.Constants[i]);
+        return (Form(dof), Form(dof + 1));
+    }
+
+    /// <summary>Independent unknowns that are translations (sway or joint drop), as opposed to joint rotations.</summary>
+    public IReadOnlyList<int> TranslationUnknowns =>
+        Enumerable.Range(0, _t.MasterCount).Where(m => _t.Masters[m] % 3 != 2).ToList();
+
+    /// <summary>The joint and direction an independent unknown stands for (for messages).</summary>
+    public (string Joint, string Direction) Describe(int unknown)
+    {
+        int dof = _t.Masters[unknown];
+        return (_model.Joints[dof / 3].Id, (dof % 3) switch { 0 => "x", 1 => "y", _ => "rotation" });
+    }
+
     /// <summary>Clockwise chord rotation ψ of a member (transverse end displacement difference / L).</summary>
     public LinearForm ChordRotation(Member member)
     {
