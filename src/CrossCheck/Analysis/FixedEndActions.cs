@@ -54,6 +54,10 @@ internal static class FixedEndActions
                     }
                     break;
                 }
+                case LocalEndMoments e:
+                    m1 += e.M1;
+                    m2 += e.M2;
+                    break;
                 case LocalCouple c:
                 {
                     double a = c.A, b = L - c.A;

@@ -22,12 +22,16 @@ public sealed class FrameSolver
     public FrameSolver(ILinearSolver? linear = null) => _linear = linear ?? DenseCholeskySolver.Instance;
 
     /// <summary>Analyses every load case.</summary>
+    /// <param name="model">The structure.</param>
+    /// <param name="cases">Load cases to analyse.</param>
+    /// <param name="holdTranslations">Hold every joint translation the supports and rigid members leave free: a braced
+    /// (no-sway) analysis, as an author who ignored sidesway would have made.</param>
     /// <exception cref="StructureException">The structure is a mechanism or otherwise cannot be analysed.</exception>
-    public AnalysisResult Solve(StructureModel model, IReadOnlyList<LoadCase> cases)
+    public AnalysisResult Solve(StructureModel model, IReadOnlyList<LoadCase> cases, bool holdTranslations = false)
     {
         ArgumentNullException.ThrowIfNull(model);
         ArgumentNullException.ThrowIfNull(cases);
-        return new Run(model, cases, _linear).Execute();
+        return new Run(model, cases, _linear, holdTranslations).Execute();
     }
 
     /// <summary>Analyses every load case, returning false with the reason instead of throwing.</summary>
@@ -57,8 +61,11 @@ public sealed class FrameSolver
         private readonly List<string> _notes = [];
         private readonly int _n;
 
-        public Run(StructureModel model, IReadOnlyList<LoadCase> cases, ILinearSolver linear)
+        private readonly bool _holdTranslations;
+
+        public Run(StructureModel model, IReadOnlyList<LoadCase> cases, ILinearSolver linear, bool holdTranslations = false)
         {
+            _holdTranslations = holdTranslations;
             _model = model;
             _cases = cases;
             _linear = linear;
@@ -152,6 +159,9 @@ public sealed class FrameSolver
                             $"Case {c.Id} applies a couple at joint {joint.Id}, but every member is hinged there and no support holds its rotation, so nothing can resist it.",
                             joint.Id, "rotation");
             var cs = Kinematics.Constraints(_model);
+            if (_holdTranslations)
+                foreach (int dof in cs.Build().Masters.Where(d => d % 3 != 2))
+                    cs.Add(new Dictionary<int, double> { [dof] = 1 }, 0, ("braced", dof, 0), out _);
             foreach (var (dof, _) in extra)
                 cs.Add(new Dictionary<int, double> { [dof] = 1 }, 0, ("added", dof, 0), out _);
             return cs;

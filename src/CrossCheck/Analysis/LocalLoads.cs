@@ -74,8 +74,23 @@ internal static class LocalLoads
             case MemberCouple c:
                 // Clockwise positive in the submission; anticlockwise positive here.
                 return new LocalCouple(load, c.A, -c.M);
+            case LockedEndMoments e:
+                return new LocalEndMoments(load, -e.StartMoment, -e.EndMoment);
             default:
                 throw new NotSupportedException($"Load kind {load.GetType().Name} is not supported on members.");
         }
     }
+}
+
+/// <summary>
+/// End moments locked into a member as if its fixed-end moments were different: used to test the effect of a
+/// wrong fixed-end moment. Clockwise positive, N·m. Not part of the submission format.
+/// </summary>
+public sealed record LockedEndMoments(string Case, string Member, double StartMoment, double EndMoment, SourceRef Source)
+    : MemberLoad(Case, Member, Source);
+
+/// <summary>Local form of <see cref="LockedEndMoments"/> (anticlockwise end moments).</summary>
+internal sealed record LocalEndMoments(Load Origin, double M1, double M2) : LocalAction(Origin)
+{
+    public override IEnumerable<double> Breakpoints => [];
 }

@@ -10,9 +10,6 @@ namespace CrossCheck.Review;
 /// </summary>
 public static partial class ReviewEngine
 {
-    /// <summary>Finds likely causes for a case's discrepancies; set by the diagnosis stage.</summary>
-    public static Func<Submission, AnalysisResult, CaseReview, ReviewOptions, IReadOnlyList<Cause>>? Diagnose { get; set; }
-
     /// <param name="submission">The submission as imported.</param>
     /// <param name="analysis">The independent analysis of the same submission.</param>
     /// <param name="options">Tolerances and sign-off details.</param>
@@ -32,8 +29,8 @@ public static partial class ReviewEngine
             var result = analysis.Cases.FirstOrDefault(c => c.Case == id);
             var review = ReviewCase(submission, result, id, options);
             review = review with { Flags = [.. review.Flags, .. checks.Run(id)] };
-            if (Diagnose is not null && result is not null && review.EndMoments.Any(e => e.Status is EndStatus.Discrepant or EndStatus.Minor))
-                review = review with { Causes = Diagnose(submission, analysis, review, options) };
+            if (options.Diagnose && result is not null && review.EndMoments.Any(e => e.Status is EndStatus.Discrepant or EndStatus.Minor))
+                review = review with { Causes = new Diagnosis.Diagnoser(submission, analysis, options).Diagnose(review) };
             cases.Add(review with { Flags = [.. review.Flags.OrderByDescending(f => f.Severity)] });
         }
         var verdict = VerdictOf(cases);

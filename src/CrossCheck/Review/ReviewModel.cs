@@ -8,12 +8,16 @@ namespace CrossCheck.Review;
 /// <param name="MinorRelativeTolerance">Beyond agreement but within this fraction of the peak: a minor difference.</param>
 /// <param name="Reviewer">Name of the checking engineer, for the memo.</param>
 /// <param name="Date">Date of the review.</param>
+/// <param name="Diagnose">Look for the likely causes of discrepancies.</param>
+/// <param name="ShowWorking">Add a reference moment-distribution working table to the memo.</param>
 public sealed record ReviewOptions(
     double AbsoluteTolerance = 0.1,
     double RelativeTolerance = 0.01,
     double MinorRelativeTolerance = 0.05,
     string? Reviewer = null,
-    DateOnly? Date = null)
+    DateOnly? Date = null,
+    bool Diagnose = true,
+    bool ShowWorking = false)
 {
     public static ReviewOptions Default { get; } = new();
 }
