@@ -198,6 +198,7 @@ public sealed class MemoCase
         Displacements = c.Displacements.Select(q => Quantity(q, false, u)).ToList();
         Flags = c.Flags.Where(f => f.Severity != Severity.Info).Select(f => new MemoFlag(f.Kind.Json(), f.Severity.Json(), f.Where, f.Message, f.SourceText)).ToList();
         InfoFlags = c.Flags.Where(f => f.Severity == Severity.Info).Select(f => new MemoFlag(f.Kind.Json(), f.Severity.Json(), f.Where, f.Message, f.SourceText)).ToList();
+        Unexplained = c.Causes.Count == 0 && c.EndMoments.Any(e => e.Status is EndStatus.Discrepant or EndStatus.Minor);
         Causes = c.Causes.Select(x => new MemoCause(x.Code, Fmt.Number(x.Confidence * 100, "0") + " %", Fmt.Number(x.Explains * 100, "0") + " %", x.Message, x.Evidence)).ToList();
     }
 
@@ -224,4 +225,7 @@ public sealed class MemoCase
     public IReadOnlyList<MemoFlag> Flags { get; }
     public IReadOnlyList<MemoFlag> InfoFlags { get; }
     public IReadOnlyList<MemoCause> Causes { get; }
+
+    /// <summary>The case has differences but no tested mistake reproduces them.</summary>
+    public bool Unexplained { get; }
 }

@@ -82,7 +82,9 @@ public sealed class Diagnoser
             double worst = MaxAbs(c, h.Predicted);
             return (H: h, Explains: explains, Worst: worst);
         })
-        .Where(x => x.Worst <= review.MinorTolerance || x.Explains >= 0.9)
+        // A cause must remove most of the difference: all of it to within tolerance, or at least 90 % of it.
+        // (Many variants are tried, so a partial fit to scattered errors is not evidence of anything.)
+        .Where(x => x.Explains >= 0.5 && (x.Worst <= review.AgreeTolerance || x.Explains >= 0.9))
         .OrderBy(x => x.Worst <= review.AgreeTolerance ? 0 : x.Worst <= review.MinorTolerance ? 1 : 2)
         .ThenByDescending(x => Math.Round(x.Explains, 4))
         .ThenBy(x => x.H.Simplicity)
@@ -290,7 +292,6 @@ public sealed class Diagnoser
             }
             candidates.Add(("gave the fixed-end moment at the start the wrong sign", "sign-start", -f1, f2));
             candidates.Add(("gave the fixed-end moment at the end the wrong sign", "sign-end", f1, -f2));
-            candidates.Add(("left this load's fixed-end moments out", "omitted", 0, 0));
             string what = Describe(load);
             foreach (var (slip, key, w1, w2) in candidates)
             {
@@ -314,7 +315,11 @@ public sealed class Diagnoser
             yield return new Hypothesis("fixed-end-moment", 3, Shift([.. changes]),
                 $"The author appears to have {text} (members {string.Join(", ", changes.Select(c => c.Member).Distinct())}).");
         }
-        // Generic: one member's fixed-end moments off by a fitted amount.
+        // Generic: one member's fixed-end moments off by a fitted amount. Two fitted numbers explain any two claims,
+        // so this needs at least two claims more than it fits, and must remove nearly all of the difference.
+        if (x.Keys.Count < 4) yield break;
+        var res0 = x.Claimed.Zip(x.Recomputed, (a, b) => a - b).ToArray();
+        double res0Norm = Dot(res0, res0);
         foreach (var m in _s.Model.Members)
         {
             var i1 = influence[$"{m.Id}|s"];
@@ -325,7 +330,9 @@ public sealed class Diagnoser
             if (Math.Abs(det) <= 1e-12 * Math.Max(a11 * a22, 1e-300)) continue;
             double d1 = ((a22 * b1) - (a12 * b2)) / det, d2 = ((a11 * b2) - (a12 * b1)) / det;
             var (f1, f2) = statics.FixedEndMoments(x.Case.Id, m);
-            yield return new Hypothesis("fixed-end-moment", 6, Shift([(m.Id, d1, d2)]),
+            var fitted = Shift([(m.Id, d1, d2)]);
+            if (Norm2(x.Claimed, fitted) > 0.001 * res0Norm) continue;
+            yield return new Hypothesis("fixed-end-moment", 6, fitted,
                 $"The claims are consistent with member {m.Id} having fixed-end moments of {M(f1 + d1)} / {M(f2 + d2)} instead of {M(f1)} / {M(f2)}: check the fixed-end moments of its loads.");
         }
     }

@@ -1,0 +1,108 @@
+namespace CrossCheck.Tests.Support;
+
+/// <summary>
+/// Small hand methods for continuous beams, written independently of the product for the diagnosis tests: they
+/// make "the author's mistake" by a route that does not use the product's solver or distribution engine.
+/// Moments clockwise on member ends; spans numbered from the left; supports 0..n.
+/// </summary>
+public static class HandMethods
+{
+    /// <summary>
+    /// Slope-deflection for a continuous beam: M_ab = FEM_ab + 2k(2θa + θb), M_ba = FEM_ba + 2k(θa + 2θb), with k the
+    /// member stiffness the author uses (EI/L normally) and a rotation unknown at every support not fixed.
+    /// </summary>
+    public static (double Start, double End)[] SlopeDeflection(double[] k, bool[] fixedSupport, (double Start, double End)[] fem)
+    {
+        int n = k.Length;
+        var free = Enumerable.Range(0, n + 1).Where(j => !fixedSupport[j]).ToList();
+        int u = free.Count;
+        var a = new double[u, u];
+        var b = new double[u];
+        for (int row = 0; row < u; row++)
+        {
+            int j = free[row];
+            // Joint equilibrium: Σ member-end moments at support j = 0.
+            if (j > 0) { int i = j - 1; b[row] -= fem[i].End; Add(a, row, free, i, 2 * k[i]); Add(a, row, free, j, 4 * k[i]); }
+            if (j < n) { int i = j; b[row] -= fem[i].Start; Add(a, row, free, j, 4 * k[i]); Add(a, row, free, j + 1, 2 * k[i]); }
+        }
+        var theta = Solve(a, b);
+        double Th(int j) => free.IndexOf(j) is int p && p >= 0 ? theta[p] : 0;
+        return Enumerable.Range(0, n).Select(i => (fem[i].Start + (2 * k[i] * ((2 * Th(i)) + Th(i + 1))), fem[i].End + (2 * k[i] * (Th(i) + (2 * Th(i + 1)))))).ToArray();
+    }
+
+    private static void Add(double[,] a, int row, List<int> free, int joint, double v)
+    {
+        int col = free.IndexOf(joint);
+        if (col >= 0) a[row, col] += v;
+    }
+
+    /// <summary>
+    /// Hardy Cross for a continuous beam with plain stiffness 4EI/L, pinned ends balanced every cycle, simultaneous
+    /// balancing, a carry-over factor of the author's choosing, stopped after <paramref name="cycles"/> balance +
+    /// carry-over cycles and a final balance.
+    /// </summary>
+    public static (double Start, double End)[] MomentDistribution(double[] ei, double[] l, bool[] fixedSupport, (double Start, double End)[] fem,
+        int cycles, double carryOver = 0.5)
+    {
+        int n = ei.Length;
+        var m = fem.Select(f => new[] { f.Start, f.End }).ToArray();
+        double K(int i) => 4 * ei[i] / l[i];
+        double[] Df(int j)
+        {
+            // [left member's end, right member's start] at support j.
+            double left = j > 0 ? K(j - 1) : 0, right = j < n ? K(j) : 0, sum = left + right;
+            return fixedSupport[j] ? [0, 0] : [left / sum, right / sum];
+        }
+        for (int c = 0; c <= cycles; c++)
+        {
+            var bal = new double[n][];
+            for (int i = 0; i < n; i++) bal[i] = new double[2];
+            for (int j = 0; j <= n; j++)
+            {
+                double unbalance = (j > 0 ? m[j - 1][1] : 0) + (j < n ? m[j][0] : 0);
+                var df = Df(j);
+                if (j > 0) bal[j - 1][1] = -df[0] * unbalance;
+                if (j < n) bal[j][0] = -df[1] * unbalance;
+            }
+            for (int i = 0; i < n; i++) { m[i][0] += bal[i][0]; m[i][1] += bal[i][1]; }
+            if (c == cycles) break; // final balance done
+            for (int i = 0; i < n; i++) { m[i][0] += carryOver * bal[i][1]; m[i][1] += carryOver * bal[i][0]; }
+        }
+        return m.Select(x => (x[0], x[1])).ToArray();
+    }
+
+    private static double[] Solve(double[,] a, double[] b)
+    {
+        int n = b.Length;
+        var x = (double[])b.Clone();
+        var m = (double[,])a.Clone();
+        for (int p = 0; p < n; p++)
+        {
+            int piv = p;
+            for (int r = p + 1; r < n; r++) if (Math.Abs(m[r, p]) > Math.Abs(m[piv, p])) piv = r;
+            for (int c = 0; c < n; c++) (m[p, c], m[piv, c]) = (m[piv, c], m[p, c]);
+            (x[p], x[piv]) = (x[piv], x[p]);
+            for (int r = p + 1; r < n; r++)
+            {
+                double f = m[r, p] / m[p, p];
+                for (int c = p; c < n; c++) m[r, c] -= f * m[p, c];
+                x[r] -= f * x[p];
+            }
+        }
+        for (int p = n - 1; p >= 0; p--)
+        {
+            double s = x[p];
+            for (int c = p + 1; c < n; c++) s -= m[p, c] * x[c];
+            x[p] = s / m[p, p];
+        }
+        return x;
+    }
+
+    /// <summary>Fixed-end moments (clockwise) of a full UDL w: −wL²/12, +wL²/12 (Hicks, Fig. 2.2 case 5).</summary>
+    public static (double, double) Udl(double w, double l) => (-w * l * l / 12, w * l * l / 12);
+
+    /// <summary>Fixed-end moments of a point load P at a: −Pab²/L², +Pa²b/L² (Hicks, Fig. 2.2 case 6).</summary>
+    public static (double, double) Point(double p, double a, double l) { double b = l - a; return (-p * a * b * b / (l * l), p * a * a * b / (l * l)); }
+
+    public static (double, double) Sum(params (double S, double E)[] f) => (f.Sum(x => x.S), f.Sum(x => x.E));
+}
