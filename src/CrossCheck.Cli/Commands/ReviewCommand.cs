@@ -24,18 +24,19 @@ internal static partial class ReviewCommand
         var abs = new Option<double>("--abs-tolerance") { Description = "Agreement floor in the submission's moment unit.", DefaultValueFactory = _ => 0.1 };
         var minor = new Option<double>("--minor-tolerance") { Description = "Differences up to this fraction of the peak are minor; beyond, discrepant.", DefaultValueFactory = _ => 0.05 };
         var quiet = new Option<bool>("--quiet", "-q") { Description = "Print no summary." };
+        var working = new Option<bool>("--show-working") { Description = "Add CrossCheck's own moment-distribution working table to the memo." };
         var cmd = new Command("review", "Recompute the end moments, check the claimed numbers, and write a review memo.")
         {
-            submission, format, output, template, reviewer, date, rel, abs, minor, quiet,
+            submission, format, output, template, reviewer, date, rel, abs, minor, quiet, working,
         };
         cmd.SetAction(pr => Run(new Request(
             pr.GetValue(submission)!, pr.GetValue(format)!, pr.GetValue(output), pr.GetValue(template), pr.GetValue(reviewer), pr.GetValue(date),
-            pr.GetValue(rel), pr.GetValue(abs), pr.GetValue(minor), pr.GetValue(quiet)), io));
+            pr.GetValue(rel), pr.GetValue(abs), pr.GetValue(minor), pr.GetValue(quiet), pr.GetValue(working)), io));
         return cmd;
     }
 
     private sealed record Request(string Path, string Format, string? Out, string? Template, string? Reviewer, string? Date,
-        double Relative, double Absolute, double Minor, bool Quiet);
+        double Relative, double Absolute, double Minor, bool Quiet, bool ShowWorking);
 
     private static int Run(Request r, CliIo io)
     {
@@ -81,7 +82,7 @@ internal static partial class ReviewCommand
             io.Error.WriteLine($"crosscheck: '{r.Path}' cannot be analysed: {problem.Message}");
             return ExitCodes.InputError;
         }
-        var options = new ReviewOptions(r.Absolute, r.Relative, r.Minor, r.Reviewer, date);
+        var options = new ReviewOptions(r.Absolute, r.Relative, r.Minor, r.Reviewer, date, ShowWorking: r.ShowWorking);
         var review = ReviewEngine.Review(s, analysis!, options, imported.Warnings.Select(w => w.ToString()));
 
         string content;

@@ -90,8 +90,11 @@ public sealed class SubmissionBuilder
         var claims = ReadClaims(defaults, model, info.SignConvention, cases);
         var units = DisplayUnitsFor(defaults);
         info = info with { Units = units };
+        var working = _tables.TryGetValue("distribution", out var dt) && !_geometryIncomplete
+            ? WorkingTableReader.Read(dt, model, defaults.For(QuantityKind.Moment) ?? _seenUnits.GetValueOrDefault(nameof(QuantityKind.Moment)), _problems)
+            : [];
         if (_problems.Any(p => p.IsError)) return null;
-        return new Submission(_source, info, model, cases, claims);
+        return new Submission(_source, info, model, cases, claims) { WorkingTables = working };
     }
 
     private bool HasE()

@@ -113,7 +113,17 @@ internal static partial class TableSchema
         Num("rotation", QuantityKind.Angle, false, "theta", "θ", "rz"),
     ], "deflections", "joint displacements");
 
-    public static readonly TableSpec[] All = [Info, Joints, Members, Supports, Spans, Loads, EndMoments, Reactions, Displacements];
+    /// <summary>
+    /// The author's moment-distribution working table: <c>case</c>, <c>step</c>, then one column per member end
+    /// (<c>AB@A</c>, or a double subscript such as <c>M_AB</c>); read by <see cref="WorkingTableReader"/>.
+    /// </summary>
+    public static readonly TableSpec Distribution = new("distribution",
+    [
+        Id("case", false, "load case", "lc"),
+        Text("step", true, "row", "operation", "stage"),
+    ], "moment distribution", "distribution table", "working table", "hardy cross");
+
+    public static readonly TableSpec[] All = [Info, Joints, Members, Supports, Spans, Loads, EndMoments, Reactions, Displacements, Distribution];
 
     public static TableSpec? Find(string name)
     {

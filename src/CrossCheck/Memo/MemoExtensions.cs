@@ -9,5 +9,5 @@ public static class MemoExtensions
     public static List<Func<ReviewResult, MemoFormat, IEnumerable<MemoAppendix>>> Appendices { get; } = [];
 
     public static MemoModel Build(ReviewResult review, MemoFormat format) =>
-        new(review) { Appendices = Appendices.SelectMany(a => a(review, format)).ToList() };
+        new(review) { Appendices = [.. Appendices.SelectMany(a => a(review, format)), .. WorkingAppendix.For(review, format)] };
 }

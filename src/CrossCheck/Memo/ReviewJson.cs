@@ -94,6 +94,22 @@ public static class ReviewJson
                     message = f.Message,
                     source = f.SourceText,
                 }),
+                distributionAudit = c.Audit is not { } a ? null : new
+                {
+                    variant = a.Variant,
+                    cellsChecked = a.CellsChecked,
+                    cellsWrong = a.CellsWrong,
+                    firstWrongCell = a.First is not { } w ? null : new
+                    {
+                        row = w.Row,
+                        column = w.Column,
+                        found = w.Step == Model.WorkingStep.DistributionFactor ? Round(w.Found) : Mom(w.Found),
+                        expected = w.Step == Model.WorkingStep.DistributionFactor ? Round(w.Expected) : Mom(w.Expected),
+                        source = w.Source.RowCompact,
+                    },
+                    knockOn = Mom(a.KnockOn),
+                    knockOnColumn = a.KnockOnColumn,
+                },
                 causes = c.Causes.Select(x => new
                 {
                     code = x.Code,

@@ -44,5 +44,8 @@ public sealed record SubmissionInfo(
 /// <param name="Source">Path of the submission as given (folder, CSV or PDF).</param>
 public sealed record Submission(string Source, SubmissionInfo Info, StructureModel Model, IReadOnlyList<LoadCase> Cases, Claims Claims)
 {
+    /// <summary>Moment-distribution working tables the author included, if any.</summary>
+    public IReadOnlyList<WorkingTable> WorkingTables { get; init; } = [];
+
     public LoadCase? Case(string id) => Cases.FirstOrDefault(c => c.Id == id);
 }

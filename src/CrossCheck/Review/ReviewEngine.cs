@@ -29,6 +29,11 @@ public static partial class ReviewEngine
             var result = analysis.Cases.FirstOrDefault(c => c.Case == id);
             var review = ReviewCase(submission, result, id, options);
             review = review with { Flags = [.. review.Flags, .. checks.Run(id)] };
+            foreach (var table in submission.WorkingTables.Where(t => t.Case == id))
+            {
+                var audit = Diagnosis.WorkingTableAudit.Audit(submission, table, options.AbsoluteTolerance * submission.Info.Units.Moment.ToSi);
+                review = review with { Audit = audit, Flags = [.. review.Flags, Diagnosis.WorkingTableAudit.ToFlag(audit, submission, review.AgreeTolerance)] };
+            }
             if (options.Diagnose && result is not null && review.EndMoments.Any(e => e.Status is EndStatus.Discrepant or EndStatus.Minor))
                 review = review with { Causes = new Diagnosis.Diagnoser(submission, analysis, options).Diagnose(review) };
             cases.Add(review with { Flags = [.. review.Flags.OrderByDescending(f => f.Severity)] });
@@ -213,6 +218,7 @@ public static partial class ReviewEngine
         FlagKind.Reaction => "RX",
         FlagKind.Displacement => "DX",
         FlagKind.Symmetry => "SY",
+        FlagKind.DistributionTable => "MD",
         _ => "CP",
     };
 

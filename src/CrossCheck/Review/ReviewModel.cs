@@ -51,6 +51,8 @@ public enum FlagKind
     Displacement,
     Symmetry,
     Compatibility,
+    /// <summary>The author's moment-distribution working table.</summary>
+    DistributionTable,
 }
 
 /// <summary>What a flag's value measures, so it can be shown in the submission's units.</summary>
@@ -120,6 +122,9 @@ public sealed record CaseReview(
     IReadOnlyList<Cause> Causes)
 {
     public int Count(EndStatus s) => EndMoments.Count(e => e.Status == s);
+
+    /// <summary>The audit of the author's working table for this case, when one was submitted.</summary>
+    public Diagnosis.WorkingAudit? Audit { get; init; }
 }
 
 /// <summary>A comment for the schedule: a stable id the designer can answer against.</summary>
@@ -154,6 +159,7 @@ public static class ReviewWords
         FlagKind.Reaction => "reaction",
         FlagKind.Displacement => "displacement",
         FlagKind.Symmetry => "symmetry",
+        FlagKind.DistributionTable => "distribution-table",
         _ => "compatibility",
     };
 

@@ -106,3 +106,57 @@ public static class HandMethods
 
     public static (double, double) Sum(params (double S, double E)[] f) => (f.Sum(x => x.S), f.Sum(x => x.E));
 }
+
+/// <summary>A hand moment-distribution working table for a continuous beam, written row by row as an author would.</summary>
+public static class HandTable
+{
+    /// <summary>
+    /// Rows (label, values per column S1@J0, S1@J1, S2@J1, ...): DF, FEM, then balance / carry-over for
+    /// <paramref name="cycles"/> cycles, a final balance and the final sums. Plain stiffness 4EI/L, pinned ends balanced
+    /// every cycle, simultaneous balancing, carry-over ½ (common practice). A <paramref name="slip"/> writes a wrong value
+    /// into one cell, and the author carries on from it as if it were right.
+    /// </summary>
+    public static List<(string Label, double[] Values)> Build(double[] ei, double[] l, bool[] fixedSupport, (double Start, double End)[] fem, int cycles,
+        (string Label, int Column, double Value)? slip = null)
+    {
+        int n = ei.Length, cols = 2 * n;
+        void Slip(string label, double[] row) { if (slip is var (sl, sc, sv) && sl == label) row[sc] = sv; }
+        double K(int i) => 4 * ei[i] / l[i];
+        var df = new double[cols];
+        for (int j = 0; j <= n; j++)
+        {
+            if (fixedSupport[j]) continue;
+            double left = j > 0 ? K(j - 1) : 0, right = j < n ? K(j) : 0, sum = left + right;
+            if (j > 0) df[(2 * (j - 1)) + 1] = left / sum;
+            if (j < n) df[2 * j] = right / sum;
+        }
+        Slip("DF", df);
+        var rows = new List<(string, double[])> { ("DF", df) };
+        var state = fem.SelectMany(f => new[] { f.Start, f.End }).ToArray();
+        Slip("FEM", state);
+        rows.Add(("FEM", (double[])state.Clone()));
+        for (int c = 1; c <= cycles + 1; c++)
+        {
+            var bal = new double[cols];
+            for (int j = 0; j <= n; j++)
+            {
+                double u = (j > 0 ? state[(2 * (j - 1)) + 1] : 0) + (j < n ? state[2 * j] : 0);
+                if (j > 0) bal[(2 * (j - 1)) + 1] = -df[(2 * (j - 1)) + 1] * u;
+                if (j < n) bal[2 * j] = -df[2 * j] * u;
+            }
+            Slip($"balance {c}", bal);
+            for (int i = 0; i < cols; i++) state[i] += bal[i];
+            rows.Add(($"balance {c}", bal));
+            if (c == cycles + 1) break;
+            var co = new double[cols];
+            for (int i = 0; i < cols; i++) co[i % 2 == 0 ? i + 1 : i - 1] += 0.5 * bal[i];
+            Slip($"carry-over {c}", co);
+            for (int i = 0; i < cols; i++) state[i] += co[i];
+            rows.Add(($"carry-over {c}", co));
+        }
+        var final = (double[])state.Clone();
+        Slip("final", final);
+        rows.Add(("final", final));
+        return rows;
+    }
+}

@@ -1,0 +1,142 @@
+using System.Text.RegularExpressions;
+using CrossCheck.Model;
+
+namespace CrossCheck.Import;
+
+/// <summary>
+/// Reads the optional <c>distribution</c> table: the author's moment-distribution working, one row per step
+/// (distribution factors, fixed-end moments, balance, carry-over, final) and one column per member end. A column is
+/// named <c>member@joint</c> (<c>AB@A</c>) or with a double subscript (<c>M_AB</c>, <c>MAB</c>, <c>M(AB)</c>: the
+/// moment at A of the member from A to B). Moments take the column's bracketed unit or the info table's defaults.
+/// </summary>
+internal static partial class WorkingTableReader
+{
+    private static readonly (string Word, WorkingStep Step)[] StepWords =
+    [
+        ("df", WorkingStep.DistributionFactor), ("distribution factor", WorkingStep.DistributionFactor), ("distribution factors", WorkingStep.DistributionFactor),
+        ("d.f.", WorkingStep.DistributionFactor), ("fem", WorkingStep.FixedEndMoment), ("fixed end moment", WorkingStep.FixedEndMoment),
+        ("fixed end moments", WorkingStep.FixedEndMoment), ("f.e.m.", WorkingStep.FixedEndMoment), ("balance", WorkingStep.Balance), ("bal", WorkingStep.Balance),
+        ("distribute", WorkingStep.Balance), ("dist", WorkingStep.Balance), ("carry over", WorkingStep.CarryOver), ("co", WorkingStep.CarryOver),
+        ("c.o.", WorkingStep.CarryOver), ("carryover", WorkingStep.CarryOver), ("final", WorkingStep.Final), ("sum", WorkingStep.Final),
+        ("total", WorkingStep.Final), ("σ", WorkingStep.Final), ("final moment", WorkingStep.Final), ("final moments", WorkingStep.Final),
+    ];
+
+    public static List<WorkingTable> Read(RawTable t, StructureModel model, UnitChoice? momentUnit, List<InputProblem> problems)
+    {
+        var header = t.Header;
+        int caseCol = -1, stepCol = -1;
+        var columns = new List<(int Index, WorkingColumn Column, UnitChoice? Unit)>();
+        for (int i = 0; i < header.Cells.Count; i++)
+        {
+            string cell = header.Cells[i];
+            if (cell.Length == 0) continue;
+            var (name, unitText) = TableSchema.SplitHeader(cell);
+            // "M(AB)" is a double subscript, not a unit in parentheses.
+            if (unitText is not null && !cell.Contains('[') && ResolveEnd(cell.Trim(), model) is not null) (name, unitText) = (cell.Trim(), null);
+            if (unitText is null && t.ColumnUnits?.TryGetValue(i, out var u) == true) unitText = u;
+            string norm = TableSchema.Normalize(name);
+            var where = new SourceRef(t.File, "distribution", header.Line, cell, header.Page);
+            if (TableSchema.Distribution.Column("case").Matches(norm)) { caseCol = i; continue; }
+            if (TableSchema.Distribution.Column("step").Matches(norm)) { stepCol = i; continue; }
+            var end = ResolveEnd(name, model);
+            if (end is null)
+            {
+                problems.Add(new InputProblem(where, $"column '{cell}' does not name a member end: write it as member@joint (e.g. AB@A) or with a double subscript (M_AB) of joints joined by a member"));
+                continue;
+            }
+            UnitChoice? unit = momentUnit;
+            if (unitText is { Length: > 0 })
+            {
+                unit = UnitReader.TryRead(unitText, QuantityKind.Moment);
+                if (unit is null) { problems.Add(new InputProblem(where, $"'{unitText}' is not a moment unit")); continue; }
+            }
+            if (unit is null)
+            {
+                problems.Add(new InputProblem(where, $"column '{cell}' has no unit: write it in the header (e.g. '{name} [kN·m]') or give 'force unit' and 'length unit' in the info table"));
+                continue;
+            }
+            columns.Add((i, new WorkingColumn(end.Value.Member, end.Value.End, cell, where, unit), unit));
+        }
+        if (stepCol < 0)
+        {
+            problems.Add(new InputProblem(new SourceRef(t.File, "distribution", header.Line, "step", header.Page), "table 'distribution' needs a column 'step' (DF, FEM, balance, carry-over, final)"));
+            return [];
+        }
+        var byCase = new Dictionary<string, List<WorkingRow>>(StringComparer.Ordinal);
+        var order = new List<string>();
+        foreach (var row in t.Rows.Where(r => !r.IsBlank))
+        {
+            string caseId = caseCol >= 0 && row.Cell(caseCol).Trim().Length > 0 ? row.Cell(caseCol).Trim() : "1";
+            string label = row.Cell(stepCol).Trim();
+            var rowRef = new SourceRef(t.File, "distribution", row.Line, null, row.Page);
+            var step = ParseStep(label);
+            if (step is null)
+            {
+                problems.Add(new InputProblem(rowRef with { Column = header.Cell(stepCol), Text = label },
+                    $"step \"{label}\" is not recognised (use DF, FEM, balance, carry-over or final)"));
+                continue;
+            }
+            var values = new double?[columns.Count];
+            var texts = new string[columns.Count];
+            bool ok = true;
+            for (int k = 0; k < columns.Count; k++)
+            {
+                string text = row.Cell(columns[k].Index).Trim();
+                texts[k] = text;
+                if (text.Length == 0 || text is "-" or "—" or "–") continue;
+                if (!NumberText.TryParse(text, t.DecimalComma, out double v))
+                {
+                    problems.Add(new InputProblem(rowRef with { Column = columns[k].Column.Header, Text = text }, $"'{columns[k].Column.Header}' must be a number, got \"{text}\""));
+                    ok = false;
+                    continue;
+                }
+                values[k] = step == WorkingStep.DistributionFactor ? v : v * columns[k].Unit!.ToSi;
+            }
+            if (!ok) continue;
+            if (!byCase.TryGetValue(caseId, out var list)) { byCase[caseId] = list = []; order.Add(caseId); }
+            list.Add(new WorkingRow(step.Value, label, values, texts, rowRef));
+        }
+        return order.Select(c => new WorkingTable(c, columns.Select(x => x.Column).ToList(), byCase[c])).ToList();
+    }
+
+    private static WorkingStep? ParseStep(string label)
+    {
+        // "balance 2", "CO-3", "Bal." and the like: drop the numbering and trailing dots.
+        string s = TableSchema.Normalize(StepNumber().Replace(label, "")).TrimEnd('.', ' ');
+        foreach (var (word, step) in StepWords)
+            if (s == word || s == word.TrimEnd('.')) return step;
+        return null;
+    }
+
+    /// <summary>Resolves <c>AB@A</c>, <c>M_AB</c>, <c>MAB</c>, <c>M(AB)</c> or <c>AB</c> to a member end.</summary>
+    internal static (string Member, MemberEnd End)? ResolveEnd(string header, StructureModel model)
+    {
+        string h = header.Trim();
+        var at = AtForm().Match(h);
+        if (at.Success && model.TryGetMember(at.Groups["m"].Value.Trim(), out var member))
+            return member.EndAt(at.Groups["j"].Value.Trim()) is MemberEnd e ? (member.Id, e) : null;
+        var sub = SubscriptForm().Match(h);
+        string pair = sub.Success ? sub.Groups["p"].Value : h;
+        pair = pair.Replace(" ", "").Replace(",", "");
+        (string, MemberEnd)? found = null;
+        for (int split = 1; split < pair.Length; split++)
+        {
+            string near = pair[..split], far = pair[split..];
+            foreach (var m in model.Members)
+            {
+                if (m.Start == near && m.End == far) { if (found is not null) return null; found = (m.Id, MemberEnd.Start); }
+                else if (m.End == near && m.Start == far) { if (found is not null) return null; found = (m.Id, MemberEnd.End); }
+            }
+        }
+        return found;
+    }
+
+    [GeneratedRegex(@"^(?<m>[^@]+)@(?<j>.+)$")]
+    private static partial Regex AtForm();
+
+    [GeneratedRegex(@"^M\s*(?:_|\(|\s)?\s*(?<p>[^)]+?)\s*\)?$")]
+    private static partial Regex SubscriptForm();
+
+    [GeneratedRegex(@"[\s\-_#]*\d+\s*$")]
+    private static partial Regex StepNumber();
+}
