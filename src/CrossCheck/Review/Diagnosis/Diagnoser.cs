@@ -39,7 +39,8 @@ public sealed class Diagnoser
         _o = options;
     }
 
-    private sealed record Hypothesis(string Code, int Simplicity, double[] Predicted, string Message, string Evidence = "");
+    /// <param name="ConfidenceCap">Upper bound on confidence for hypotheses with fitted parameters (they fit more easily).</param>
+    private sealed record Hypothesis(string Code, int Simplicity, double[] Predicted, string Message, string Evidence = "", double ConfidenceCap = 1);
 
     /// <summary>Likely causes of the case's discrepancies, best first; empty when nothing explains them.</summary>
     public IReadOnlyList<Cause> Diagnose(CaseReview review)
@@ -65,6 +66,7 @@ public sealed class Diagnoser
             }
         }
         var ctx = new Context(this, loadCase, keys, c, r, review);
+        Try(() => WorkingSlip(ctx));
         Try(() => Transformations(ctx));
         Try(() => SwayOmitted(ctx));
         Try(() => StiffnessWithoutLength(ctx));
@@ -85,7 +87,9 @@ public sealed class Diagnoser
         // A cause must remove most of the difference: all of it to within tolerance, or at least 90 % of it.
         // (Many variants are tried, so a partial fit to scattered errors is not evidence of anything.)
         .Where(x => x.Explains >= 0.5 && (x.Worst <= review.AgreeTolerance || x.Explains >= 0.9))
+        // Within tolerance, the simplest specific mistake first; otherwise the one that explains most.
         .OrderBy(x => x.Worst <= review.AgreeTolerance ? 0 : x.Worst <= review.MinorTolerance ? 1 : 2)
+        .ThenBy(x => x.Worst <= review.AgreeTolerance ? x.H.Simplicity : 0)
         .ThenByDescending(x => Math.Round(x.Explains, 4))
         .ThenBy(x => x.H.Simplicity)
         .ToList();
@@ -94,12 +98,14 @@ public sealed class Diagnoser
             scored = scored.Where(x => x.Worst <= review.MinorTolerance).ToList();
         // One entry per code (its best variant); confidence shared between equally good explanations.
         var best = scored.GroupBy(x => x.H.Code).Select(g => g.First()).Take(3).ToList();
-        int fully = best.Count(x => x.Worst <= review.AgreeTolerance);
+        // Equally good specific explanations share the confidence; fitted ones (capped) do not dilute it.
+        int fully = best.Count(x => x.Worst <= review.AgreeTolerance && x.H.ConfidenceCap >= 1);
         return best.Select(x =>
         {
             double confidence = x.Worst <= review.AgreeTolerance ? 0.95 / Math.Max(1, fully)
                 : x.Worst <= review.MinorTolerance ? 0.7 * x.Explains
                 : 0.5 * x.Explains;
+            confidence = Math.Min(confidence, x.H.ConfidenceCap);
             string fit = x.Worst <= review.AgreeTolerance
                 ? "Redoing the analysis with this mistake reproduces every claimed moment within tolerance."
                 : string.Create(CultureInfo.InvariantCulture,
@@ -122,6 +128,19 @@ public sealed class Diagnoser
         public double[] From(CaseResult result) => Keys.Select(k => result.EndMoment(k.Member, k.End)).ToArray();
 
         public double[] From(IReadOnlyDictionary<(string Member, MemberEnd End), double> moments) => Keys.Select(k => moments[k]).ToArray();
+    }
+
+    // ---- the author's own working -----------------------------------------------------------------------
+
+    private IEnumerable<Hypothesis> WorkingSlip(Context x)
+    {
+        if (x.Review.Audit is not { First: { } first } audit) yield break;
+        // If the slip were the only mistake, the claims would be the recomputed moments plus its knock-on.
+        var knock = audit.KnockOns.ToDictionary(k => (k.Member, k.End), k => k.KnockOn);
+        var predicted = x.Keys.Select((k, i) => x.Recomputed[i] + knock.GetValueOrDefault(k)).ToArray();
+        yield return new Hypothesis("distribution-arithmetic", 1, predicted,
+            $"An arithmetic slip in the moment-distribution table: row '{first.Row}', column {first.Column} ({first.Source.Citation}) does not follow from the cells before it, and the error is carried into the final moments.",
+            "Correct that cell and carry the distribution on from there.");
     }
 
     // ---- transformations of the correct answer ------------------------------------------------------
@@ -333,7 +352,8 @@ public sealed class Diagnoser
             var fitted = Shift([(m.Id, d1, d2)]);
             if (Norm2(x.Claimed, fitted) > 0.001 * res0Norm) continue;
             yield return new Hypothesis("fixed-end-moment", 6, fitted,
-                $"The claims are consistent with member {m.Id} having fixed-end moments of {M(f1 + d1)} / {M(f2 + d2)} instead of {M(f1)} / {M(f2)}: check the fixed-end moments of its loads.");
+                $"The claims are consistent with member {m.Id} having fixed-end moments of {M(f1 + d1)} / {M(f2 + d2)} instead of {M(f1)} / {M(f2)}: check the fixed-end moments of its loads " +
+                "(an arithmetic slip at this member during the distribution has the same effect).", ConfidenceCap: 0.6);
         }
     }
 

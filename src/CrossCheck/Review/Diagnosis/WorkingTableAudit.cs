@@ -10,7 +10,9 @@ public sealed record WrongCell(string Row, int RowNumber, string Column, Working
 /// <summary>The cell-by-cell audit of one working table.</summary>
 /// <param name="Variant">Which stiffness the author's factors follow: plain 4EI/L or modified 3EI/L at pinned far ends.</param>
 /// <param name="KnockOn">Largest change of a final moment (N·m) if the table is redone with correct arithmetic from its first wrong cell on.</param>
-public sealed record WorkingAudit(string Case, string Variant, int CellsChecked, int CellsWrong, WrongCell? First, double KnockOn, string KnockOnColumn);
+/// <param name="KnockOns">Per column of the table: the author's final moment minus the final moment with correct arithmetic.</param>
+public sealed record WorkingAudit(string Case, string Variant, int CellsChecked, int CellsWrong, WrongCell? First, double KnockOn, string KnockOnColumn,
+    IReadOnlyList<(string Member, MemberEnd End, double KnockOn)> KnockOns);
 
 /// <summary>
 /// Audits an author's moment-distribution working table cell by cell: distribution factors against K/ΣK (plain 4EI/L
@@ -41,8 +43,9 @@ public static class WorkingTableAudit
             double d = authorFinal[i] - corrected.Final[i];
             if (Math.Abs(d) > Math.Abs(knock)) { knock = d; knockColumn = table.Columns[i].Header; }
         }
+        var knockOns = table.Columns.Select((c, i) => (c.Member, c.End, authorFinal[i] - corrected.Final[i])).ToList();
         return new WorkingAudit(table.Case, useModified ? "modified stiffness (3EI/L at pinned far ends)" : "plain stiffness (4EI/L)",
-            audit.Checked, audit.Wrong.Count, audit.Wrong.FirstOrDefault(), knock, knockColumn);
+            audit.Checked, audit.Wrong.Count, audit.Wrong.FirstOrDefault(), knock, knockColumn, knockOns);
     }
 
     private sealed class Ctx
