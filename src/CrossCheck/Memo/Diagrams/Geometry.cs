@@ -20,6 +20,9 @@ internal readonly record struct Pt(double X, double Y)
     public double DistanceTo(Pt o) => (this - o).Length;
 
     public static Pt Lerp(Pt a, Pt b, double t) => new(a.X + ((b.X - a.X) * t), a.Y + ((b.Y - a.Y) * t));
+
+    // The derived properties return points themselves: the record's generated printing would recurse without end.
+    public override string ToString() => string.Create(System.Globalization.CultureInfo.InvariantCulture, $"({X:0.###}, {Y:0.###})");
 }
 
 /// <summary>An axis-aligned rectangle in drawing coordinates.</summary>

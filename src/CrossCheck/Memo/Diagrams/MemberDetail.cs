@@ -21,7 +21,7 @@ internal static class MemberDetail
         var layout = MomentLayout.Build(single, result, review, sketch, PeakPixels);
         var svg = new SvgCanvas();
         var placer = new LabelPlacer();
-        var shown = MomentDrawing.Draw(svg, placer, single, sketch, layout, units, detail: true);
+        LoadSketch? loadSketch = null;
 
         var memberLoads = loads?.MemberLoads.Where(l => l.Member == member.Id).ToList() ?? [];
         if (memberLoads.Count > 0)
@@ -36,14 +36,17 @@ internal static class MemberDetail
             }
             bool fromBelow = memberLoads.Any(l => l is not MemberCouple && Local(Direction(l)).Y < -0.2);
             double top = layout.Members.SelectMany(t => t.Outline.Concat(t.ClaimedLine ?? [])).Select(p => p.Y).DefaultIfEmpty(0).Min();
-            double stripY = Math.Min(0, top) - 34 - (fromBelow ? 56 : 0);
+            // Room above the diagram for the value and claim labels of its hogging ends.
+            double stripY = Math.Min(0, top) - 58 - (fromBelow ? 56 : 0);
             var (stripModel, stripSketch) = Straightened(member, length, new Pt(0, stripY));
             stripSketch.Members(svg, DiagramStyle.Ink, DiagramStyle.MemberWeight, "cc-axis cc-load-strip");
             stripSketch.Hinges(svg, placer, DiagramStyle.Ink);
-            var loadSketch = new LoadSketch(stripSketch, stripModel, units, Local);
+            loadSketch = new LoadSketch(stripSketch, stripModel, units, Local);
             loadSketch.Draw(svg, placer, new LoadCase(caseId, [.. memberLoads]));
-            loadSketch.Labels(svg, placer);
+            placer.Block(new Box(-4, stripY - 4, Width + 4, stripY + 4));
         }
+        var shown = MomentDrawing.Draw(svg, placer, single, sketch, layout, units, detail: true);
+        loadSketch?.Labels(svg, placer);
         MomentDrawing.Legend(svg, units, shown);
         return svg.Render("cc-figure cc-detail", $"Member {member.Id}, load case {caseId}: recomputed and claimed bending moments", margin: 12, minWidth: Width + 80);
     }

@@ -60,12 +60,12 @@ internal static class MomentDrawing
     }
 
     /// <summary>Draws the marker of one claim; returns its extent.</summary>
-    internal static Box Marker(SvgCanvas svg, ClaimMark c)
+    internal static Box Marker(SvgCanvas svg, ClaimMark c, bool legend = false)
     {
         var p = c.Claimed;
         if (c.Status != EndStatus.Agree && c.Status != EndStatus.Missing && p.DistanceTo(c.RecomputedTip) > 3)
             svg.Line(c.RecomputedTip, p, c.Status == EndStatus.Discrepant ? DiagramStyle.Major : DiagramStyle.Minor, 1.1, "2 2", cssClass: "cc-claim-gap");
-        string data = $"cc-claim cc-claim-{c.Status.Json()}";
+        string data = legend ? "cc-legend-mark" : $"cc-claim cc-claim-{c.Status.Json()}";
         switch (c.Status)
         {
             case EndStatus.Agree:
@@ -183,7 +183,7 @@ internal static class MomentDrawing
                  })
         {
             if (!marks.Contains(status)) continue;
-            entries.Add((text, p => Marker(svg, new ClaimMark("", MemberEnd.Start, "", p, p, p, status, 0, 0, false))));
+            entries.Add((text, p => Marker(svg, new ClaimMark("", MemberEnd.Start, "", p, p, p, status, 0, 0, false), legend: true)));
         }
         double x = b.MinX, y = b.MaxY + 20, maxX = Math.Max(b.MaxX, b.MinX + 420);
         foreach (var (text, swatch) in entries)
