@@ -137,7 +137,8 @@ internal static class MomentDrawing
     {
         var written = new List<(Pt At, string Text)>();
         foreach (var t in layout.Members)
-            foreach (var c in t.Claims.Where(c => detail || c.Status is EndStatus.Minor or EndStatus.Discrepant or EndStatus.Missing))
+            foreach (var c in t.Claims.Where(c => c.Status is EndStatus.Minor or EndStatus.Discrepant or EndStatus.Missing
+                         || (detail && Math.Abs(c.ClaimedBending ?? 0) > 0.005 * layout.Peak)))
             {
                 string text = c.ClaimedBending is double b
                     ? $"claim {units.MomentMagnitude(b, layout.Peak)}{(c.OffScale ? " (off scale)" : "")}"
