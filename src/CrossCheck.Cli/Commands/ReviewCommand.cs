@@ -14,10 +14,10 @@ internal static partial class ReviewCommand
     public static Command Create(CliIo io)
     {
         var submission = new Argument<string>("submission") { Description = "A folder of CSV tables, a single CSV file with [table] sections, or a text PDF." };
-        var format = new Option<string>("--format", "-f") { Description = "Memo format: md, html or json.", DefaultValueFactory = _ => "md" };
-        format.AcceptOnlyFromAmong("md", "html", "json");
+        var format = new Option<string>("--format", "-f") { Description = "Memo format: md, html (self-contained, with diagrams), pdf (the html memo printed by headless Chromium) or json.", DefaultValueFactory = _ => "md" };
+        format.AcceptOnlyFromAmong("md", "html", "pdf", "json");
         var output = new Option<string?>("--out", "-o") { Description = "Where to write the memo (default: <submission>-review.<format> in the current folder; json goes to standard output)." };
-        var template = new Option<string?>("--template") { Description = "A Scriban template of your own for the md or html memo." };
+        var template = new Option<string?>("--template") { Description = "A Scriban template of your own for the md or html memo (html templates also serve pdf)." };
         var reviewer = new Option<string?>("--reviewer") { Description = "Name of the checking engineer, printed in the memo." };
         var date = new Option<string?>("--date") { Description = "Review date (yyyy-mm-dd); default today." };
         var rel = new Option<double>("--tolerance") { Description = "Agreement band as a fraction of the case's peak moment.", DefaultValueFactory = _ => 0.01 };
@@ -41,6 +41,13 @@ internal static partial class ReviewCommand
     private static int Run(Request r, CliIo io)
     {
         bool json = r.Format == "json";
+        bool pdf = r.Format == "pdf";
+        string? browser = null;
+        if (pdf && (browser = PdfPrinter.FindBrowser()) is null)
+        {
+            io.Error.WriteLine($"crosscheck: {PdfPrinter.MissingBrowserMessage}");
+            return ExitCodes.InputError;
+        }
         if (!(r.Relative >= 0) || !(r.Absolute >= 0) || !(r.Minor >= r.Relative))
         {
             io.Error.WriteLine("crosscheck: tolerances must be non-negative and --minor-tolerance must not be below --tolerance.");
@@ -88,7 +95,7 @@ internal static partial class ReviewCommand
         string content;
         try
         {
-            content = json ? ReviewJson.Write(review) : RenderMemo(review, r.Format == "html" ? MemoFormat.Html : MemoFormat.Markdown, templateText, r.Template);
+            content = json ? ReviewJson.Write(review) : RenderMemo(review, r.Format is "html" or "pdf" ? MemoFormat.Html : MemoFormat.Markdown, templateText, r.Template);
         }
         catch (MemoTemplateException ex)
         {
@@ -96,7 +103,19 @@ internal static partial class ReviewCommand
             return ExitCodes.InputError;
         }
         string? target = r.Out ?? (json ? null : DefaultMemoPath(r.Path, r.Format));
-        CommandSupport.Emit(target, content, io, announce: false);
+        if (pdf)
+        {
+            try
+            {
+                AtomicFile.WriteBytes(target!, PdfPrinter.Print(content, browser!));
+            }
+            catch (PdfPrintException ex)
+            {
+                io.Error.WriteLine($"crosscheck: the PDF memo could not be printed: {ex.Message} Write it with --format html and print it from a browser instead.");
+                return ExitCodes.InputError;
+            }
+        }
+        else CommandSupport.Emit(target, content, io, announce: false);
         if (!r.Quiet && !(json && target is null)) PrintSummary(review, target, io);
         return review.Verdict == Verdict.Concur ? ExitCodes.Concur : ExitCodes.Comments;
     }

@@ -1,3 +1,4 @@
+using CrossCheck.Memo.Diagrams;
 using CrossCheck.Review;
 
 namespace CrossCheck.Memo;
@@ -8,6 +9,10 @@ public static class MemoExtensions
     /// <summary>Contributors of extra memo sections, called in order.</summary>
     public static List<Func<ReviewResult, MemoFormat, IEnumerable<MemoAppendix>>> Appendices { get; } = [];
 
+    /// <summary>The memo model; HTML memos of an analysed review also get the drawings (<see cref="MemoDiagrams"/>).</summary>
     public static MemoModel Build(ReviewResult review, MemoFormat format) =>
-        new(review) { Appendices = [.. Appendices.SelectMany(a => a(review, format)), .. WorkingAppendix.For(review, format)] };
+        new(review, format == MemoFormat.Html ? MemoDiagrams.For(review) : null)
+        {
+            Appendices = [.. Appendices.SelectMany(a => a(review, format)), .. WorkingAppendix.For(review, format)],
+        };
 }

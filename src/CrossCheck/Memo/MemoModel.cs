@@ -1,4 +1,5 @@
 using System.Globalization;
+using CrossCheck.Memo.Diagrams;
 using CrossCheck.Model;
 using CrossCheck.Review;
 
@@ -10,7 +11,13 @@ namespace CrossCheck.Memo;
 /// </summary>
 public sealed class MemoModel
 {
-    public MemoModel(ReviewResult review)
+    public MemoModel(ReviewResult review) : this(review, null)
+    {
+    }
+
+    /// <param name="review">The review to present.</param>
+    /// <param name="diagrams">Drawings for the HTML memo (see <see cref="MemoDiagrams.For"/>); null for none.</param>
+    public MemoModel(ReviewResult review, MemoDiagrams? diagrams)
     {
         ArgumentNullException.ThrowIfNull(review);
         var s = review.Submission;
@@ -57,7 +64,9 @@ public sealed class MemoModel
         VerdictLine = string.Create(CultureInfo.InvariantCulture,
             $"{agree} of {total} member-end moments agree with the independent analysis; {discrepant} are discrepant; the checks of the claimed numbers raised {majors} major and {review.AllFlags.Count(f => f.Severity == Severity.Minor)} minor finding(s).");
 
-        Cases = review.Cases.Select(c => new MemoCase(c, u, Conv)).ToList();
+        Cases = review.Cases.Select(c => new MemoCase(c, u, Conv, diagrams)).ToList();
+        HasDiagrams = diagrams is not null;
+        StructureFigure = diagrams?.Structure;
         Comments = review.Comments.Select(cm => new MemoComment(cm.Id, cm.Severity.Json(), cm.Case, cm.Where, cm.Text, cm.Source)).ToList();
         Notes = review.Notes.ToList();
         Warnings = review.InputWarnings.ToList();
@@ -101,6 +110,13 @@ public sealed class MemoModel
     public bool HasMovements { get; }
     public bool HasHinges { get; }
     public IReadOnlyList<MemoCase> Cases { get; }
+
+    /// <summary>True when the memo carries drawings (HTML memos of an analysed review).</summary>
+    public bool HasDiagrams { get; }
+
+    /// <summary>Elevation of the structure as read; null without drawings.</summary>
+    public MemoFigure? StructureFigure { get; }
+
     public IReadOnlyList<MemoComment> Comments { get; }
     public IReadOnlyList<string> Notes { get; }
     public IReadOnlyList<string> Warnings { get; }
@@ -179,8 +195,11 @@ public sealed record MemoAppendix(string Title, string Markdown, string Html);
 public sealed class MemoCase
 {
     /// <param name="conv">Converts a clockwise member-end moment to the submission's own convention.</param>
-    internal MemoCase(CaseReview c, DisplayUnits u, Func<double, MemberEnd?, double> conv)
+    internal MemoCase(CaseReview c, DisplayUnits u, Func<double, MemberEnd?, double> conv, MemoDiagrams? diagrams = null)
     {
+        Figures = diagrams?.ForCase(c.Case) ?? [];
+        Details = diagrams?.DetailsFor(c.Case) ?? [];
+        DetailsOmitted = diagrams?.DetailsOmitted(c.Case) ?? 0;
         string mom(double? si, MemberEnd? end, string fmt) => si is double v ? Fmt.Number(u.Moment.FromSi(conv(v, end)), fmt) : "—";
         Id = c.Case;
         Peak = mom(c.PeakMoment, null, "0.00");
@@ -228,4 +247,13 @@ public sealed class MemoCase
 
     /// <summary>The case has differences but no tested mistake reproduces them.</summary>
     public bool Unexplained { get; }
+
+    /// <summary>Loads and bending-moment drawings of the case (HTML memos only).</summary>
+    public IReadOnlyList<MemoFigure> Figures { get; }
+
+    /// <summary>Member details for the members whose claims differ (HTML memos only).</summary>
+    public IReadOnlyList<MemoFigure> Details { get; }
+
+    /// <summary>Members with differing claims left without a detail drawing (beyond <see cref="MemoDiagrams.MaxDetailsPerCase"/>).</summary>
+    public int DetailsOmitted { get; }
 }

@@ -40,7 +40,7 @@ public static partial class ReviewEngine
         }
         var verdict = VerdictOf(cases);
         var comments = Comments(submission, cases);
-        return new ReviewResult(submission, options, verdict, cases, comments, analysis.Notes, inputWarnings?.ToList() ?? []);
+        return new ReviewResult(submission, options, verdict, cases, comments, analysis.Notes, inputWarnings?.ToList() ?? []) { Analysis = analysis };
     }
 
     /// <summary>Per REVIEW-JSON.md: concur when every end agrees and no flag is above info; revise on any discrepant end or major flag.</summary>

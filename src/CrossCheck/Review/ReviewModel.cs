@@ -1,3 +1,4 @@
+using CrossCheck.Analysis;
 using CrossCheck.Model;
 
 namespace CrossCheck.Review;
@@ -140,6 +141,12 @@ public sealed record ReviewResult(
     IReadOnlyList<string> Notes,
     IReadOnlyList<string> InputWarnings)
 {
+    /// <summary>
+    /// The independent analysis the review rests on (for diagrams and working tables); null when a review is built
+    /// without one. Not part of the JSON contract.
+    /// </summary>
+    public AnalysisResult? Analysis { get; init; }
+
     public IEnumerable<EndMomentFinding> AllEndMoments => Cases.SelectMany(c => c.EndMoments);
     public IEnumerable<Flag> AllFlags => Cases.SelectMany(c => c.Flags);
 }

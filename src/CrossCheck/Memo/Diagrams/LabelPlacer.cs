@@ -1,0 +1,71 @@
+namespace CrossCheck.Memo.Diagrams;
+
+/// <summary>
+/// Greedy placement of text labels: each label takes the first of its candidate positions that does not overlap a
+/// label already placed or an area marked as taken (joints, support symbols). With no free candidate the first is used.
+/// </summary>
+internal sealed class LabelPlacer
+{
+    private readonly List<Box> _taken = [];
+
+    public IReadOnlyList<Box> Taken => _taken;
+
+    public void Block(Box b) => _taken.Add(b);
+
+    /// <summary>Chooses a centre for a label of the given size among <paramref name="candidates"/> (in order of preference).</summary>
+    public Pt Place(IEnumerable<Pt> candidates, double width, double height)
+    {
+        Pt? first = null;
+        foreach (var c in candidates)
+        {
+            first ??= c;
+            var box = Box.Around(c, width + 2, height);
+            if (!_taken.Any(t => t.Overlaps(box)))
+            {
+                _taken.Add(box);
+                return c;
+            }
+        }
+        var chosen = first ?? new Pt(0, 0);
+        _taken.Add(Box.Around(chosen, width + 2, height));
+        return chosen;
+    }
+
+    /// <summary>
+    /// Candidates for a label that should sit just beyond <paramref name="tip"/> in direction <paramref name="outward"/>:
+    /// first right there, then slid along <paramref name="along"/> or pushed further out, nearest first.
+    /// </summary>
+    public static IEnumerable<Pt> Beyond(Pt tip, Pt outward, Pt along, double width, double height, double gap = 4)
+    {
+        outward = outward.Unit;
+        along = along.Unit;
+        double reach = (Math.Abs(outward.X) * width / 2) + (Math.Abs(outward.Y) * height / 2) + gap;
+        var c = tip + (outward * reach);
+        double step = Math.Max(6, ((Math.Abs(along.X) * (width + 3)) + (Math.Abs(along.Y) * (height + 2))) / 2);
+        double push = Math.Max(6, ((Math.Abs(outward.X) * (width + 2)) + (Math.Abs(outward.Y) * (height + 2))) * 0.6);
+        var offsets = new List<(double Cost, Pt P)>();
+        for (int k = 0; k <= 3; k++)
+            for (int j = -6; j <= 6; j++)
+            {
+                double a = j * step, o = k * push;
+                // Sliding along the member is preferred slightly over moving away from it, and the inward side over the outer.
+                offsets.Add(((a * a) + (1.3 * o * o) + (j < 0 ? 0.5 : 0), c + (along * a) + (outward * o)));
+            }
+        return offsets.OrderBy(x => x.Cost).Select(x => x.P);
+    }
+
+    /// <summary>Candidates on a ring around <paramref name="centre"/>, starting from the direction <paramref name="preferred"/>.</summary>
+    public static IEnumerable<Pt> Around(Pt centre, Pt preferred, double radius, double width, double height)
+    {
+        double a0 = Math.Atan2(preferred.Y, preferred.X);
+        var order = new[] { 0, 1, -1, 2, -2, 3, -3, 4 };
+        foreach (var ring in new[] { 1.0, 1.8, 2.8, 4.0 })
+            foreach (int k in order)
+            {
+                double a = a0 + (k * Math.PI / 4);
+                var d = new Pt(Math.Cos(a), Math.Sin(a));
+                double reach = (radius * ring) + (Math.Abs(d.X) * width / 2) + (Math.Abs(d.Y) * height / 2);
+                yield return centre + (d * reach);
+            }
+    }
+}

@@ -1,0 +1,133 @@
+using System.Globalization;
+using CrossCheck.Model;
+using CrossCheck.Review;
+
+namespace CrossCheck.Memo.Diagrams;
+
+/// <summary>A drawing for the HTML memo: a number, an SVG document (already safe to insert) and a caption (plain text, to be escaped).</summary>
+public sealed record MemoFigure(int Number, string Kind, string Svg, string Caption);
+
+/// <summary>
+/// The drawings of a review, made for the HTML memo: the structure as read, and for every load case its loads, its
+/// recomputed bending-moment diagram with the claims overlaid, and a detail of each member with a differing end.
+/// </summary>
+public sealed class MemoDiagrams
+{
+    /// <summary>At most this many member details per case; the memo says how many more there were.</summary>
+    public const int MaxDetailsPerCase = 12;
+
+    private readonly Dictionary<string, IReadOnlyList<MemoFigure>> _case = new(StringComparer.Ordinal);
+    private readonly Dictionary<string, IReadOnlyList<MemoFigure>> _details = new(StringComparer.Ordinal);
+    private readonly Dictionary<string, int> _omitted = new(StringComparer.Ordinal);
+
+    private MemoDiagrams(MemoFigure structure) => Structure = structure;
+
+    public MemoFigure Structure { get; }
+
+    /// <summary>The loads and bending-moment figures of a case (empty when the case was not analysed).</summary>
+    public IReadOnlyList<MemoFigure> ForCase(string caseId) => _case.GetValueOrDefault(caseId) ?? [];
+
+    /// <summary>Details of the members of a case whose claims differ, worst first.</summary>
+    public IReadOnlyList<MemoFigure> DetailsFor(string caseId) => _details.GetValueOrDefault(caseId) ?? [];
+
+    public int DetailsOmitted(string caseId) => _omitted.GetValueOrDefault(caseId);
+
+    /// <summary>Draws everything for <paramref name="review"/>; null when the review carries no analysis.</summary>
+    public static MemoDiagrams? For(ReviewResult review)
+    {
+        ArgumentNullException.ThrowIfNull(review);
+        if (review.Analysis is not { } analysis || review.Submission.Model.Members.Count == 0) return null;
+        var s = review.Submission;
+        var model = s.Model;
+        var units = new UnitText(s.Info.Units);
+        var sketch = new StructureSketch(model, StructureSketch.ViewFor(model));
+        int n = 1;
+        var structure = new MemoFigure(n++, "structure",
+            ElevationDrawing.Render(model, sketch, units, null, "The structure as read"),
+            "The structure as read, to scale: joints (bold), members with their lengths, supports and member-end hinges. " +
+            "Check it against the calculation's own sketch.");
+        var result = new MemoDiagrams(structure);
+        string mu = s.Info.Units.Moment.Symbol;
+        bool sagging = s.Info.SignConvention == SignConvention.Sagging;
+
+        foreach (var c in review.Cases)
+        {
+            var caseResult = analysis.Cases.FirstOrDefault(x => x.Case == c.Case);
+            if (caseResult is null) continue;
+            var loads = s.Case(c.Case);
+            var figures = new List<MemoFigure>();
+            if (loads is not null)
+            {
+                figures.Add(new MemoFigure(n++, "loads",
+                    ElevationDrawing.Render(model, sketch, units, loads, $"Loads of case {c.Case}"),
+                    $"Load case {c.Case}: the loads as read. Arrows point the way each load acts; the arrows of a distributed load grow with its intensity."));
+            }
+            var layout = MomentLayout.Build(model, caseResult, c, sketch, PeakPixelsFor(sketch, model));
+            int discrepant = c.EndMoments.Count(e => e.Status == EndStatus.Discrepant && e.End is not null);
+            int minor = c.EndMoments.Count(e => e.Status == EndStatus.Minor && e.End is not null);
+            figures.Add(new MemoFigure(n++, "moments",
+                MomentDrawing.Render(model, sketch, layout, units, c.Case),
+                $"Load case {c.Case}: recomputed bending moment [{mu}], drawn on the tension side of each member at one scale for the case; " +
+                "values are magnitudes at the member ends and at the largest span moments. Each claimed end moment is marked where it would plot " +
+                $"(diamond: agrees; triangle: minor difference; ringed cross: discrepant; square: not claimed). {Count(discrepant, "discrepant end")}, {Count(minor, "minor difference")}."));
+            result._case[c.Case] = figures;
+
+            var flagged = c.EndMoments
+                .Where(e => e.End is not null && e.Status is EndStatus.Discrepant or EndStatus.Minor or EndStatus.Missing && caseResult.Members.ContainsKey(e.Member))
+                .GroupBy(e => e.Member, StringComparer.Ordinal)
+                .OrderByDescending(g => g.Max(e => Rank(e.Status)))
+                .ThenByDescending(g => g.Max(e => Math.Abs(e.Difference ?? e.Recomputed ?? 0)))
+                .Select(g => g.Key)
+                .ToList();
+            var details = new List<MemoFigure>();
+            foreach (var id in flagged.Take(MaxDetailsPerCase))
+            {
+                var m = model.Member(id);
+                double length = model.Length(m);
+                details.Add(new MemoFigure(n++, "detail",
+                    MemberDetail.Render(m, length, caseResult, c, loads, units, c.Case),
+                    DetailCaption(m, c, units, mu, sagging)));
+            }
+            result._details[c.Case] = details;
+            result._omitted[c.Case] = Math.Max(0, flagged.Count - MaxDetailsPerCase);
+        }
+        return result;
+    }
+
+    /// <summary>Length of the largest ordinate: a tenth of the drawing's larger side, between 40 and 64 px.</summary>
+    internal static double PeakPixelsFor(StructureSketch sketch, StructureModel model)
+    {
+        var pts = model.Joints.Select(j => sketch.At(j.Id)).ToList();
+        double w = pts.Max(p => p.X) - pts.Min(p => p.X), h = pts.Max(p => p.Y) - pts.Min(p => p.Y);
+        return Math.Clamp(0.1 * Math.Max(w, h), 40, 64);
+    }
+
+    private static string Count(int n, string what) => n == 1 ? $"1 {what}" : $"{n.ToString(CultureInfo.InvariantCulture)} {what}s";
+
+    private static int Rank(EndStatus s) => s switch
+    {
+        EndStatus.Discrepant => 3,
+        EndStatus.Minor => 2,
+        EndStatus.Missing => 1,
+        _ => 0,
+    };
+
+    private static string DetailCaption(Member m, CaseReview c, UnitText units, string mu, bool sagging)
+    {
+        string Claim(MemberEnd end)
+        {
+            var f = c.EndMoments.FirstOrDefault(e => e.Member == m.Id && e.End == end);
+            string at = m.JointAt(end);
+            if (f is null) return $"at {at} nothing claimed";
+            string fmt = "0.0##";
+            double Conv(double cw) => sagging && end == MemberEnd.End ? -cw : cw;
+            string claimed = f.Claimed is double cl ? Fmt.Number(units.Units.Moment.FromSi(Conv(cl)), fmt) : "not claimed";
+            string rec = f.Recomputed is double r ? Fmt.Number(units.Units.Moment.FromSi(Conv(r)), "0.00") : "—";
+            return $"at {at} claimed {claimed}, recomputed {rec} ({f.Status.Json()})";
+        }
+        string convention = sagging ? "sagging positive, as the submission states them" : "clockwise positive, as the submission states them";
+        return $"Member {m.Id}, load case {c.Case}, drawn from {m.Start} (left) to {m.End} (right); ordinates below the axis put the member's " +
+               $"right-hand fibre (looking from {m.Start} to {m.End}) in tension. Dashed: the diagram the claimed end moments imply with the same loads. " +
+               $"End moments [{mu}, {convention}]: {Claim(MemberEnd.Start)}; {Claim(MemberEnd.End)}.";
+    }
+}
