@@ -1,6 +1,5 @@
 using System.Globalization;
 using CrossCheck.Model;
-using MathNet.Numerics.LinearAlgebra;
 
 namespace CrossCheck.Analysis;
 
@@ -17,9 +16,15 @@ namespace CrossCheck.Analysis;
 public sealed class FrameSolver
 {
     private static readonly string[] DirectionNames = ["x", "y", "rotation"];
+
+    /// <summary>Scaled pivots below this send the structure to the mechanism check.</summary>
+    private const double SuspectPivotRatio = 1e-6;
+
+    /// <summary>Condition estimates above this are reported in the notes.</summary>
+    private const double IllConditioned = 1e10;
     private readonly ILinearSolver _linear;
 
-    public FrameSolver(ILinearSolver? linear = null) => _linear = linear ?? DenseCholeskySolver.Instance;
+    public FrameSolver(ILinearSolver? linear = null) => _linear = linear ?? AutoSolver.Instance;
 
     /// <summary>Analyses every load case.</summary>
     /// <param name="model">The structure.</param>
@@ -89,7 +94,12 @@ public sealed class FrameSolver
             var k = ElementMatrices.LocalStiffness(m.E * m.I, ea, L);
             var released = ElementMatrices.Released(m.Hinge);
             var (kc, _) = ElementMatrices.Condense(k, new double[6], released);
-            return new Element(m, s, e, L, dx / L, dy / L, k, kc, released, ElementMatrices.ToGlobal(kc, dx / L, dy / L));
+            // The same member with stiffness of unit size (4EI/L = 1, EA/L = 1): its null space is the structure's
+            // mechanisms, free of the conditioning that very different real stiffnesses bring.
+            var ku = ElementMatrices.LocalStiffness(L / 4, _model.Axial == AxialBehaviour.Elastic ? L : 0, L);
+            var (kuc, _) = ElementMatrices.Condense(ku, new double[6], released);
+            return new Element(m, s, e, L, dx / L, dy / L, k, kc, released, ElementMatrices.ToGlobal(kc, dx / L, dy / L),
+                ElementMatrices.ToGlobal(kuc, dx / L, dy / L));
         }
 
         public AnalysisResult Execute()
@@ -104,26 +114,45 @@ public sealed class FrameSolver
                 var t = constraints.Build();
                 var k = Reduce(t);
                 var loads = perCase.Select(pc => ReducedLoad(t, pc.Case, pc.Local)).ToList();
-                ILinearFactor factor;
+                ILinearFactor? factor = null;
+                SingularMatrixException? singular = null;
                 try
                 {
                     factor = _linear.Factor(k);
                 }
                 catch (SingularMatrixException ex)
                 {
-                    if (attempt > 3 * _model.Joints.Count) throw new StructureException("The structure could not be stabilised: it is a mechanism.", ex);
-                    extra.AddRange(FreeMovements(k, t, loads, perCase.Select(p => p.Case.Id).ToList(), ex));
-                    continue;
+                    singular = ex;
+                }
+                // A tiny pivot may be a mechanism drowned in round-off or just very different stiffnesses: decide on
+                // the unit-stiffness copy, whose only near-zero modes are mechanisms.
+                if (singular is not null || factor!.MinPivotRatio < SuspectPivotRatio)
+                {
+                    var mode = MechanismMode(Reduce(t, unit: true));
+                    if (mode is not null)
+                    {
+                        if (attempt > 3 * _model.Joints.Count) throw new StructureException("The structure could not be stabilised: it is a mechanism.", singular!);
+                        extra.AddRange(FreeMovements(mode.Value.Vector, mode.Value.Scale, t, loads, perCase.Select(p => p.Case.Id).ToList()));
+                        continue;
+                    }
+                    if (singular is not null)
+                        throw new StructureException(
+                            "The stiffness matrix is numerically singular although the structure is not a mechanism: the member stiffnesses differ too much " +
+                            "(by more than about 10¹² between neighbours) for double precision. Check E, I and A for typing errors.", singular);
                 }
                 foreach (var (_, note) in extra) _notes.Add(note);
                 var results = new List<CaseResult>();
                 for (int c = 0; c < perCase.Count; c++)
                 {
-                    var q = factor.Solve(loads[c].Reduced);
+                    var q = factor!.Solve(loads[c].Reduced);
                     var d = t.Expand(q);
                     results.Add(Recover(perCase[c].Case, perCase[c].Local, d, loads[c].Full, constraints));
                 }
-                return new AnalysisResult(_model, results, _notes, 1 / Math.Max(factor.MinPivotRatio, 1e-300));
+                double condition = 1 / Math.Max(factor!.MinPivotRatio, 1e-300);
+                if (condition > IllConditioned)
+                    _notes.Add(string.Create(CultureInfo.InvariantCulture,
+                        $"The stiffness matrix is ill-conditioned (condition estimate {condition:0.#e+0}): some members are far stiffer than their neighbours. Results are verified by equilibrium below, but check E, I and A for typing errors."));
+                return new AnalysisResult(_model, results, _notes, condition);
             }
         }
 
@@ -167,7 +196,7 @@ public sealed class FrameSolver
             return cs;
         }
 
-        private SparseSymmetricMatrix Reduce(Transformation t)
+        private SparseSymmetricMatrix Reduce(Transformation t, bool unit = false)
         {
             var k = new SparseSymmetricMatrix(t.MasterCount);
             foreach (var e in _elements)
@@ -179,7 +208,7 @@ public sealed class FrameSolver
                     if (ta.Length == 0) continue;
                     for (int b = 0; b < 6; b++)
                     {
-                        double kab = e.GlobalK[a, b];
+                        double kab = unit ? e.UnitGlobalK[a, b] : e.GlobalK[a, b];
                         if (kab == 0) continue;
                         var tb = t.Terms[dofs[b]];
                         foreach (var (ma, ca) in ta)
@@ -240,50 +269,55 @@ public sealed class FrameSolver
         }
 
         /// <summary>
-        /// Finds the free movements of a singular reduced matrix. Movements no load drives are restrained
-        /// (returned with a note); a driven one is a mechanism and throws.
+        /// The mechanism mode of the unit-stiffness matrix, if it has one: inverse iteration on a slightly shifted,
+        /// Jacobi-scaled copy, confirmed by its Rayleigh quotient. Null when the structure is stable.
         /// </summary>
-        private List<(int Dof, string Note)> FreeMovements(SparseSymmetricMatrix k, Transformation t,
-            List<(double[] Full, double[] Reduced)> loads, List<string> caseIds, SingularMatrixException cause)
+        private (double[] Vector, double[] Scale)? MechanismMode(SparseSymmetricMatrix k)
         {
             int n = k.Size;
             var scale = new double[n];
             for (int i = 0; i < n; i++) { double d = k.Diagonal(i); scale[i] = d > 0 ? 1 / Math.Sqrt(d) : 1; }
-            var modes = new List<double[]>();
-            // DOFs with no stiffness at all are free on their own.
+            // A unknown with no stiffness at all is a mode on its own.
             for (int i = 0; i < n; i++)
-                if (!(k.Diagonal(i) > 0))
-                {
-                    var v = new double[n]; v[i] = 1; modes.Add(v);
-                }
-            if (modes.Count == 0)
+                if (!(k.Diagonal(i) > 0)) { var v = new double[n]; v[i] = 1; return (v, scale); }
+            var shifted = new SparseSymmetricMatrix(n);
+            for (int i = 0; i < n; i++)
+                foreach (var (j, val) in k.LowerRow(i)) shifted.Add(i, j, val * scale[i] * scale[j]);
+            for (int i = 0; i < n; i++) shifted.Add(i, i, 1e-10);
+            ILinearFactor f;
+            try { f = _linear.Factor(shifted); }
+            catch (SingularMatrixException) { return null; }
+            var rnd = new Random(12345);
+            var x = Enumerable.Range(0, n).Select(_ => rnd.NextDouble() - 0.5).ToArray();
+            for (int it = 0; it < 8; it++)
             {
-                if (n > 2500)
-                {
-                    int p = cause.PivotIndex >= 0 ? cause.PivotIndex : 0;
-                    var v = new double[n]; v[p] = 1; modes.Add(v);
-                }
-                else
-                {
-                    var a = Matrix<double>.Build.Dense(n, n);
-                    for (int i = 0; i < n; i++)
-                        foreach (var (j, val) in k.LowerRow(i))
-                        {
-                            double s = val * scale[i] * scale[j];
-                            a[i, j] = s; a[j, i] = s;
-                        }
-                    var evd = a.Evd(Symmetricity.Symmetric);
-                    double top = evd.EigenValues.Select(z => Math.Abs(z.Real)).DefaultIfEmpty(1).Max();
-                    for (int m = 0; m < n; m++)
-                        if (Math.Abs(evd.EigenValues[m].Real) <= 1e-10 * top)
-                            modes.Add(evd.EigenVectors.Column(m).ToArray());
-                    if (modes.Count == 0)
-                    {
-                        int p = cause.PivotIndex >= 0 ? cause.PivotIndex : 0;
-                        var v = new double[n]; v[p] = 1; modes.Add(v);
-                    }
-                }
+                x = f.Solve(x);
+                double norm = Math.Sqrt(x.Sum(v => v * v));
+                if (!(norm > 0) || !double.IsFinite(norm)) return null;
+                for (int i = 0; i < n; i++) x[i] /= norm;
             }
+            // Rayleigh quotient on the scaled unit matrix: a mechanism gives round-off, a stable frame at least ~1e-7.
+            var kx = new double[n];
+            for (int i = 0; i < n; i++)
+                foreach (var (j, val) in k.LowerRow(i))
+                {
+                    double sv = val * scale[i] * scale[j];
+                    kx[i] += sv * x[j];
+                    if (i != j) kx[j] += sv * x[i];
+                }
+            double rq = 0;
+            for (int i = 0; i < n; i++) rq += x[i] * kx[i];
+            return rq < 1e-9 ? (x, scale) : null;
+        }
+
+        /// <summary>
+        /// A free movement of the structure: restrained with a note when no load drives it, a mechanism error when one does.
+        /// </summary>
+        private List<(int Dof, string Note)> FreeMovements(double[] mode, double[] scale, Transformation t,
+            List<(double[] Full, double[] Reduced)> loads, List<string> caseIds)
+        {
+            int n = mode.Length;
+            var modes = new List<double[]> { mode };
             var result = new List<(int, string)>();
             var taken = new HashSet<int>();
             foreach (var scaledMode in modes)
@@ -485,7 +519,7 @@ public sealed class FrameSolver
     }
 
     private sealed record Element(Member Member, int StartJoint, int EndJoint, double Length, double Cos, double Sin,
-        double[,] LocalK, double[,] CondensedK, int[] Released, double[,] GlobalK)
+        double[,] LocalK, double[,] CondensedK, int[] Released, double[,] GlobalK, double[,] UnitGlobalK)
     {
         public int[] Dofs { get; } =
         [
