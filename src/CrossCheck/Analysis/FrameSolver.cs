@@ -63,6 +63,7 @@ public sealed class FrameSolver
         private readonly ILinearSolver _linear;
         private readonly Dictionary<string, int> _jointIndex;
         private readonly Element[] _elements;
+        private readonly Dictionary<string, int> _elementIndex;
         private readonly List<string> _notes = [];
         private readonly int _n;
 
@@ -77,6 +78,7 @@ public sealed class FrameSolver
             _jointIndex = model.Joints.Select((j, i) => (j.Id, i)).ToDictionary(t => t.Id, t => t.i, StringComparer.Ordinal);
             _n = 3 * model.Joints.Count;
             _elements = model.Members.Select(BuildElement).ToArray();
+            _elementIndex = _elements.Select((e, i) => (e.Member.Id, i)).ToDictionary(x => x.Id, x => x.i, StringComparer.Ordinal);
         }
 
         private Element BuildElement(Member m)
@@ -94,12 +96,7 @@ public sealed class FrameSolver
             var k = ElementMatrices.LocalStiffness(m.E * m.I, ea, L);
             var released = ElementMatrices.Released(m.Hinge);
             var (kc, _) = ElementMatrices.Condense(k, new double[6], released);
-            // The same member with stiffness of unit size (4EI/L = 1, EA/L = 1): its null space is the structure's
-            // mechanisms, free of the conditioning that very different real stiffnesses bring.
-            var ku = ElementMatrices.LocalStiffness(L / 4, _model.Axial == AxialBehaviour.Elastic ? L : 0, L);
-            var (kuc, _) = ElementMatrices.Condense(ku, new double[6], released);
-            return new Element(m, s, e, L, dx / L, dy / L, k, kc, released, ElementMatrices.ToGlobal(kc, dx / L, dy / L),
-                ElementMatrices.ToGlobal(kuc, dx / L, dy / L));
+            return new Element(m, s, e, L, dx / L, dy / L, k, released, ElementMatrices.ToGlobal(kc, dx / L, dy / L), _model.Axial == AxialBehaviour.Elastic);
         }
 
         public AnalysisResult Execute()
@@ -172,7 +169,7 @@ public sealed class FrameSolver
             {
                 if (!map.TryGetValue(load.Member, out var list))
                     throw new StructureException($"A load of case {loadCase.Id} acts on member {load.Member}, which does not exist.");
-                var e = _elements.First(x => x.Member.Id == load.Member);
+                var e = _elements[_elementIndex[load.Member]];
                 list.Add(LocalLoads.Resolve(load, e.Cos, e.Sin));
             }
             return map;
@@ -510,7 +507,7 @@ public sealed class FrameSolver
             for (int r = 0; r < m; r++)
             {
                 if (rows[r].Tag is not ValueTuple<string, string, int> { Item1: "rigid" } tag) continue;
-                int i = Array.FindIndex(_elements, e => e.Member.Id == tag.Item2);
+                int i = _elementIndex[tag.Item2];
                 double tension = -lambda[r];
                 endForces[i][0] += -tension;
                 endForces[i][3] += tension;
@@ -519,8 +516,23 @@ public sealed class FrameSolver
     }
 
     private sealed record Element(Member Member, int StartJoint, int EndJoint, double Length, double Cos, double Sin,
-        double[,] LocalK, double[,] CondensedK, int[] Released, double[,] GlobalK, double[,] UnitGlobalK)
+        double[,] LocalK, int[] Released, double[,] GlobalK, bool Elastic)
     {
+        private double[,]? _unit;
+
+        /// <summary>
+        /// The same member with stiffness of unit size (4EI/L = 1, EA/L = 1): its null space is the structure's
+        /// mechanisms, free of the conditioning that very different real stiffnesses bring. Built when first needed.
+        /// </summary>
+        public double[,] UnitGlobalK => _unit ??= Unit();
+
+        private double[,] Unit()
+        {
+            var ku = ElementMatrices.LocalStiffness(Length / 4, Elastic ? Length : 0, Length);
+            var (kuc, _) = ElementMatrices.Condense(ku, new double[6], Released);
+            return ElementMatrices.ToGlobal(kuc, Cos, Sin);
+        }
+
         public int[] Dofs { get; } =
         [
             3 * StartJoint, (3 * StartJoint) + 1, (3 * StartJoint) + 2,

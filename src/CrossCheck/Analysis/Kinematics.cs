@@ -81,13 +81,13 @@ public sealed class Kinematics
     public static IEnumerable<Joint> MomentFreeJoints(StructureModel model)
     {
         ArgumentNullException.ThrowIfNull(model);
-        foreach (var joint in model.Joints)
+        var rigid = new HashSet<string>(StringComparer.Ordinal);
+        foreach (var m in model.Members)
         {
-            if (joint.Restraint.HasFlag(Restraint.Rotation)) continue;
-            bool anyRigid = model.Members.Any(m => (m.Start == joint.Id && !m.Hinge.HasFlag(Hinge.Start))
-                                                || (m.End == joint.Id && !m.Hinge.HasFlag(Hinge.End)));
-            if (!anyRigid) yield return joint;
+            if (!m.Hinge.HasFlag(Hinge.Start)) rigid.Add(m.Start);
+            if (!m.Hinge.HasFlag(Hinge.End)) rigid.Add(m.End);
         }
+        return model.Joints.Where(j => !j.Restraint.HasFlag(Restraint.Rotation) && !rigid.Contains(j.Id)).ToList();
     }
 
     /// <summary>Supports, prescribed movements, moment-free joints and (for rigid axial behaviour) member lengths.</summary>

@@ -32,9 +32,14 @@ public sealed class MemberResult
         LocalDisplacements = localDisplacements;
         _v1 = localEndForces[1];
         _m1 = localEndForces[2];
-        Stations = BuildStations();
-        (MaxSagging, MaxHogging) = FindExtremes();
+        // Stations and span extremes are worked out on first use: a large frame solved only for its end moments
+        // should not pay for them.
+        _stations = new Lazy<Station[]>(BuildStations);
+        _extremes = new Lazy<((double, double), (double, double))>(FindExtremes);
     }
+
+    private readonly Lazy<Station[]> _stations;
+    private readonly Lazy<((double X, double Moment) Sagging, (double X, double Moment) Hogging)> _extremes;
 
     public Member Member { get; }
     public double Length { get; }
@@ -74,13 +79,13 @@ public sealed class MemberResult
     public double ShearAt(double x) => Evaluate(x, includeAtX: false).Shear;
 
     /// <summary>Stations at twentieths of the length plus both sides of every concentrated load.</summary>
-    public IReadOnlyList<Station> Stations { get; }
+    public IReadOnlyList<Station> Stations => _stations.Value;
 
     /// <summary>Largest positive bending moment and where (x, M); (x, 0) when none is positive.</summary>
-    public (double X, double Moment) MaxSagging { get; }
+    public (double X, double Moment) MaxSagging => _extremes.Value.Sagging;
 
     /// <summary>Most negative bending moment and where.</summary>
-    public (double X, double Moment) MaxHogging { get; }
+    public (double X, double Moment) MaxHogging => _extremes.Value.Hogging;
 
     /// <summary>Loads on this member in local axes (for diagrams).</summary>
     internal IReadOnlyList<LocalAction> Actions => _actions;

@@ -151,7 +151,8 @@ internal static class Ordering
         if (n == 0) return [];
         var sorted = degree.Order().ToArray();
         int median = sorted[n / 2];
-        int denseLimit = Math.Max(64, 8 * Math.Max(median, 1));
+        // Only nodes far denser than the rest (the sway unknown of a very wide storey) are worth setting aside.
+        int denseLimit = Math.Max(Math.Max(64, 10 * Math.Max(median, 1)), (int)(4 * Math.Sqrt(n)));
         var dense = new bool[n];
         for (int i = 0; i < n; i++) dense[i] = degree[i] > denseLimit;
         foreach (var l in adj) l.Sort((x, y) => degree[x].CompareTo(degree[y]));

@@ -131,8 +131,28 @@ public sealed class StructureModel
         return Math.Sqrt(((b.X - a.X) * (b.X - a.X)) + ((b.Y - a.Y) * (b.Y - a.Y)));
     }
 
+    private Dictionary<string, List<Member>>? _byJoint;
+
     /// <summary>Members meeting at a joint, in submission order.</summary>
-    public IEnumerable<Member> MembersAt(string jointId) => Members.Where(m => m.Start == jointId || m.End == jointId);
+    public IEnumerable<Member> MembersAt(string jointId)
+    {
+        _byJoint ??= BuildJointLookup();
+        return _byJoint.TryGetValue(jointId, out var list) ? list : [];
+    }
+
+    private Dictionary<string, List<Member>> BuildJointLookup()
+    {
+        var map = new Dictionary<string, List<Member>>(StringComparer.Ordinal);
+        foreach (var m in Members)
+        {
+            if (!map.TryGetValue(m.Start, out var a)) map[m.Start] = a = [];
+            a.Add(m);
+            if (m.End == m.Start) continue;
+            if (!map.TryGetValue(m.End, out var b)) map[m.End] = b = [];
+            b.Add(m);
+        }
+        return map;
+    }
 
     public bool HasSupportMovements => Joints.Any(j => !j.Movement.IsZero);
 }

@@ -1,0 +1,16 @@
+using BenchmarkDotNet.Running;
+
+namespace CrossCheck.Benchmarks;
+
+/// <summary>
+/// Benchmarks (BenchmarkDotNet): <c>dotnet run -c Release --project tests/CrossCheck.Benchmarks -- --filter '*'</c>.
+/// <c>-- scaling</c> prints a quick time-and-memory table of frame size against solve time without BenchmarkDotNet.
+/// </summary>
+public static class Program
+{
+    public static void Main(string[] args)
+    {
+        if (args.Length > 0 && args[0] == "scaling") { Scaling.Run(); return; }
+        BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
+    }
+}
