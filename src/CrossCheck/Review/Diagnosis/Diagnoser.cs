@@ -86,7 +86,7 @@ public sealed class Diagnoser
         })
         // A cause must remove most of the difference: all of it to within tolerance, or at least 90 % of it.
         // (Many variants are tried, so a partial fit to scattered errors is not evidence of anything.)
-        .Where(x => x.Explains >= 0.5 && (x.Worst <= review.AgreeTolerance || x.Explains >= 0.9))
+        .Where(x => x.Explains >= 0.5 && (x.Worst <= review.AgreeTolerance || (x.Explains >= 0.9 && x.Worst <= review.MinorTolerance)))
         // Within tolerance, the simplest specific mistake first; otherwise the one that explains most.
         .OrderBy(x => x.Worst <= review.AgreeTolerance ? 0 : x.Worst <= review.MinorTolerance ? 1 : 2)
         .ThenBy(x => x.Worst <= review.AgreeTolerance ? x.H.Simplicity : 0)
@@ -392,15 +392,27 @@ public sealed class Diagnoser
 
     private IEnumerable<Hypothesis> StoppedEarly(Context x)
     {
-        if (_s.Model.Axial != AxialBehaviour.Rigid) yield break;
+        // Many stopping points are tried: with fewer than five claimed ends one of them could match by chance.
+        if (_s.Model.Axial != AxialBehaviour.Rigid || x.Keys.Count < 5) yield break;
+        // The signature of stopping early is in the joints: after a final balance every joint balances; stopped after a
+        // carry-over, each joint is out by exactly its last carry-overs. Many stopping points are tried, so without the
+        // signature a match could be chance.
+        bool jointsBalance = !x.Review.Flags.Any(f => f.Kind is FlagKind.JointEquilibrium or FlagKind.ReleasedEnd && f.Severity != Severity.Info);
         foreach (bool modified in new[] { true, false })
             foreach (bool finalBalance in new[] { true, false })
                 for (int k = 1; k <= 15; k++)
                 {
+                    if (finalBalance && !jointsBalance) break;
                     var md = MomentDistribution.Run(_s.Model, x.Case, new DistributionOptions(ModifiedStiffness: modified, Cycles: k, FinalBalance: finalBalance));
                     if (md.Converged) break; // later cycles change nothing
                     string ending = finalBalance ? "with a final balance" : "straight after the carry-over, without a final balance";
-                    string evidence = finalBalance ? "" : JointResidualsMatchCarryOver(x, md);
+                    string evidence = "";
+                    if (!finalBalance)
+                    {
+                        var (worst, joints) = CarryOverMismatch(x, md);
+                        if (joints == 0 || worst > x.Review.AgreeTolerance) continue;
+                        evidence = $"The claimed joints are out of balance by the last carry-overs (to within {Moment(worst)}).";
+                    }
                     yield return new Hypothesis("stopped-early", 4, x.From(md.Moments),
                         string.Create(CultureInfo.InvariantCulture,
                             $"The claims match a moment distribution ({(modified ? "modified stiffness at pinned ends" : "plain stiffness")}) stopped after {k} cycle{(k == 1 ? "" : "s")}, {ending}. Carry the distribution on until the carry-overs are negligible."),
@@ -408,25 +420,26 @@ public sealed class Diagnoser
                 }
     }
 
-    /// <summary>Evidence for stopping after a carry-over: the claimed joints are out of balance by the last carry-overs.</summary>
-    private string JointResidualsMatchCarryOver(Context x, DistributionResult md)
+    /// <summary>How far the claimed joint unbalances are from the last carry-overs of a distribution, and over how many joints.</summary>
+    private static (double Worst, int Joints) CarryOverMismatch(Context x, DistributionResult md)
     {
         var last = md.NoSway.Rows.LastOrDefault(r => r.Step == DistributionStep.CarryOver);
-        if (last is null || md.Sway.Count > 0) return "";
+        if (last is null || md.Sway.Count > 0) return (0, 0);
+        var model = x.D._s.Model;
         var cols = md.NoSway.Columns.ToList();
         double worst = 0;
         int joints = 0;
-        foreach (var j in _s.Model.Joints.Where(j => !j.Restraint.HasFlag(Restraint.Rotation)))
+        foreach (var j in model.Joints.Where(j => !j.Restraint.HasFlag(Restraint.Rotation)))
         {
-            var at = _s.Model.MembersAt(j.Id).Select(m => (m.Id, m.EndAt(j.Id)!.Value)).ToList();
-            if (at.Count < 2 || !at.All(k => x.Keys.Contains(k))) continue;
+            var at = model.MembersAt(j.Id).Select(m => (m.Id, m.EndAt(j.Id)!.Value)).ToList();
+            if (!at.All(k => x.Keys.Contains(k))) continue;
             double claimedSum = at.Sum(k => x.Claimed[x.Keys.IndexOf(k)]);
             double coSum = at.Sum(k => last.Values[cols.IndexOf(k)] ?? 0);
             double applied = x.Case.Loads.OfType<JointCouple>().Where(l => l.Joint == j.Id).Sum(l => l.M);
             worst = Math.Max(worst, Math.Abs(claimedSum - applied - coSum));
             joints++;
         }
-        return joints == 0 ? "" : $"The claimed joints are out of balance by the last carry-overs (to within {Moment(worst)}).";
+        return (worst, joints);
     }
 
     // ---- loads, hinges, settlements -------------------------------------------------------------------
