@@ -8,13 +8,14 @@ namespace CrossCheck.Import;
 
 /// <summary>
 /// Reads unit symbols as engineers write them in calculation tables (<c>kNm</c>, <c>kip-ft</c>, <c>mm4</c>,
-/// <c>10^6 mm^4</c>, <c>N/mm²</c>, ...) and gives the factor to SI. The spellings engineers use that UnitsNet
-/// does not know are mapped here; conversion factors come from UnitsNet. Always invariant culture.
+/// <c>10^6 mm^4</c>, <c>N/mm²</c>, ...) and gives the factor to SI. The usual spellings are in a table of exact SI
+/// definitions here; anything else is parsed and converted by UnitsNet (loaded only then). Always invariant culture.
 /// </summary>
 public static partial class UnitReader
 {
-    private static readonly Dictionary<string, Enum> Aliases = BuildAliases();
-    private static readonly UnitParser Parser = new(UnitAbbreviationsCache.CreateDefault());
+    private static readonly Dictionary<string, (QuantityKind Kind, double ToSi)> Aliases = BuildAliases();
+    // Building UnitsNet's full abbreviation table takes a large share of a second: only for spellings not in Aliases.
+    private static readonly Lazy<UnitParser> Parser = new(() => new UnitParser(UnitAbbreviationsCache.CreateDefault()));
 
     private static readonly Dictionary<QuantityKind, (Type UnitType, Enum Si)> Kinds = new()
     {
@@ -57,19 +58,23 @@ public static partial class UnitReader
             raw = raw[m.Length..].Trim();
         }
         string norm = Normalize(raw);
-        var (unitType, si) = Kinds[kind];
-        Enum? unit = null;
-        if (Aliases.TryGetValue(norm, out var alias) && alias.GetType() == unitType) unit = alias;
-        else if (Parser.TryParse(norm, unitType, CultureInfo.InvariantCulture, out var parsed)) unit = parsed;
+        double factor;
+        if (Aliases.TryGetValue(norm, out var alias) && alias.Kind == kind) factor = alias.ToSi;
         else
         {
-            // Fall back to a case-insensitive alias when only one unit of this kind matches.
-            var matches = Aliases.Where(kv => kv.Value.GetType() == unitType && string.Equals(kv.Key, norm, StringComparison.OrdinalIgnoreCase))
-                .Select(kv => kv.Value).Distinct().ToList();
-            if (matches.Count == 1) unit = matches[0];
+            // Spellings of our own, case-insensitively when only one unit of this kind matches.
+            var matches = Aliases.Where(kv => kv.Value.Kind == kind && string.Equals(kv.Key, norm, StringComparison.OrdinalIgnoreCase))
+                .Select(kv => kv.Value.ToSi).Distinct().ToList();
+            if (matches.Count == 1) factor = matches[0];
+            else
+            {
+                var (unitType, si) = Kinds[kind];
+                if (!Parser.Value.TryParse(norm, unitType, CultureInfo.InvariantCulture, out var parsed)) return null;
+                // The quantity's own conversion (not the global UnitConverter, which registers every quantity on first use).
+                factor = Quantity.From(1.0, parsed).As(si);
+            }
         }
-        if (unit is null) return null;
-        double factor = UnitConverter.Convert(1.0, unit, si) * multiplier;
+        factor *= multiplier;
         string symbol = m.Success ? $"{m.Value.Trim()} {Pretty(raw)}" : Pretty(raw);
         return new UnitChoice(symbol, factor);
     }
@@ -109,69 +114,72 @@ public static partial class UnitReader
     [GeneratedRegex(@"^(?:[x×]\s*)?(?:10\s*\^\s*|10(?=[⁰¹²³⁴⁵⁶⁷⁸⁹])|1e)(?<exp>[+-]?\d+)\s*", RegexOptions.CultureInvariant)]
     private static partial Regex PowerPrefix();
 
-    private static Dictionary<string, Enum> BuildAliases()
+    private static Dictionary<string, (QuantityKind Kind, double ToSi)> BuildAliases()
     {
-        var d = new Dictionary<string, Enum>(StringComparer.Ordinal);
-        void Add(Enum unit, params string[] names) { foreach (var n in names) d[Normalize(n)] = unit; }
+        // Exact SI definitions (NIST SP 811, Appendix B): in = 0.0254 m, ft = 0.3048 m, lbf = 4.4482216152605 N,
+        // kgf = 9.80665 N. Kept here so that start-up need not load UnitsNet's full unit tables; UnitsNet reads
+        // any other spelling.
+        const double Lbf = 4.4482216152605, Kip = 1000 * Lbf, In = 0.0254, Ft = 0.3048, Tf = 9806.65;
+        var d = new Dictionary<string, (QuantityKind, double)>(StringComparer.Ordinal);
+        void Add(QuantityKind kind, double factor, params string[] names) { foreach (var n in names) d[Normalize(n)] = (kind, factor); }
         static string[] Products(string a, string b) =>
             [$"{a}·{b}", $"{a}{b}", $"{a}-{b}", $"{a}.{b}", $"{a}*{b}", $"{a} {b}"];
 
-        Add(TorqueUnit.NewtonMeter, Products("N", "m"));
-        Add(TorqueUnit.NewtonMillimeter, Products("N", "mm"));
-        Add(TorqueUnit.KilonewtonMeter, Products("kN", "m"));
-        Add(TorqueUnit.KilonewtonMillimeter, Products("kN", "mm"));
-        Add(TorqueUnit.MeganewtonMeter, Products("MN", "m"));
-        Add(TorqueUnit.KilopoundForceFoot, [.. Products("kip", "ft"), .. Products("k", "ft"), .. Products("ft", "kip"), .. Products("kips", "ft"), "kft"]);
-        Add(TorqueUnit.KilopoundForceInch, [.. Products("kip", "in"), .. Products("k", "in"), .. Products("in", "kip"), .. Products("kips", "in")]);
-        Add(TorqueUnit.PoundForceFoot, [.. Products("lb", "ft"), .. Products("lbf", "ft"), .. Products("ft", "lb")]);
-        Add(TorqueUnit.PoundForceInch, [.. Products("lb", "in"), .. Products("lbf", "in"), .. Products("in", "lb")]);
-        Add(TorqueUnit.TonneForceMeter, [.. Products("tf", "m"), .. Products("t", "m")]);
+        Add(QuantityKind.Moment, 1, Products("N", "m"));
+        Add(QuantityKind.Moment, 1e-3, Products("N", "mm"));
+        Add(QuantityKind.Moment, 1e3, Products("kN", "m"));
+        Add(QuantityKind.Moment, 1, Products("kN", "mm"));
+        Add(QuantityKind.Moment, 1e6, Products("MN", "m"));
+        Add(QuantityKind.Moment, Kip * Ft, [.. Products("kip", "ft"), .. Products("k", "ft"), .. Products("ft", "kip"), .. Products("kips", "ft"), "kft"]);
+        Add(QuantityKind.Moment, Kip * In, [.. Products("kip", "in"), .. Products("k", "in"), .. Products("in", "kip"), .. Products("kips", "in")]);
+        Add(QuantityKind.Moment, Lbf * Ft, [.. Products("lb", "ft"), .. Products("lbf", "ft"), .. Products("ft", "lb")]);
+        Add(QuantityKind.Moment, Lbf * In, [.. Products("lb", "in"), .. Products("lbf", "in"), .. Products("in", "lb")]);
+        Add(QuantityKind.Moment, Tf, [.. Products("tf", "m"), .. Products("t", "m")]);
 
-        Add(ForceUnit.Newton, "N");
-        Add(ForceUnit.Kilonewton, "kN");
-        Add(ForceUnit.Meganewton, "MN");
-        Add(ForceUnit.KilopoundForce, "kip", "kips", "k");
-        Add(ForceUnit.PoundForce, "lb", "lbf", "lbs");
-        Add(ForceUnit.TonneForce, "tf");
+        Add(QuantityKind.Force, 1, "N");
+        Add(QuantityKind.Force, 1e3, "kN");
+        Add(QuantityKind.Force, 1e6, "MN");
+        Add(QuantityKind.Force, Kip, "kip", "kips", "k");
+        Add(QuantityKind.Force, Lbf, "lb", "lbf", "lbs");
+        Add(QuantityKind.Force, Tf, "tf");
 
-        Add(LengthUnit.Meter, "m");
-        Add(LengthUnit.Millimeter, "mm");
-        Add(LengthUnit.Centimeter, "cm");
-        Add(LengthUnit.Foot, "ft", "'");
-        Add(LengthUnit.Inch, "in", "\"");
+        Add(QuantityKind.Length, 1, "m");
+        Add(QuantityKind.Length, 1e-3, "mm");
+        Add(QuantityKind.Length, 1e-2, "cm");
+        Add(QuantityKind.Length, Ft, "ft", "'");
+        Add(QuantityKind.Length, In, "in", "\"");
 
-        Add(ForcePerLengthUnit.NewtonPerMeter, "N/m");
-        Add(ForcePerLengthUnit.NewtonPerMillimeter, "N/mm");
-        Add(ForcePerLengthUnit.KilonewtonPerMeter, "kN/m");
-        Add(ForcePerLengthUnit.KilonewtonPerMillimeter, "kN/mm");
-        Add(ForcePerLengthUnit.KilopoundForcePerFoot, "kip/ft", "k/ft", "klf", "kips/ft");
-        Add(ForcePerLengthUnit.KilopoundForcePerInch, "kip/in", "k/in", "kips/in");
-        Add(ForcePerLengthUnit.PoundForcePerFoot, "lb/ft", "lbf/ft", "plf");
-        Add(ForcePerLengthUnit.PoundForcePerInch, "lb/in", "lbf/in", "pli");
+        Add(QuantityKind.ForcePerLength, 1, "N/m");
+        Add(QuantityKind.ForcePerLength, 1e3, "N/mm", "kN/m");
+        Add(QuantityKind.ForcePerLength, 1e6, "kN/mm");
+        Add(QuantityKind.ForcePerLength, Kip / Ft, "kip/ft", "k/ft", "klf", "kips/ft");
+        Add(QuantityKind.ForcePerLength, Kip / In, "kip/in", "k/in", "kips/in");
+        Add(QuantityKind.ForcePerLength, Lbf / Ft, "lb/ft", "lbf/ft", "plf");
+        Add(QuantityKind.ForcePerLength, Lbf / In, "lb/in", "lbf/in", "pli");
 
-        Add(PressureUnit.Pascal, "Pa", "N/m²");
-        Add(PressureUnit.Kilopascal, "kPa", "kN/m²");
-        Add(PressureUnit.Megapascal, "MPa", "N/mm²", "MN/m²");
-        Add(PressureUnit.Gigapascal, "GPa", "kN/mm²");
-        Add(PressureUnit.KilopoundForcePerSquareInch, "ksi", "kip/in²");
-        Add(PressureUnit.PoundForcePerSquareInch, "psi", "lb/in²");
-        Add(PressureUnit.KilopoundForcePerSquareFoot, "ksf", "kip/ft²");
+        Add(QuantityKind.Modulus, 1, "Pa", "N/m²");
+        Add(QuantityKind.Modulus, 1e3, "kPa", "kN/m²");
+        Add(QuantityKind.Modulus, 1e6, "MPa", "N/mm²", "MN/m²");
+        Add(QuantityKind.Modulus, 1e9, "GPa", "kN/mm²");
+        Add(QuantityKind.Modulus, Kip / (In * In), "ksi", "kip/in²");
+        Add(QuantityKind.Modulus, Lbf / (In * In), "psi", "lb/in²");
+        Add(QuantityKind.Modulus, Kip / (Ft * Ft), "ksf", "kip/ft²");
 
-        Add(AreaMomentOfInertiaUnit.MeterToTheFourth, "m⁴", "m4");
-        Add(AreaMomentOfInertiaUnit.CentimeterToTheFourth, "cm⁴", "cm4");
-        Add(AreaMomentOfInertiaUnit.MillimeterToTheFourth, "mm⁴", "mm4");
-        Add(AreaMomentOfInertiaUnit.InchToTheFourth, "in⁴", "in4");
-        Add(AreaMomentOfInertiaUnit.FootToTheFourth, "ft⁴", "ft4");
+        Add(QuantityKind.SecondMoment, 1, "m⁴", "m4");
+        Add(QuantityKind.SecondMoment, 1e-8, "cm⁴", "cm4");
+        Add(QuantityKind.SecondMoment, 1e-12, "mm⁴", "mm4");
+        Add(QuantityKind.SecondMoment, In * In * In * In, "in⁴", "in4");
+        Add(QuantityKind.SecondMoment, Ft * Ft * Ft * Ft, "ft⁴", "ft4");
 
-        Add(AreaUnit.SquareMeter, "m²", "m2");
-        Add(AreaUnit.SquareCentimeter, "cm²", "cm2");
-        Add(AreaUnit.SquareMillimeter, "mm²", "mm2");
-        Add(AreaUnit.SquareInch, "in²", "in2");
-        Add(AreaUnit.SquareFoot, "ft²", "ft2");
+        Add(QuantityKind.Area, 1, "m²", "m2");
+        Add(QuantityKind.Area, 1e-4, "cm²", "cm2");
+        Add(QuantityKind.Area, 1e-6, "mm²", "mm2");
+        Add(QuantityKind.Area, In * In, "in²", "in2");
+        Add(QuantityKind.Area, Ft * Ft, "ft²", "ft2");
 
-        Add(AngleUnit.Radian, "rad", "radian", "radians");
-        Add(AngleUnit.Milliradian, "mrad");
-        Add(AngleUnit.Degree, "deg", "°", "degree", "degrees");
+        Add(QuantityKind.Angle, 1, "rad", "radian", "radians");
+        Add(QuantityKind.Angle, 1e-3, "mrad");
+        Add(QuantityKind.Angle, Math.PI / 180, "deg", "°", "degree", "degrees");
         return d;
     }
 }
