@@ -29,19 +29,35 @@ public static class MemoRenderer
     public static string TemplateName(MemoFormat format) => format == MemoFormat.Html ? "memo.html.sbn" : "memo.md.sbn";
 
     /// <summary>Text of a shipped template.</summary>
-    public static string BuiltInTemplate(MemoFormat format)
+    public static string BuiltInTemplate(MemoFormat format) => BuiltInTemplate(TemplateName(format));
+
+    public static string Render(MemoModel model, MemoFormat format) => Render(model, BuiltInTemplate(format), TemplateName(format));
+
+    /// <exception cref="MemoTemplateException">The template has errors or refers to unknown names.</exception>
+    public static string Render(MemoModel model, string templateText, string templateName) => RenderObject(model, templateText, templateName);
+
+    /// <summary>Text of a shipped template by file name (<c>screen-index.html.sbn</c>).</summary>
+    internal static string BuiltInTemplate(string fileName)
     {
-        string name = "CrossCheck.Templates." + TemplateName(format);
+        string name = "CrossCheck.Templates." + fileName;
         using var stream = typeof(MemoRenderer).Assembly.GetManifestResourceStream(name)
             ?? throw new InvalidOperationException($"Template resource {name} is missing from the build.");
         using var reader = new StreamReader(stream);
         return reader.ReadToEnd();
     }
 
-    public static string Render(MemoModel model, MemoFormat format) => Render(model, BuiltInTemplate(format), TemplateName(format));
+    /// <summary>Checks that a template parses, without rendering it.</summary>
+    /// <exception cref="MemoTemplateException">It does not.</exception>
+    public static void Validate(string templateText, string templateName)
+    {
+        ArgumentNullException.ThrowIfNull(templateText);
+        var template = Template.Parse(templateText, templateName);
+        if (template.HasErrors)
+            throw new MemoTemplateException($"{templateName}: {string.Join("; ", template.Messages.Select(m => m.ToString()))}");
+    }
 
-    /// <exception cref="MemoTemplateException">The template has errors or refers to unknown names.</exception>
-    public static string Render(MemoModel model, string templateText, string templateName)
+    /// <summary>Renders any report model (memo, screening index) with the same safe settings.</summary>
+    internal static string RenderObject(object model, string templateText, string templateName)
     {
         ArgumentNullException.ThrowIfNull(model);
         ArgumentNullException.ThrowIfNull(templateText);
