@@ -139,8 +139,7 @@ internal static class ScreenCommand
                     ScreenOutcome.Revise => "red",
                     _ => "bold",
                 };
-                string rounds = r.Rounds is not { } c ? "" : c.Previous is null ? "first round"
-                    : string.Create(CultureInfo.InvariantCulture, $"{c.Closed.Count} closed, {c.Persisting.Count} persisting, {c.New.Count} new");
+                string rounds = ScreenOutputs.RoundsText(r.Rounds);
                 string what = r.Review is null ? r.ErrorText ?? "" : r.TopFinding + (r.Problem is null ? "" : $" ({r.Problem})");
                 table.AddRow(Markup.Escape(r.Name), $"[{colour}]{Markup.Escape(ScreenOutputs.OutcomeWord(r.Outcome))}[/]",
                     r.Review is null ? "" : r.Discrepant.ToString(CultureInfo.InvariantCulture), Markup.Escape(what),

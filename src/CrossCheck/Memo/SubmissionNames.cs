@@ -1,4 +1,3 @@
-using System.Text;
 using System.Text.RegularExpressions;
 
 namespace CrossCheck.Memo;
@@ -25,15 +24,14 @@ public static partial class SubmissionNames
     }
 
     /// <summary>
-    /// A file-name stem made only of ASCII letters, digits and <c>. _ + -</c>, not starting with a dot, at most 80
+    /// A file-name stem made only of letters, digits and <c>. _ + -</c>, not starting with a dot, at most 80
     /// characters, never empty and never a device name: <c>../../etc</c> becomes <c>etc</c>, <c>Hall B (rev 2)</c>
-    /// becomes <c>Hall_B_rev_2</c>.
+    /// becomes <c>Hall_B_rev_2</c>, <c>Überführung</c> stays as it is.
     /// </summary>
     public static string SafeStem(string name)
     {
         ArgumentNullException.ThrowIfNull(name);
-        string folded = Fold(name);
-        string s = UnsafeRun().Replace(folded, "_");
+        string s = UnsafeRun().Replace(name, "_");
         s = s.Trim('.', '_', '-', '+');
         s = DotRun().Replace(s, ".");
         if (s.Length > 80) s = s[..80].TrimEnd('.', '_', '-', '+');
@@ -60,16 +58,7 @@ public static partial class SubmissionNames
         return full;
     }
 
-    /// <summary>Drops accents so that <c>Überführung</c> keeps its letters (<c>Uberfuhrung</c>) instead of turning into underscores.</summary>
-    private static string Fold(string s)
-    {
-        var sb = new StringBuilder(s.Length);
-        foreach (char c in s.Normalize(NormalizationForm.FormD))
-            if (System.Globalization.CharUnicodeInfo.GetUnicodeCategory(c) != System.Globalization.UnicodeCategory.NonSpacingMark) sb.Append(c);
-        return sb.ToString();
-    }
-
-    [GeneratedRegex(@"[^A-Za-z0-9._+-]+")]
+    [GeneratedRegex(@"[^\p{L}\p{M}\p{Nd}._+-]+")]
     private static partial Regex UnsafeRun();
 
     [GeneratedRegex(@"\.{2,}")]

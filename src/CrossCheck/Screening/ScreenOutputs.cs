@@ -1,5 +1,6 @@
 using System.Globalization;
 using CrossCheck.Memo;
+using CrossCheck.Register;
 using CrossCheck.Review;
 
 namespace CrossCheck.Screening;
@@ -24,6 +25,16 @@ public static class ScreenOutputs
         ScreenOutcome.InputError => "Input error",
         _ => "Internal error",
     };
+
+    /// <summary><c>2 closed, 1 persisting, 1 new</c>, <c>first round</c>, and <c>(files unchanged)</c> for a repeat review; empty without a register.</summary>
+    public static string RoundsText(RoundComparison? c)
+    {
+        if (c is null) return "";
+        string unchanged = c.Repeat ? " (files unchanged)" : "";
+        return c.Previous is null
+            ? "first round" + unchanged
+            : string.Create(CultureInfo.InvariantCulture, $"{c.Closed.Count} closed, {c.Persisting.Count} persisting, {c.New.Count} new{unchanged}");
+    }
 
     public static string SummaryCsv(ScreenReport report)
     {
@@ -82,13 +93,10 @@ public sealed class ScreenIndexModel
     {
         var v = r.Review;
         string N(int? x) => x is int i ? i.ToString(CultureInfo.InvariantCulture) : "";
-        string rounds = r.Rounds is not { } c ? ""
-            : c.Previous is null ? "first round"
-            : string.Create(CultureInfo.InvariantCulture, $"{c.Closed.Count} closed, {c.Persisting.Count} persisting, {c.New.Count} new");
+        string rounds = ScreenOutputs.RoundsText(r.Rounds);
         return new ScreenIndexRow(
             r.Name,
             r.MemoFile is null ? "" : Uri.EscapeDataString(r.MemoFile),
-            r.Review is null ? "errors" : "memo",
             v?.Submission.Info.Title ?? "",
             r.Reference ?? "",
             v?.Submission.Info.Revision ?? "",
@@ -126,6 +134,5 @@ public sealed class ScreenIndexModel
 public sealed record ScreenIndexGroup(string Label, int Count, string Submissions, string Kind);
 
 /// <param name="Href">The memo's (or error list's) file name, URL-encoded; empty when none was written.</param>
-/// <param name="LinkText"><c>memo</c> or <c>errors</c>.</param>
-public sealed record ScreenIndexRow(string Name, string Href, string LinkText, string Title, string Reference, string Revision, string Round,
+public sealed record ScreenIndexRow(string Name, string Href, string Title, string Reference, string Revision, string Round,
     string Verdict, string VerdictCode, string Discrepant, string MajorFlags, string MinorFlags, string TopFinding, string Rounds, string Error);

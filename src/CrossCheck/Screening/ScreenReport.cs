@@ -56,8 +56,8 @@ public enum ScreenGroupKind
     Concur,
     Cause,
     Flag,
-    /// <summary>End-moment differences that no check of the claimed numbers explains.</summary>
-    Unexplained,
+    /// <summary>End moments that differ from the analysis or are missing, with no finding of the checks of the claimed numbers.</summary>
+    EndMoments,
     InputError,
     InternalError,
 }
@@ -70,7 +70,7 @@ public sealed record ScreenGroupKey(ScreenGroupKind Kind, string Code)
         ScreenGroupKind.Concur => "concur, nothing to answer",
         ScreenGroupKind.Cause => $"likely cause: {Code}",
         ScreenGroupKind.Flag => $"main finding: {Code}",
-        ScreenGroupKind.Unexplained => "end-moment differences no check of the claims explains",
+        ScreenGroupKind.EndMoments => $"end moments {Code}, no other finding",
         ScreenGroupKind.InputError => "could not be read or analysed",
         _ => "internal error",
     };
@@ -136,7 +136,11 @@ public static class ScreenGrouping
             .ThenByDescending(g => g.Count(f => f.Severity == g.Max(x => x.Severity)))
             .ThenBy(g => g.Key)
             .FirstOrDefault();
-        return main is not null ? new(ScreenGroupKind.Flag, main.Key.Json()) : new(ScreenGroupKind.Unexplained, "unexplained");
+        if (main is not null) return new(ScreenGroupKind.Flag, main.Key.Json());
+        var worstEnd = review.AllEndMoments.Where(e => e.Status != EndStatus.Agree)
+            .OrderByDescending(e => e.Status switch { EndStatus.Discrepant => 3, EndStatus.Missing => 2, EndStatus.Unmatched => 1, _ => 0 })
+            .Select(e => e.Status.Json()).FirstOrDefault();
+        return new(ScreenGroupKind.EndMoments, worstEnd ?? "differ");
     }
 
     public static IReadOnlyList<ScreenGroup> Groups(IEnumerable<ScreenRow> rows) =>
