@@ -77,6 +77,11 @@ internal static class ScreenCommand
         string full = Path.TrimEndingDirectorySeparator(Path.GetFullPath(folder));
         string name = Path.GetFileName(full) is { Length: > 0 } n ? n : "submissions";
         outDir ??= $"{SubmissionNames.SafeStem(name)}-screen";
+        if (string.Equals(Path.TrimEndingDirectorySeparator(Path.GetFullPath(outDir)), full, StringComparison.Ordinal))
+        {
+            io.Error.WriteLine("crosscheck: --out must not be the folder screened (its summary.csv would be taken for a submission next time).");
+            return ExitCodes.InputError;
+        }
         if (!noRegister) registerPath ??= Path.Combine(Path.GetDirectoryName(full) ?? full, ReviewRegister.DefaultFileName);
         var options = new ScreenOptions(review, outDir, format == "md" ? MemoFormat.Markdown : MemoFormat.Html, jobs, registerPath, template);
 

@@ -34,12 +34,15 @@ public static class Screener
     /// <exception cref="DirectoryNotFoundException">The folder does not exist.</exception>
     /// <exception cref="RegisterException">The register cannot be opened.</exception>
     /// <exception cref="IOException">The output folder cannot be created or the summary cannot be written.</exception>
+    /// <exception cref="ArgumentException">The output folder is the folder screened.</exception>
     public static ScreenReport Run(string folder, ScreenOptions options, IScreenProgress? progress = null, CancellationToken cancel = default)
     {
         ArgumentNullException.ThrowIfNull(folder);
         ArgumentNullException.ThrowIfNull(options);
         var clock = Stopwatch.StartNew();
         string outDir = Path.TrimEndingDirectorySeparator(Path.GetFullPath(options.OutputFolder));
+        if (string.Equals(outDir, Path.TrimEndingDirectorySeparator(Path.GetFullPath(folder)), StringComparison.Ordinal))
+            throw new ArgumentException("the output folder must not be the folder screened (its summary.csv would be taken for a submission next time).", nameof(options));
         var exclude = new List<string> { outDir };
         if (options.RegisterPath is not null) exclude.Add(options.RegisterPath);
         var found = SubmissionFinder.Find(folder, exclude);

@@ -153,6 +153,11 @@ public partial class BatchScreenTests
         var reg = CliRunner.Run("screen", Path.Combine(t.Folder, "subs"), "--register", notRegister, "--out", Path.Combine(t.Folder, "out"));
         reg.ExitCode.ShouldBe(ExitCodes.InputError);
         reg.Err.ShouldContain("not a CrossCheck review register");
+        var same = CliRunner.Run("screen", Path.Combine(t.Folder, "subs"), "--out", Path.Combine(t.Folder, "subs"), "--no-register");
+        same.ExitCode.ShouldBe(ExitCodes.InputError);
+        same.Err.ShouldContain("must not be the folder screened");
+        var jobs = CliRunner.Run("screen", Path.Combine(t.Folder, "subs"), "--jobs", "-1");
+        jobs.ExitCode.ShouldBe(ExitCodes.InputError);
     }
 
     [GeneratedRegex("<a href=\"([^\"]+)\">")]
