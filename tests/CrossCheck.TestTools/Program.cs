@@ -89,6 +89,9 @@ static int TimeScreen(int n, int seed)
                 var sw = Stopwatch.StartNew();
                 var report = Screener.Run(subs, new ScreenOptions(options, Path.Combine(root, tag), Parallelism: jobs, RegisterPath: Path.Combine(root, tag + ".db")));
                 times[jobs].Add(sw.Elapsed.TotalSeconds);
+                var st = report.Stages;
+                Console.WriteLine($"  jobs {jobs}: {sw.Elapsed.TotalSeconds.ToString("0.000", inv)} s = review {st.Review.TotalSeconds.ToString("0.000", inv)} + register " +
+                                  $"{st.Register.TotalSeconds.ToString("0.000", inv)} + memos {st.Memos.TotalSeconds.ToString("0.000", inv)} + summary {st.Summary.TotalSeconds.ToString("0.000", inv)}");
                 if (report.Rows.Count != batch.Count) throw new InvalidOperationException("rows missing");
             }
         foreach (var (jobs, list) in times)

@@ -105,7 +105,13 @@ public sealed record ScreenReport(
     public ScreenOutcome Worst => Rows.Count == 0 ? ScreenOutcome.Concur : Rows.Max(r => r.Outcome);
 
     public double SubmissionsPerSecond => Elapsed.TotalSeconds > 0 ? Rows.Count / Elapsed.TotalSeconds : 0;
+
+    /// <summary>How long each stage took.</summary>
+    public ScreenStages Stages { get; init; } = new(TimeSpan.Zero, TimeSpan.Zero, TimeSpan.Zero, TimeSpan.Zero);
 }
+
+/// <summary>Wall-clock time of each stage of a screen: reviewing (parallel), recording in the register (one at a time), memos (parallel), summary and index.</summary>
+public sealed record ScreenStages(TimeSpan Review, TimeSpan Register, TimeSpan Memos, TimeSpan Summary);
 
 /// <summary>How a screen runs.</summary>
 /// <param name="Review">Tolerances, reviewer and date for every review.</param>

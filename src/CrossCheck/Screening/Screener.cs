@@ -54,6 +54,9 @@ public static class Screener
         int reviewed = 0, written = 0;
         lock (gate) progress?.Begin(items.Count);
 
+        var stage = Stopwatch.StartNew();
+        var timings = new List<TimeSpan>();
+
         // 1. Review every submission, in parallel.
         var reviews = new Reviewed[items.Count];
         var parallel = new ParallelOptions { MaxDegreeOfParallelism = parallelism, CancellationToken = cancel };
@@ -62,6 +65,9 @@ public static class Screener
             reviews[i] = ReviewOne(items[i], options.Review);
             lock (gate) progress?.Reviewed(items[i], reviews[i].Outcome, ++reviewed);
         });
+
+        timings.Add(stage.Elapsed);
+        stage.Restart();
 
         // 2. The key each one's rounds are tracked by; a reference several submissions share is qualified by their names.
         var notes = new List<string>(found.Skipped);
@@ -92,6 +98,9 @@ public static class Screener
                 }
             }
 
+        timings.Add(stage.Elapsed);
+        stage.Restart();
+
         // 4. Memos (or the list of input errors), in parallel.
         var rows = new ScreenRow[items.Count];
         Parallel.For(0, items.Count, parallel, i =>
@@ -100,12 +109,14 @@ public static class Screener
             lock (gate) progress?.Written(rows[i], ++written);
         });
 
+        timings.Add(stage.Elapsed);
+        stage.Restart();
         var ordered = rows.OrderByDescending(r => r.Outcome).ThenBy(r => r.Name, StringComparer.Ordinal).ToList();
         var report = new ScreenReport(Path.GetFullPath(folder), outDir, register?.Path, options, ordered, ScreenGrouping.Groups(ordered), notes,
             clock.Elapsed, parallelism);
         AtomicFile.WriteText(SubmissionNames.ChildPath(outDir, SummaryFile), ScreenOutputs.SummaryCsv(report));
         AtomicFile.WriteText(SubmissionNames.ChildPath(outDir, IndexFile), ScreenOutputs.IndexHtml(report));
-        return report with { Elapsed = clock.Elapsed };
+        return report with { Elapsed = clock.Elapsed, Stages = new ScreenStages(timings[0], timings[1], timings[2], stage.Elapsed) };
     }
 
     private sealed record Reviewed(ReviewOutcome? Review, string? Hash, string? Fault)
