@@ -2,6 +2,7 @@ using CrossCheck.Analysis;
 using CrossCheck.Import;
 using CrossCheck.Memo;
 using CrossCheck.Model;
+using CrossCheck.Review;
 using Spectre.Console;
 
 namespace CrossCheck.Cli.Commands;
@@ -20,6 +21,19 @@ internal static class CommandSupport
         io.Error.WriteLine($"crosscheck: '{path}' could not be read ({errors.Count} problem{(errors.Count == 1 ? "" : "s")}):");
         foreach (var e in errors) io.Error.WriteLine($"  {e.Where.Compact}: {e.Message}");
         return null;
+    }
+
+    /// <summary>Prints why a submission has no review: the input problems, or why its structure cannot be analysed.</summary>
+    public static void ReportErrors(string path, ReviewOutcome outcome, CliIo io)
+    {
+        var errors = outcome.Errors;
+        if (outcome.StructureProblem is { } problem)
+        {
+            io.Error.WriteLine($"crosscheck: '{path}' cannot be analysed: {problem}");
+            return;
+        }
+        io.Error.WriteLine($"crosscheck: '{path}' could not be read ({errors.Count} problem{(errors.Count == 1 ? "" : "s")}):");
+        foreach (var e in errors) io.Error.WriteLine($"  {e.Where.Compact}: {e.Message}");
     }
 
     /// <summary>Solves; on a structural problem (mechanism, ...) prints it and returns null.</summary>

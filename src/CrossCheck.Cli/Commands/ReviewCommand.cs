@@ -1,15 +1,14 @@
 using System.CommandLine;
-using System.Globalization;
-using System.Text.RegularExpressions;
 using CrossCheck.Import;
 using CrossCheck.Memo;
+using CrossCheck.Register;
 using CrossCheck.Review;
 using Spectre.Console;
 
 namespace CrossCheck.Cli.Commands;
 
 /// <summary><c>crosscheck review SUBMISSION</c>: the main job — compare, check, and write the memo.</summary>
-internal static partial class ReviewCommand
+internal static class ReviewCommand
 {
     public static Command Create(CliIo io)
     {
@@ -18,25 +17,30 @@ internal static partial class ReviewCommand
         format.AcceptOnlyFromAmong("md", "html", "pdf", "json");
         var output = new Option<string?>("--out", "-o") { Description = "Where to write the memo (default: <submission>-review.<format> in the current folder; json goes to standard output)." };
         var template = new Option<string?>("--template") { Description = "A Scriban template of your own for the md or html memo (html templates also serve pdf)." };
-        var reviewer = new Option<string?>("--reviewer") { Description = "Name of the checking engineer, printed in the memo." };
-        var date = new Option<string?>("--date") { Description = "Review date (yyyy-mm-dd); default today." };
-        var rel = new Option<double>("--tolerance") { Description = "Agreement band as a fraction of the case's peak moment.", DefaultValueFactory = _ => 0.01 };
-        var abs = new Option<double>("--abs-tolerance") { Description = "Agreement floor in the submission's moment unit.", DefaultValueFactory = _ => 0.1 };
-        var minor = new Option<double>("--minor-tolerance") { Description = "Differences up to this fraction of the peak are minor; beyond, discrepant.", DefaultValueFactory = _ => 0.05 };
+        var settings = new ReviewSettings();
         var quiet = new Option<bool>("--quiet", "-q") { Description = "Print no summary." };
+        var register = new Option<string?>("--register") { Description = "Record the review in this register file and compare it with the previous round of the same reference." };
         var working = new Option<bool>("--show-working") { Description = "Add CrossCheck's own moment-distribution working table to the memo." };
         var cmd = new Command("review", "Recompute the end moments, check the claimed numbers, and write a review memo.")
         {
-            submission, format, output, template, reviewer, date, rel, abs, minor, quiet, working,
+            submission, format, output, template,
         };
-        cmd.SetAction(pr => Run(new Request(
-            pr.GetValue(submission)!, pr.GetValue(format)!, pr.GetValue(output), pr.GetValue(template), pr.GetValue(reviewer), pr.GetValue(date),
-            pr.GetValue(rel), pr.GetValue(abs), pr.GetValue(minor), pr.GetValue(quiet), pr.GetValue(working)), io));
+        settings.AddTo(cmd);
+        cmd.Add(quiet);
+        cmd.Add(register);
+        cmd.Add(working);
+        cmd.SetAction(pr =>
+        {
+            var options = settings.Read(pr, io);
+            if (options is null) return ExitCodes.InputError;
+            options = options with { ShowWorking = pr.GetValue(working) };
+            return Run(new Request(pr.GetValue(submission)!, pr.GetValue(format)!, pr.GetValue(output), pr.GetValue(template), options,
+                pr.GetValue(quiet), pr.GetValue(register)), io);
+        });
         return cmd;
     }
 
-    private sealed record Request(string Path, string Format, string? Out, string? Template, string? Reviewer, string? Date,
-        double Relative, double Absolute, double Minor, bool Quiet, bool ShowWorking);
+    private sealed record Request(string Path, string Format, string? Out, string? Template, ReviewOptions Options, bool Quiet, string? Register);
 
     private static int Run(Request r, CliIo io)
     {
@@ -48,54 +52,52 @@ internal static partial class ReviewCommand
             io.Error.WriteLine($"crosscheck: {PdfPrinter.MissingBrowserMessage}");
             return ExitCodes.InputError;
         }
-        if (!(r.Relative >= 0) || !(r.Absolute >= 0) || !(r.Minor >= r.Relative))
-        {
-            io.Error.WriteLine("crosscheck: tolerances must be non-negative and --minor-tolerance must not be below --tolerance.");
-            return ExitCodes.InputError;
-        }
-        DateOnly? date = null;
-        if (r.Date is not null)
-        {
-            if (!DateOnly.TryParseExact(r.Date, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out var d))
-            {
-                io.Error.WriteLine($"crosscheck: --date '{r.Date}' is not a date of the form yyyy-mm-dd.");
-                return ExitCodes.InputError;
-            }
-            date = d;
-        }
         string? templateText = null;
         if (r.Template is not null)
         {
             if (json) { io.Error.WriteLine("crosscheck: --template applies to md and html memos, not json."); return ExitCodes.InputError; }
             if (!File.Exists(r.Template)) { io.Error.WriteLine($"crosscheck: template '{r.Template}' does not exist."); return ExitCodes.InputError; }
             templateText = File.ReadAllText(r.Template);
+            try
+            {
+                MemoRenderer.Validate(templateText, r.Template);
+            }
+            catch (MemoTemplateException ex)
+            {
+                io.Error.WriteLine($"crosscheck: the memo template has an error: {ex.Message}");
+                return ExitCodes.InputError;
+            }
         }
 
-        var imported = SubmissionReader.Read(r.Path);
-        if (!imported.Succeeded)
+        var outcome = ReviewPipeline.Run(r.Path, r.Options);
+        foreach (var w in outcome.Warnings) io.Error.WriteLine($"warning: {w}");
+        if (outcome.Review is not { } review)
         {
-            var errors = imported.Errors.ToList();
-            if (json) CommandSupport.Emit(r.Out, ReviewJson.WriteInputErrors(r.Path, errors), io, announce: r.Out is not null);
-            io.Error.WriteLine($"crosscheck: '{r.Path}' could not be read ({errors.Count} problem{(errors.Count == 1 ? "" : "s")}):");
-            foreach (var e in errors) io.Error.WriteLine($"  {e.Where.Compact}: {e.Message}");
+            if (json) CommandSupport.Emit(r.Out, ReviewJson.WriteInputErrors(r.Path, outcome.Errors), io, announce: r.Out is not null);
+            CommandSupport.ReportErrors(r.Path, outcome, io);
             return ExitCodes.InputError;
         }
-        var s = imported.Submission!;
-        foreach (var w in imported.Warnings) io.Error.WriteLine($"warning: {w}");
-        if (!new Analysis.FrameSolver().TrySolve(s.Model, s.Cases, out var analysis, out var problem))
+
+        RoundComparison? rounds = null;
+        if (r.Register is not null)
         {
-            var p = new InputProblem(new Model.SourceRef(System.IO.Path.GetFileName(System.IO.Path.TrimEndingDirectorySeparator(r.Path))), problem!.Message);
-            if (json) CommandSupport.Emit(r.Out, ReviewJson.WriteInputErrors(r.Path, [p]), io, announce: r.Out is not null);
-            io.Error.WriteLine($"crosscheck: '{r.Path}' cannot be analysed: {problem.Message}");
-            return ExitCodes.InputError;
+            try
+            {
+                using var register = ReviewRegister.Open(r.Register);
+                rounds = register.Record(review, review.ReferenceOr(SubmissionNames.BaseName(r.Path)), SubmissionNames.DisplayName(r.Path),
+                    InputHash.Compute(r.Path));
+            }
+            catch (RegisterException ex)
+            {
+                io.Error.WriteLine($"crosscheck: {ex.Message}");
+                return ExitCodes.InputError;
+            }
         }
-        var options = new ReviewOptions(r.Absolute, r.Relative, r.Minor, r.Reviewer, date, ShowWorking: r.ShowWorking);
-        var review = ReviewEngine.Review(s, analysis!, options, imported.Warnings.Select(w => w.ToString()));
 
         string content;
         try
         {
-            content = json ? ReviewJson.Write(review) : RenderMemo(review, r.Format is "html" or "pdf" ? MemoFormat.Html : MemoFormat.Markdown, templateText, r.Template);
+            content = json ? ReviewJson.Write(review, rounds) : RenderMemo(review, r.Format is "html" or "pdf" ? MemoFormat.Html : MemoFormat.Markdown, templateText, r.Template, rounds);
         }
         catch (MemoTemplateException ex)
         {
@@ -115,29 +117,24 @@ internal static partial class ReviewCommand
                 return ExitCodes.InputError;
             }
         }
-        else CommandSupport.Emit(target, content, io, announce: false);
-        if (!r.Quiet && !(json && target is null)) PrintSummary(review, target, io);
+        else
+        {
+            CommandSupport.Emit(target, content, io, announce: false);
+        }
+        if (!r.Quiet && !(json && target is null)) PrintSummary(review, rounds, target, io);
         return review.Verdict == Verdict.Concur ? ExitCodes.Concur : ExitCodes.Comments;
     }
 
-    internal static string RenderMemo(ReviewResult review, MemoFormat format, string? templateText, string? templateName)
+    internal static string RenderMemo(ReviewResult review, MemoFormat format, string? templateText, string? templateName, RoundComparison? rounds = null)
     {
-        var model = MemoExtensions.Build(review, format);
+        var model = MemoExtensions.Build(review, format, rounds);
         return templateText is null ? MemoRenderer.Render(model, format) : MemoRenderer.Render(model, templateText, templateName ?? "template");
     }
 
-    private static string DefaultMemoPath(string submission, string format)
-    {
-        string name = System.IO.Path.GetFileNameWithoutExtension(System.IO.Path.TrimEndingDirectorySeparator(submission));
-        name = UnsafeName().Replace(name, "_").Trim('.', '_');
-        if (name.Length == 0) name = "submission";
-        return $"{name}-review.{format}";
-    }
+    private static string DefaultMemoPath(string submission, string format) =>
+        $"{SubmissionNames.SafeStem(SubmissionNames.BaseName(submission))}-review.{format}";
 
-    [GeneratedRegex(@"[^A-Za-z0-9._+-]+")]
-    private static partial Regex UnsafeName();
-
-    private static void PrintSummary(ReviewResult review, string? memoPath, CliIo io)
+    private static void PrintSummary(ReviewResult review, RoundComparison? rounds, string? memoPath, CliIo io)
     {
         var console = CommandSupport.Console(io);
         var s = review.Submission;
@@ -167,6 +164,13 @@ internal static partial class ReviewCommand
             console.MarkupLine($"  [{(f.Severity == Severity.Major ? "red" : "yellow")}]{f.Severity.Json()}[/] {Markup.Escape(f.Kind.Json())}, {Markup.Escape(f.Where)}");
         int more = review.AllFlags.Count(f => f.Severity != Severity.Info) - 8;
         if (more > 0) console.MarkupLine($"  ... and {more} more in the memo");
+        if (rounds is not null) console.MarkupLine(Markup.Escape(RoundsLine(rounds)));
         if (memoPath is not null) console.MarkupLine($"memo: {Markup.Escape(memoPath)}");
     }
+
+    /// <summary>One line about the register round: <c>register: round 2 of DEMO-FB-01 — 2 closed, 1 persisting, 1 new (against round 1)</c>.</summary>
+    internal static string RoundsLine(RoundComparison c) =>
+        c.Previous is null
+            ? $"register: round {c.Review.Round} of {c.Review.Reference} (first round{(c.Repeat ? ", repeat review" : "")})"
+            : $"register: round {c.Review.Round} of {c.Review.Reference}{(c.Repeat ? " (repeat review)" : "")} — {c.Closed.Count} closed, {c.Persisting.Count} persisting, {c.New.Count} new against round {c.Previous.Round}";
 }

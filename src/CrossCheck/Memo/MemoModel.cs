@@ -129,6 +129,9 @@ public sealed class MemoModel
     public int ReactionClaimCount { get; }
     public int DisplacementClaimCount { get; }
 
+    /// <summary>The comparison with the previous round when the review was recorded in a register (else <see cref="MemoRounds.None"/>).</summary>
+    public MemoRounds Rounds { get; init; } = MemoRounds.None;
+
     /// <summary>Extra sections later stages add (diagrams, working tables), as pre-rendered blocks by format.</summary>
     public IReadOnlyList<MemoAppendix> Appendices { get; init; } = [];
 

@@ -29,25 +29,55 @@ public static class MemoRenderer
     public static string TemplateName(MemoFormat format) => format == MemoFormat.Html ? "memo.html.sbn" : "memo.md.sbn";
 
     /// <summary>Text of a shipped template.</summary>
-    public static string BuiltInTemplate(MemoFormat format)
+    public static string BuiltInTemplate(MemoFormat format) => BuiltInTemplate(TemplateName(format));
+
+    public static string Render(MemoModel model, MemoFormat format) => Render(model, BuiltInTemplate(format), TemplateName(format));
+
+    /// <exception cref="MemoTemplateException">The template has errors or refers to unknown names.</exception>
+    public static string Render(MemoModel model, string templateText, string templateName) => RenderObject(model, templateText, templateName);
+
+    /// <summary>Text of a shipped template by file name (<c>screen-index.html.sbn</c>).</summary>
+    internal static string BuiltInTemplate(string fileName)
     {
-        string name = "CrossCheck.Templates." + TemplateName(format);
+        string name = "CrossCheck.Templates." + fileName;
         using var stream = typeof(MemoRenderer).Assembly.GetManifestResourceStream(name)
             ?? throw new InvalidOperationException($"Template resource {name} is missing from the build.");
         using var reader = new StreamReader(stream);
         return reader.ReadToEnd();
     }
 
-    public static string Render(MemoModel model, MemoFormat format) => Render(model, BuiltInTemplate(format), TemplateName(format));
-
-    /// <exception cref="MemoTemplateException">The template has errors or refers to unknown names.</exception>
-    public static string Render(MemoModel model, string templateText, string templateName)
+    /// <summary>Checks that a template parses, without rendering it.</summary>
+    /// <exception cref="MemoTemplateException">It does not.</exception>
+    public static void Validate(string templateText, string templateName)
     {
-        ArgumentNullException.ThrowIfNull(model);
         ArgumentNullException.ThrowIfNull(templateText);
         var template = Template.Parse(templateText, templateName);
         if (template.HasErrors)
             throw new MemoTemplateException($"{templateName}: {string.Join("; ", template.Messages.Select(m => m.ToString()))}");
+    }
+
+    // Parsing a memo template costs more than rendering it; a batch renders the same one hundreds of times. Each
+    // thread keeps its own parsed copies, so no parsed template is ever shared between threads.
+    private static readonly ThreadLocal<Dictionary<(string Name, string Text), Template>> ParsedByThread = new(() => []);
+
+    private static Template Parsed(string templateText, string templateName)
+    {
+        var cache = ParsedByThread.Value!;
+        if (cache.TryGetValue((templateName, templateText), out var cached)) return cached;
+        var template = Template.Parse(templateText, templateName);
+        if (template.HasErrors)
+            throw new MemoTemplateException($"{templateName}: {string.Join("; ", template.Messages.Select(m => m.ToString()))}");
+        if (cache.Count >= 16) cache.Clear();
+        cache[(templateName, templateText)] = template;
+        return template;
+    }
+
+    /// <summary>Renders any report model (memo, screening index) with the same safe settings.</summary>
+    internal static string RenderObject(object model, string templateText, string templateName)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        ArgumentNullException.ThrowIfNull(templateText);
+        var template = Parsed(templateText, templateName);
         var context = new TemplateContext
         {
             StrictVariables = true,

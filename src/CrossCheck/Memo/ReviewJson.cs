@@ -1,6 +1,7 @@
 using System.Text.Json;
 using CrossCheck.Import;
 using CrossCheck.Model;
+using CrossCheck.Register;
 using CrossCheck.Review;
 
 namespace CrossCheck.Memo;
@@ -10,7 +11,12 @@ public static class ReviewJson
 {
     public const string Schema = "crosscheck-review/1";
 
-    public static string Write(ReviewResult review)
+    public static string Write(ReviewResult review) => Write(review, null);
+
+    /// <param name="review">The review.</param>
+    /// <param name="rounds">When the review was recorded in a register: adds a <c>register</c> object (round, previous round, and the
+    /// ids of the comments closed, persisting and new against it).</param>
+    public static string Write(ReviewResult review, RoundComparison? rounds)
     {
         ArgumentNullException.ThrowIfNull(review);
         var s = review.Submission;
@@ -124,7 +130,22 @@ public static class ReviewJson
             inputWarnings = review.InputWarnings,
             inputErrors = Array.Empty<object>(),
         };
-        return JsonSerializer.Serialize(doc, SolveReport.JsonOptions) + "\n";
+        if (rounds is null) return JsonSerializer.Serialize(doc, SolveReport.JsonOptions) + "\n";
+        var node = JsonSerializer.SerializeToNode(doc, SolveReport.JsonOptions)!.AsObject();
+        node["register"] = JsonSerializer.SerializeToNode(new
+        {
+            reference = rounds.Review.Reference,
+            round = rounds.Review.Round,
+            repeat = rounds.Repeat,
+            inputHash = rounds.Review.InputHash,
+            previousRound = rounds.Previous?.Round,
+            previousDate = rounds.Previous?.ReviewDate,
+            previousVerdict = rounds.Previous?.Verdict,
+            closed = rounds.Closed.Select(c => c.Id),
+            persisting = rounds.Persisting.Select(c => c.Id),
+            @new = rounds.New.Select(c => c.Id),
+        }, SolveReport.JsonOptions);
+        return node.ToJsonString(SolveReport.JsonOptions) + "\n";
     }
 
     /// <summary>The JSON for a submission that could not be read: verdict null and the input errors.</summary>

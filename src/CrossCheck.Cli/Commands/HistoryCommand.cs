@@ -1,0 +1,142 @@
+using System.CommandLine;
+using System.Globalization;
+using CrossCheck.Register;
+using Spectre.Console;
+
+namespace CrossCheck.Cli.Commands;
+
+/// <summary>
+/// <c>crosscheck history [REFERENCE]</c>: the rounds of one reference in the register (or every reference), and
+/// the register's maintenance commands (<c>crosscheck register export|check</c>).
+/// </summary>
+internal static class HistoryCommand
+{
+    public static Command Create(CliIo io)
+    {
+        var reference = new Argument<string?>("reference") { Description = "The submission reference (or name, when it states none). Without it: every reference.", Arity = ArgumentArity.ZeroOrOne };
+        var register = RegisterOption();
+        var cmd = new Command("history", "Print the review rounds of a reference from the register: verdicts, and the comments closed, persisting and new in each.")
+        {
+            reference, register,
+        };
+        cmd.SetAction(pr => Run(pr.GetValue(reference), pr.GetValue(register)!, io));
+        return cmd;
+    }
+
+    public static Command CreateRegister(CliIo io)
+    {
+        var register = RegisterOption();
+        var findings = new Option<bool>("--findings") { Description = "One row per finding (with its review) instead of one row per review." };
+        var output = new Option<string?>("--out", "-o") { Description = "Write to this file instead of standard output." };
+        var export = new Command("export", "Export the register as CSV.") { register, findings, output };
+        export.SetAction(pr => Export(pr.GetValue(register)!, pr.GetValue(findings), pr.GetValue(output), io));
+
+        var register2 = RegisterOption();
+        var check = new Command("check", "Check the register file: SQLite integrity, every review's findings complete, rounds without gaps.") { register2 };
+        check.SetAction(pr => Check(pr.GetValue(register2)!, io));
+
+        return new Command("register", "Work with the review register file (export it, check it).") { export, check };
+    }
+
+    private static Option<string> RegisterOption() => new("--register")
+    {
+        Description = $"The register file (default: {ReviewRegister.DefaultFileName} in the current folder).",
+        DefaultValueFactory = _ => ReviewRegister.DefaultFileName,
+    };
+
+    private static ReviewRegister? OpenExisting(string path, CliIo io)
+    {
+        if (!File.Exists(path))
+        {
+            io.Error.WriteLine($"crosscheck: there is no register at '{path}' ('crosscheck screen' and 'crosscheck review --register' create one).");
+            return null;
+        }
+        try
+        {
+            return ReviewRegister.Open(path);
+        }
+        catch (RegisterException ex)
+        {
+            io.Error.WriteLine($"crosscheck: {ex.Message}");
+            return null;
+        }
+    }
+
+    private static int Run(string? reference, string path, CliIo io)
+    {
+        using var register = OpenExisting(path, io);
+        if (register is null) return ExitCodes.InputError;
+        var console = CommandSupport.Console(io);
+        if (reference is null)
+        {
+            var refs = register.References();
+            if (refs.Count == 0) { console.WriteLine("The register holds no reviews yet."); return ExitCodes.Concur; }
+            var t = new Table().Border(TableBorder.Simple);
+            foreach (var h in new[] { "reference", "rounds", "reviews", "latest round", "date", "verdict", "open comments" }) t.AddColumn(h);
+            foreach (var r in refs)
+                t.AddRow(Markup.Escape(r.Reference), N(r.Rounds), N(r.Reviews), N(r.Latest.Round), Markup.Escape(r.Latest.ReviewDate),
+                    Markup.Escape(r.Latest.Verdict), N(r.Latest.FindingCount));
+            console.Write(t);
+            return ExitCodes.Concur;
+        }
+
+        var history = register.History(reference);
+        if (history.Count == 0)
+        {
+            io.Error.WriteLine($"crosscheck: the register '{path}' has no reviews of reference '{reference}' (run 'crosscheck history' for the list).");
+            return ExitCodes.InputError;
+        }
+        console.MarkupLine($"[bold]{Markup.Escape(reference)}[/]: {history.Select(h => h.Review.Round).Distinct().Count()} round(s), {history.Count} review(s)");
+        var table = new Table().Border(TableBorder.Simple);
+        foreach (var h in new[] { "round", "revision", "date", "reviewer", "verdict", "discrepant ends", "comments", "closed", "persisting", "new", "tool", "input" })
+            table.AddColumn(h);
+        foreach (var h in history)
+        {
+            var r = h.Review;
+            bool first = h.Previous is null;
+            table.AddRow(N(r.Round) + (h.Repeat ? " (repeat)" : ""), Markup.Escape(r.Revision ?? "—"), Markup.Escape(r.ReviewDate), Markup.Escape(r.Reviewer ?? "—"),
+                Markup.Escape(r.Verdict), N(r.EndsDiscrepant), N(r.FindingCount), first ? "—" : N(h.Closed.Count), first ? "—" : N(h.Persisting.Count),
+                first ? "—" : N(h.New.Count), Markup.Escape(r.ToolVersion), Markup.Escape(Short(r.InputHash)));
+        }
+        console.Write(table);
+        foreach (var h in history)
+        {
+            string head = $"round {h.Review.Round}{(h.Repeat ? " (repeat)" : "")}";
+            if (h.Previous is null)
+            {
+                console.WriteLine($"{head}: raised {Ids(h.New)}");
+                continue;
+            }
+            console.WriteLine($"{head} against round {h.Previous.Round}: closed {Ids(h.Closed)}; persisting {Ids(h.Persisting)}; new {Ids(h.New)}");
+        }
+        return ExitCodes.Concur;
+    }
+
+    private static int Export(string path, bool findings, string? outPath, CliIo io)
+    {
+        using var register = OpenExisting(path, io);
+        if (register is null) return ExitCodes.InputError;
+        CommandSupport.Emit(outPath, findings ? register.ExportFindingsCsv() : register.ExportReviewsCsv(), io);
+        return ExitCodes.Concur;
+    }
+
+    private static int Check(string path, CliIo io)
+    {
+        using var register = OpenExisting(path, io);
+        if (register is null) return ExitCodes.InputError;
+        var problems = register.Check();
+        if (problems.Count == 0)
+        {
+            io.Output.WriteLine($"{register.Path}: sound (schema version {register.SchemaVersion}, {register.Reviews().Count} reviews).");
+            return ExitCodes.Concur;
+        }
+        foreach (var p in problems) io.Output.WriteLine($"{register.Path}: {p}");
+        return ExitCodes.Comments;
+    }
+
+    private static string Ids(IReadOnlyList<ComparedComment> list) => list.Count == 0 ? "none" : string.Join(", ", list.Select(c => c.Id));
+
+    private static string Short(string hash) => hash.StartsWith("sha256:", StringComparison.Ordinal) && hash.Length > 19 ? hash[7..19] : hash;
+
+    private static string N(int v) => v.ToString(CultureInfo.InvariantCulture);
+}
