@@ -11,6 +11,7 @@ public static class Program
     public static void Main(string[] args)
     {
         if (args.Length > 0 && args[0] == "scaling") { Scaling.Run(); return; }
+        if (args.Length > 1 && args[0] == "warm-review") { WarmReview.Run(args[1]); return; }
         BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
     }
 }

@@ -25,3 +25,25 @@ public static class Scaling
         }
     }
 }
+
+/// <summary>Review time of one submission in a warm process, stage by stage (to separate start-up from work).</summary>
+public static class WarmReview
+{
+    public static void Run(string path)
+    {
+        for (int round = 0; round < 4; round++)
+        {
+            var sw = Stopwatch.StartNew();
+            var imported = CrossCheck.Import.SubmissionReader.Read(path);
+            long read = sw.ElapsedMilliseconds; sw.Restart();
+            var s = imported.Submission!;
+            var a = new FrameSolver().Solve(s.Model, s.Cases);
+            long solve = sw.ElapsedMilliseconds; sw.Restart();
+            var r = CrossCheck.Review.ReviewEngine.Review(s, a);
+            long review = sw.ElapsedMilliseconds; sw.Restart();
+            var json = CrossCheck.Memo.ReviewJson.Write(r);
+            long render = sw.ElapsedMilliseconds;
+            Console.WriteLine($"round {round}: read {read} ms, solve {solve} ms, review {review} ms, json {render} ms ({json.Length} chars)");
+        }
+    }
+}

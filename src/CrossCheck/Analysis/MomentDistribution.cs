@@ -126,6 +126,62 @@ public static class MomentDistribution
         return new DistributionResult(moments, noSway, sway, cycles, converged);
     }
 
+    /// <summary>A distribution stopped after a given number of cycles.</summary>
+    /// <param name="Cycles">Balance + carry-over cycles done.</param>
+    /// <param name="LastCarryOver">The last carry-over row of the no-sway stage, by column (null after a final balance or with sway).</param>
+    public sealed record Stopped(int Cycles, IReadOnlyDictionary<(string Member, MemberEnd End), double> Moments, IReadOnlyList<double>? LastCarryOver,
+        IReadOnlyList<(string Member, MemberEnd End)> Columns);
+
+    /// <summary>
+    /// The answers of one distribution stopped after 1, 2, … <paramref name="maxCycles"/> cycles (each stage, sway
+    /// cases included, stopped at the same cycle), computed in one pass. Ends early once the distribution converges.
+    /// </summary>
+    public static IReadOnlyList<Stopped> StoppedAfterEachCycle(StructureModel model, LoadCase loadCase, bool modifiedStiffness, bool finalBalance, int maxCycles)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        ArgumentNullException.ThrowIfNull(loadCase);
+        if (model.Axial != AxialBehaviour.Rigid) throw new NotSupportedException("Moment distribution assumes axially rigid members.");
+        var options = new DistributionOptions(ModifiedStiffness: modifiedStiffness, FinalBalance: finalBalance);
+        var setup = new Setup(model, options);
+        var kin = setup.Kinematics;
+        var main = setup.Stages(setup.LoadFixedEndMoments(loadCase), setup.AppliedCouples(loadCase), maxCycles, finalBalance);
+        var modes = kin.TranslationUnknowns.Where(u => setup.Members.Any(m => kin.ChordRotation(m).Terms.ContainsKey(u))).ToList();
+        var swayStages = modes.Select(mode =>
+        {
+            double peak = setup.Members.Max(m => Math.Abs(6 * m.E * m.I / setup.Length(m) * kin.ChordRotation(m).Terms.GetValueOrDefault(mode)));
+            double scale = peak > 0 ? 1e5 / peak : 1;
+            return setup.Stages(setup.SwayFixedEndMoments(mode, scale), new double[setup.JointCount], maxCycles, finalBalance);
+        }).ToList();
+        var loadWork = modes.Select(m => setup.LoadWork(m, loadCase)).ToArray();
+        var list = new List<Stopped>();
+        for (int k = 0; k < main.Count; k++)
+        {
+            var final = (double[])main[k].State.Clone();
+            if (modes.Count > 0)
+            {
+                int n = modes.Count;
+                var a = Matrix<double>.Build.Dense(n, n);
+                var b = Vector<double>.Build.Dense(n);
+                var sway = swayStages.Select(st => st[Math.Min(k, st.Count - 1)].State).ToList();
+                for (int t = 0; t < n; t++)
+                {
+                    b[t] = -(setup.SwayResidual(modes[t], final) + loadWork[t]);
+                    for (int s2 = 0; s2 < n; s2++) a[t, s2] = setup.SwayResidual(modes[t], sway[s2]);
+                }
+                Vector<double> factors;
+                try { factors = a.Solve(b); }
+                catch (Exception ex) when (ex is ArgumentException or InvalidOperationException) { break; }
+                for (int s2 = 0; s2 < n; s2++)
+                    for (int i = 0; i < final.Length; i++) final[i] += factors[s2] * sway[s2][i];
+            }
+            var moments = new Dictionary<(string, MemberEnd), double>();
+            for (int i = 0; i < setup.Columns.Count; i++) moments[setup.Columns[i]] = final[i];
+            list.Add(new Stopped(main[k].Cycles, moments, modes.Count == 0 && !finalBalance ? main[k].LastCarryOver : null, setup.Columns));
+            if (main[k].Converged) break;
+        }
+        return list;
+    }
+
     private sealed class Setup
     {
         private readonly StructureModel _model;
@@ -314,7 +370,34 @@ public static class MomentDistribution
             return w;
         }
 
-        public DistributionTable Distribute(double[] fem, double[] applied, string title, out int cycles, out bool converged)
+        public sealed record Stage(int Cycles, double[] State, double[]? LastCarryOver, bool Converged);
+
+        /// <summary>The state after each of 1..maxCycles cycles (with a final balance when asked), from one run.</summary>
+        public List<Stage> Stages(double[] fem, double[] applied, int maxCycles, bool finalBalance)
+        {
+            var table = Distribute(fem, applied, "", out _, out _, maxCycles);
+            var stages = new List<Stage>();
+            int n = Columns.Count;
+            var state = new double[n];
+            double[]? lastCo = null;
+            var rows = table.Rows.Where(r => r.Step is not DistributionStep.DistributionFactor and not DistributionStep.Final).ToList();
+            for (int r = 0; r < rows.Count; r++)
+            {
+                for (int i = 0; i < n; i++) state[i] += rows[r].Values[i] ?? 0;
+                if (rows[r].Step != DistributionStep.CarryOver) continue;
+                lastCo = rows[r].Values.Select(v => v ?? 0).ToArray();
+                var snapshot = (double[])state.Clone();
+                bool converged = lastCo.All(v => Math.Abs(v) <= 1e-12 * Math.Max(1, snapshot.Max(Math.Abs)));
+                if (finalBalance && r + 1 < rows.Count && rows[r + 1].Step == DistributionStep.Balance)
+                    for (int i = 0; i < n; i++) snapshot[i] += rows[r + 1].Values[i] ?? 0;
+                stages.Add(new Stage(rows[r].Cycle, snapshot, finalBalance ? null : lastCo, converged));
+                if (converged) break;
+            }
+            if (stages.Count == 0) stages.Add(new Stage(0, table.Final.Select(v => v ?? 0).ToArray(), null, true));
+            return stages;
+        }
+
+        public DistributionTable Distribute(double[] fem, double[] applied, string title, out int cycles, out bool converged, int maxCycles = MaxCycles)
         {
             int n = Columns.Count;
             var rows = new List<DistributionRow>();
@@ -390,7 +473,7 @@ public static class MomentDistribution
                     break;
                 }
                 if (_o.Cycles is int kk && cycles >= kk && !_o.FinalBalance) break;
-                if (cycles >= MaxCycles) break;
+                if (cycles >= maxCycles) break;
             }
             rows.Add(new DistributionRow(DistributionStep.Final, cycles, current.Select(v => (double?)v).ToArray()));
             return new DistributionTable(title, Columns, rows);

@@ -1,4 +1,3 @@
-using System.Text.Json;
 using CrossCheck.Import;
 using CrossCheck.Model;
 using CrossCheck.Register;
@@ -41,126 +40,79 @@ public static class ReviewJson
             ? Round(q.Component == "M" ? u.Moment.FromSi(si) : u.Force.FromSi(si))
             : q.Component == "rotation" ? Round(si, 9) : Round(u.Displacement.FromSi(si));
 
-        var doc = new
+        using var j = new JsonOut();
+        j.Obj()
+            .Str("schema", Schema)
+            .Obj("tool").Str("name", "crosscheck").Str("version", ToolInfo.Version).EndObj()
+            .Obj("submission")
+                .Str("title", s.Info.Title).Str("reference", s.Info.Reference).Str("revision", s.Info.Revision).Str("preparedBy", s.Info.PreparedBy)
+                .Str("source", s.Source).Str("momentUnit", u.Moment.Symbol).Str("forceUnit", u.Force.Symbol).Str("displacementUnit", u.Displacement.Symbol)
+                .Str("signConvention", s.Info.SignConvention == SignConvention.Sagging ? "sagging" : "clockwise")
+            .EndObj()
+            .Str("reviewer", review.Options.Reviewer)
+            .Str("date", (review.Options.Date ?? DateOnly.FromDateTime(DateTime.Today)).ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture))
+            .Obj("tolerance")
+                .Num("absolute", review.Options.AbsoluteTolerance).Num("relative", review.Options.RelativeTolerance).Num("minorRelative", review.Options.MinorRelativeTolerance)
+            .EndObj()
+            .Str("verdict", review.Verdict.Json())
+            .Each("cases", review.Cases, (o, c) => o
+                .Str("case", c.Case)
+                .Num("peakMoment", Mom(c.PeakMoment))
+                .Each("endMoments", c.EndMoments, (o, e) => o
+                    .Str("member", e.Member).Str("at", e.At).Num("claimed", MomN(e.Claimed)).Num("recomputed", MomN(e.Recomputed))
+                    .Num("difference", MomN(e.Difference)).Str("status", e.Status.Json()).Str("source", e.Source?.RowCompact))
+                .Each("reactions", c.Reactions, (o, q) => o
+                    .Str("joint", q.Joint).Str("component", q.Component).Num("claimed", Qty(q, q.Claimed, true)).Num("recomputed", Qty(q, q.Recomputed, true))
+                    .Num("difference", Qty(q, q.Difference, true)).Str("status", q.Status.Json()).Str("source", q.Source.RowCompact))
+                .Each("displacements", c.Displacements, (o, q) => o
+                    .Str("joint", q.Joint).Str("component", q.Component).Num("claimed", Qty(q, q.Claimed, false)).Num("recomputed", Qty(q, q.Recomputed, false))
+                    .Num("difference", Qty(q, q.Difference, false)).Str("status", q.Status.Json()).Str("source", q.Source.RowCompact))
+                .Each("flags", c.Flags, (o, f) => o
+                    .Str("kind", f.Kind.Json()).Str("severity", f.Severity.Json()).Str("where", f.Where).Num("value", Value(f)).Str("unit", UnitOf(f))
+                    .Str("message", f.Message).Str("source", f.SourceText))
+                .Maybe("distributionAudit", c.Audit, (o, a) => o
+                    .Str("variant", a.Variant).Int("cellsChecked", a.CellsChecked).Int("cellsWrong", a.CellsWrong)
+                    .Maybe("firstWrongCell", a.First, (o, w) => o
+                        .Str("row", w.Row).Str("column", w.Column)
+                        .Num("found", w.Step == WorkingStep.DistributionFactor ? Round(w.Found) : Mom(w.Found))
+                        .Num("expected", w.Step == WorkingStep.DistributionFactor ? Round(w.Expected) : Mom(w.Expected))
+                        .Str("source", w.Source.RowCompact))
+                    .Num("knockOn", Mom(a.KnockOn)).Str("knockOnColumn", a.KnockOnColumn))
+                .Each("causes", c.Causes, (o, x) => o
+                    .Str("code", x.Code).Num("confidence", Round(x.Confidence, 3)).Num("explains", Round(x.Explains, 3))
+                    .Str("message", x.Message).Str("evidence", x.Evidence)))
+            .Each("comments", review.Comments, (o, cm) => o
+                .Str("id", cm.Id).Str("severity", cm.Severity.Json()).Str("case", cm.Case).Str("where", cm.Where).Str("text", cm.Text).Str("source", cm.Source))
+            .Strings("notes", review.Notes)
+            .Strings("inputWarnings", review.InputWarnings)
+            .Arr("inputErrors").EndArr();
+        if (rounds is not null)
         {
-            schema = Schema,
-            tool = new { name = "crosscheck", version = ToolInfo.Version },
-            submission = new
-            {
-                title = s.Info.Title,
-                reference = s.Info.Reference,
-                revision = s.Info.Revision,
-                preparedBy = s.Info.PreparedBy,
-                source = s.Source,
-                momentUnit = u.Moment.Symbol,
-                forceUnit = u.Force.Symbol,
-                displacementUnit = u.Displacement.Symbol,
-                signConvention = s.Info.SignConvention == SignConvention.Sagging ? "sagging" : "clockwise",
-            },
-            reviewer = review.Options.Reviewer,
-            date = (review.Options.Date ?? DateOnly.FromDateTime(DateTime.Today)).ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture),
-            tolerance = new
-            {
-                absolute = review.Options.AbsoluteTolerance,
-                relative = review.Options.RelativeTolerance,
-                minorRelative = review.Options.MinorRelativeTolerance,
-            },
-            verdict = review.Verdict.Json(),
-            cases = review.Cases.Select(c => new
-            {
-                @case = c.Case,
-                peakMoment = Mom(c.PeakMoment),
-                endMoments = c.EndMoments.Select(e => new
-                {
-                    member = e.Member,
-                    at = e.At,
-                    claimed = MomN(e.Claimed),
-                    recomputed = MomN(e.Recomputed),
-                    difference = MomN(e.Difference),
-                    status = e.Status.Json(),
-                    source = e.Source?.RowCompact,
-                }),
-                reactions = c.Reactions.Select(q => new
-                {
-                    joint = q.Joint, component = q.Component, claimed = Qty(q, q.Claimed, true), recomputed = Qty(q, q.Recomputed, true),
-                    difference = Qty(q, q.Difference, true), status = q.Status.Json(), source = q.Source.RowCompact,
-                }),
-                displacements = c.Displacements.Select(q => new
-                {
-                    joint = q.Joint, component = q.Component, claimed = Qty(q, q.Claimed, false), recomputed = Qty(q, q.Recomputed, false),
-                    difference = Qty(q, q.Difference, false), status = q.Status.Json(), source = q.Source.RowCompact,
-                }),
-                flags = c.Flags.Select(f => new
-                {
-                    kind = f.Kind.Json(),
-                    severity = f.Severity.Json(),
-                    where = f.Where,
-                    value = Value(f),
-                    unit = UnitOf(f),
-                    message = f.Message,
-                    source = f.SourceText,
-                }),
-                distributionAudit = c.Audit is not { } a ? null : new
-                {
-                    variant = a.Variant,
-                    cellsChecked = a.CellsChecked,
-                    cellsWrong = a.CellsWrong,
-                    firstWrongCell = a.First is not { } w ? null : new
-                    {
-                        row = w.Row,
-                        column = w.Column,
-                        found = w.Step == Model.WorkingStep.DistributionFactor ? Round(w.Found) : Mom(w.Found),
-                        expected = w.Step == Model.WorkingStep.DistributionFactor ? Round(w.Expected) : Mom(w.Expected),
-                        source = w.Source.RowCompact,
-                    },
-                    knockOn = Mom(a.KnockOn),
-                    knockOnColumn = a.KnockOnColumn,
-                },
-                causes = c.Causes.Select(x => new
-                {
-                    code = x.Code,
-                    confidence = Round(x.Confidence, 3),
-                    explains = Round(x.Explains, 3),
-                    message = x.Message,
-                    evidence = x.Evidence,
-                }),
-            }),
-            comments = review.Comments.Select(cm => new { id = cm.Id, severity = cm.Severity.Json(), @case = cm.Case, where = cm.Where, text = cm.Text, source = cm.Source }),
-            notes = review.Notes,
-            inputWarnings = review.InputWarnings,
-            inputErrors = Array.Empty<object>(),
-        };
-        if (rounds is null) return JsonSerializer.Serialize(doc, SolveReport.JsonOptions) + "\n";
-        var node = JsonSerializer.SerializeToNode(doc, SolveReport.JsonOptions)!.AsObject();
-        node["register"] = JsonSerializer.SerializeToNode(new
-        {
-            reference = rounds.Review.Reference,
-            round = rounds.Review.Round,
-            repeat = rounds.Repeat,
-            inputHash = rounds.Review.InputHash,
-            previousRound = rounds.Previous?.Round,
-            previousDate = rounds.Previous?.ReviewDate,
-            previousVerdict = rounds.Previous?.Verdict,
-            closed = rounds.Closed.Select(c => c.Id),
-            persisting = rounds.Persisting.Select(c => c.Id),
-            @new = rounds.New.Select(c => c.Id),
-        }, SolveReport.JsonOptions);
-        return node.ToJsonString(SolveReport.JsonOptions) + "\n";
+            j.Obj("register")
+                .Str("reference", rounds.Review.Reference).Int("round", rounds.Review.Round).Bool("repeat", rounds.Repeat).Str("inputHash", rounds.Review.InputHash)
+                .Int("previousRound", rounds.Previous?.Round).Str("previousDate", rounds.Previous?.ReviewDate).Str("previousVerdict", rounds.Previous?.Verdict)
+                .Strings("closed", rounds.Closed.Select(c => c.Id))
+                .Strings("persisting", rounds.Persisting.Select(c => c.Id))
+                .Strings("new", rounds.New.Select(c => c.Id))
+                .EndObj();
+        }
+        j.EndObj();
+        return j.ToString();
     }
 
     /// <summary>The JSON for a submission that could not be read: verdict null and the input errors.</summary>
     public static string WriteInputErrors(string source, IEnumerable<InputProblem> errors)
     {
-        var doc = new
-        {
-            schema = Schema,
-            tool = new { name = "crosscheck", version = ToolInfo.Version },
-            submission = new { source },
-            verdict = (string?)null,
-            cases = Array.Empty<object>(),
-            inputErrors = errors.Select(e => new { source = e.Where.Compact, message = e.Message }),
-        };
-        return JsonSerializer.Serialize(doc, SolveReport.JsonOptions) + "\n";
+        using var j = new JsonOut();
+        j.Obj()
+            .Str("schema", Schema)
+            .Obj("tool").Str("name", "crosscheck").Str("version", ToolInfo.Version).EndObj()
+            .Obj("submission").Str("source", source).EndObj()
+            .Null("verdict")
+            .Arr("cases").EndArr()
+            .Each("inputErrors", errors, (o, e) => o.Str("source", e.Where.Compact).Str("message", e.Message))
+            .EndObj();
+        return j.ToString();
     }
 
     private static double Round(double v, int digits = 6)

@@ -1,7 +1,5 @@
 using System.Globalization;
 using System.Text;
-using System.Text.Encodings.Web;
-using System.Text.Json;
 using CrossCheck.Analysis;
 using CrossCheck.Model;
 
@@ -60,56 +58,36 @@ public sealed class SolveReport
     public string ToJson()
     {
         var units = Submission.Info.Units;
-        var doc = new
-        {
-            schema = "crosscheck-solve/1",
-            tool = new { name = "crosscheck", version = ToolInfo.Version },
-            submission = new
+        using var j = new JsonOut();
+        j.Obj()
+            .Str("schema", "crosscheck-solve/1")
+            .Obj("tool").Str("name", "crosscheck").Str("version", ToolInfo.Version).EndObj()
+            .Obj("submission")
+                .Str("title", Submission.Info.Title).Str("reference", Submission.Info.Reference).Str("source", Submission.Source)
+                .Str("momentUnit", units.Moment.Symbol).Str("forceUnit", units.Force.Symbol).Str("displacementUnit", units.Displacement.Symbol)
+                .Str("signConvention", Submission.Info.SignConvention == SignConvention.Sagging ? "sagging" : "clockwise")
+            .EndObj()
+            .Each("cases", Result.Cases, (o, c) =>
             {
-                title = Submission.Info.Title,
-                reference = Submission.Info.Reference,
-                source = Submission.Source,
-                momentUnit = units.Moment.Symbol,
-                forceUnit = units.Force.Symbol,
-                displacementUnit = units.Displacement.Symbol,
-                signConvention = Submission.Info.SignConvention == SignConvention.Sagging ? "sagging" : "clockwise",
-            },
-            cases = Result.Cases.Select(c => new
-            {
-                @case = c.Case,
-                endMoments = EndMoments.Where(e => e.Case == c.Case)
-                    .Select(e => new { member = e.Member, at = e.At, moment = Round(e.Moment) }),
-                spanMoments = Submission.Model.Members.Select(m => new
-                {
-                    member = m.Id,
-                    maxSagging = Round(units.Moment.FromSi(c.Members[m.Id].MaxSagging.Moment)),
-                    at = Round(units.Length.FromSi(c.Members[m.Id].MaxSagging.X)),
-                }),
-                reactions = c.Reactions.Select(r => new
-                {
-                    joint = r.Key,
-                    rx = Round(units.Force.FromSi(r.Value.Rx)),
-                    ry = Round(units.Force.FromSi(r.Value.Ry)),
-                    m = Round(units.Moment.FromSi(r.Value.M)),
-                }),
-                displacements = Submission.Model.RelativeStiffness ? null : c.Displacements.Select(d => new
-                {
-                    joint = d.Key,
-                    ux = Round(units.Displacement.FromSi(d.Value.Ux)),
-                    uy = Round(units.Displacement.FromSi(d.Value.Uy)),
-                    rotation = Round(d.Value.Rotation, 9),
-                }),
-            }),
-            notes = Result.Notes,
-        };
-        return JsonSerializer.Serialize(doc, JsonOptions) + "\n";
+                o.Str("case", c.Case)
+                    .Each("endMoments", EndMoments.Where(e => e.Case == c.Case), (o, e) => o.Str("member", e.Member).Str("at", e.At).Num("moment", Round(e.Moment)))
+                    .Each("spanMoments", Submission.Model.Members, (o, m) => o
+                        .Str("member", m.Id)
+                        .Num("maxSagging", Round(units.Moment.FromSi(c.Members[m.Id].MaxSagging.Moment)))
+                        .Num("at", Round(units.Length.FromSi(c.Members[m.Id].MaxSagging.X))))
+                    .Each("reactions", c.Reactions, (o, r) => o
+                        .Str("joint", r.Key).Num("rx", Round(units.Force.FromSi(r.Value.Rx))).Num("ry", Round(units.Force.FromSi(r.Value.Ry)))
+                        .Num("m", Round(units.Moment.FromSi(r.Value.M))));
+                if (Submission.Model.RelativeStiffness) o.Null("displacements");
+                else
+                    o.Each("displacements", c.Displacements, (o, d) => o
+                        .Str("joint", d.Key).Num("ux", Round(units.Displacement.FromSi(d.Value.Ux))).Num("uy", Round(units.Displacement.FromSi(d.Value.Uy)))
+                        .Num("rotation", Round(d.Value.Rotation, 9)));
+            })
+            .Strings("notes", Result.Notes)
+            .EndObj();
+        return j.ToString();
     }
-
-    internal static readonly JsonSerializerOptions JsonOptions = new()
-    {
-        WriteIndented = true,
-        Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping,
-    };
 
     private static double Round(double v, int digits = 6) { double r = Math.Round(v, digits, MidpointRounding.AwayFromZero); return r == 0 ? 0 : r; }
 

@@ -382,7 +382,7 @@ public sealed class Diagnoser
         {
             foreach (bool modified in new[] { true, false })
             {
-                var md = MomentDistribution.Run(_s.Model, x.Case, new DistributionOptions(ModifiedStiffness: modified, CarryOverFactor: cof));
+                var md = MomentDistribution.Run(_s.Model, x.Case, new DistributionOptions(ModifiedStiffness: modified, CarryOverFactor: cof, Cycles: 200, FinalBalance: false));
                 if (!md.Converged) continue;
                 yield return new Hypothesis("carry-over", 3, x.From(md.Moments),
                     $"The claims are those of a moment distribution that {text} to far ends that are fixed or continuous. The carry-over factor of a prismatic member is +½ (0 to a pinned end).");
@@ -400,33 +400,33 @@ public sealed class Diagnoser
         bool jointsBalance = !x.Review.Flags.Any(f => f.Kind is FlagKind.JointEquilibrium or FlagKind.ReleasedEnd && f.Severity != Severity.Info);
         foreach (bool modified in new[] { true, false })
             foreach (bool finalBalance in new[] { true, false })
-                for (int k = 1; k <= 15; k++)
+            {
+                if (finalBalance && !jointsBalance) continue;
+                foreach (var stop in MomentDistribution.StoppedAfterEachCycle(_s.Model, x.Case, modified, finalBalance, 15))
                 {
-                    if (finalBalance && !jointsBalance) break;
-                    var md = MomentDistribution.Run(_s.Model, x.Case, new DistributionOptions(ModifiedStiffness: modified, Cycles: k, FinalBalance: finalBalance));
-                    if (md.Converged) break; // later cycles change nothing
+                    int k = stop.Cycles;
                     string ending = finalBalance ? "with a final balance" : "straight after the carry-over, without a final balance";
                     string evidence = "";
                     if (!finalBalance)
                     {
-                        var (worst, joints) = CarryOverMismatch(x, md);
+                        var (worst, joints) = CarryOverMismatch(x, stop);
                         if (joints == 0 || worst > x.Review.AgreeTolerance) continue;
                         evidence = $"The claimed joints are out of balance by the last carry-overs (to within {Moment(worst)}).";
                     }
-                    yield return new Hypothesis("stopped-early", 4, x.From(md.Moments),
+                    yield return new Hypothesis("stopped-early", 4, x.From(stop.Moments),
                         string.Create(CultureInfo.InvariantCulture,
                             $"The claims match a moment distribution ({(modified ? "modified stiffness at pinned ends" : "plain stiffness")}) stopped after {k} cycle{(k == 1 ? "" : "s")}, {ending}. Carry the distribution on until the carry-overs are negligible."),
                         evidence);
                 }
+            }
     }
 
     /// <summary>How far the claimed joint unbalances are from the last carry-overs of a distribution, and over how many joints.</summary>
-    private static (double Worst, int Joints) CarryOverMismatch(Context x, DistributionResult md)
+    private static (double Worst, int Joints) CarryOverMismatch(Context x, MomentDistribution.Stopped stop)
     {
-        var last = md.NoSway.Rows.LastOrDefault(r => r.Step == DistributionStep.CarryOver);
-        if (last is null || md.Sway.Count > 0) return (0, 0);
+        if (stop.LastCarryOver is not { } last) return (0, 0);
         var model = x.D._s.Model;
-        var cols = md.NoSway.Columns.ToList();
+        var cols = stop.Columns.ToList();
         double worst = 0;
         int joints = 0;
         foreach (var j in model.Joints.Where(j => !j.Restraint.HasFlag(Restraint.Rotation)))
@@ -434,7 +434,7 @@ public sealed class Diagnoser
             var at = model.MembersAt(j.Id).Select(m => (m.Id, m.EndAt(j.Id)!.Value)).ToList();
             if (!at.All(k => x.Keys.Contains(k))) continue;
             double claimedSum = at.Sum(k => x.Claimed[x.Keys.IndexOf(k)]);
-            double coSum = at.Sum(k => last.Values[cols.IndexOf(k)] ?? 0);
+            double coSum = at.Sum(k => last[cols.IndexOf(k)]);
             double applied = x.Case.Loads.OfType<JointCouple>().Where(l => l.Joint == j.Id).Sum(l => l.M);
             worst = Math.Max(worst, Math.Abs(claimedSum - applied - coSum));
             joints++;
