@@ -1,0 +1,278 @@
+using System.Text.RegularExpressions;
+
+namespace CrossCheck.Import.Pdf;
+
+/// <summary>A table found in a PDF: its header, columns, the lines of its rows, and the lines around it that speak about it.</summary>
+internal sealed class FoundTable(HeaderMatch header)
+{
+    public HeaderMatch Header { get; } = header;
+    public TableSpec Spec => Header.Spec;
+    public List<FoundColumn> Columns { get; } = header.Cells.Select(c => new FoundColumn(c, c.Left, c.Right)).ToList();
+
+    /// <summary>The lines of the rows, top to bottom (across pages when the table continues).</summary>
+    public List<TextLine> RowLines { get; } = [];
+
+    /// <summary>Load-case labels printed between rows (<c>Load case DL</c>): the label in force for each row line.</summary>
+    public Dictionary<TextLine, (string Case, TextLine Label)> RowCase { get; } = [];
+
+    /// <summary>Caption and group-header lines just above the header.</summary>
+    public List<TextLine> Above { get; } = [];
+
+    /// <summary>Note lines just below the last row (units, what parentheses mean).</summary>
+    public List<TextLine> Below { get; } = [];
+
+    /// <summary>True while the table ran to the foot of its page and may continue on the next.</summary>
+    public bool Open { get; set; }
+
+    /// <summary>The rows placed in columns (set when the document has been read).</summary>
+    public List<TableLayout.Placed> Placed { get; set; } = [];
+
+    public TextLine First => Header.Lines[0];
+    public int LastPage => RowLines.Count > 0 ? RowLines[^1].Page : Header.Lines[^1].Page;
+}
+
+/// <summary>
+/// Walks a PDF's lines top to bottom and finds the tables of the submission format among prose, headings and page
+/// furniture. A table starts at a header row (<see cref="HeaderMatcher"/>) and takes the lines below it while they
+/// are rows of it (<see cref="TableLayout"/>): it ends at a wide vertical gap, a heading, a new header, a note or
+/// units line, or a line of prose. A table that runs to the foot of a page continues on the next page, with its
+/// header repeated or not. Running headers and footers (lines repeated at the same place on several pages, page
+/// numbers) are skipped.
+/// </summary>
+internal sealed partial class PdfTableFinder
+{
+    private readonly List<TextLine> _lines;
+    private readonly Dictionary<TextLine, int> _index = [];
+    private readonly Dictionary<int, HeaderMatch?> _headers = [];
+
+    public PdfTableFinder(TextDocument doc)
+    {
+        Document = doc;
+        _lines = doc.Lines.ToList();
+        for (int i = 0; i < _lines.Count; i++) _index[_lines[i]] = i;
+        Furniture = FindFurniture(doc);
+    }
+
+    public TextDocument Document { get; }
+    public List<FoundTable> Tables { get; } = [];
+
+    /// <summary>Running headers, footers and page numbers.</summary>
+    public HashSet<TextLine> Furniture { get; }
+
+    /// <summary>Lines that belong to a table (header, rows, labels) or speak about one (caption, notes).</summary>
+    public HashSet<TextLine> Consumed { get; } = [];
+
+    public IReadOnlyList<TextLine> Lines => _lines;
+
+    public void Run()
+    {
+        FoundTable? open = null;
+        int i = 0;
+        while (i < _lines.Count)
+        {
+            var line = _lines[i];
+            if (Furniture.Contains(line) || Consumed.Contains(line)) { i++; continue; }
+            if (open is not null && line.Page != open.LastPage)
+            {
+                if (line.Page == open.LastPage + 1 && HeaderAt(i) is null && ContinuesWithoutHeader(open, line))
+                {
+                    i = ReadRows(open, i, null);
+                    open = open.Open ? open : null;
+                    continue;
+                }
+                open = null;
+            }
+            if (HeaderAt(i) is { } h)
+            {
+                var t = new FoundTable(h);
+                AttachAbove(t, i);
+                foreach (var l in h.Lines) Consumed.Add(l);
+                Tables.Add(t);
+                i = ReadRows(t, i + h.Lines.Count, h.Lines[^1].Baseline);
+                open = t.Open ? t : null;
+                continue;
+            }
+            i++;
+        }
+        foreach (var t in Tables)
+            t.Placed = t.RowLines.Count == 0 ? [] : TableLayout.Place(t.Columns, t.RowLines, t.Header.Tight).Rows;
+    }
+
+    private HeaderMatch? HeaderAt(int i)
+    {
+        if (_headers.TryGetValue(i, out var cached)) return cached;
+        var block = new List<TextLine>();
+        for (int k = i; k < _lines.Count && block.Count < HeaderMatcher.MaxLines + 1; k++)
+        {
+            if (Furniture.Contains(_lines[k]) || (k > i && Consumed.Contains(_lines[k]))) break;
+            block.Add(_lines[k]);
+        }
+        var h = Furniture.Contains(_lines[i]) || block.Count == 0 ? null : HeaderMatcher.Match(block);
+        _headers[i] = h;
+        return h;
+    }
+
+    private bool ContinuesWithoutHeader(FoundTable t, TextLine line)
+    {
+        double size = t.First.Size;
+        if (line.Size > 1.2 * size || line.Size < 0.8 * size) return false;
+        var placed = TableLayout.PlaceLine(t.Columns, line, t.Header.Tight);
+        return placed is not null && placed.WorstDistanceEm <= 1.0 && placed.Cells.Count(c => c is not null) >= Math.Min(2, t.Columns.Count);
+    }
+
+    /// <summary>Reads the rows of <paramref name="t"/> from line <paramref name="j"/> on; returns the index of the first line after them.</summary>
+    private int ReadRows(FoundTable t, int j, double? lastBaseline)
+    {
+        if (j >= _lines.Count) { t.Open = false; return j; }
+        int page = _lines[j].Page;
+        double size = t.First.Size;
+        bool hasCase = t.Spec.Columns.Any(c => c.Name == "case") && !t.Header.Cells.Any(c => c.Column?.Name == "case") && !t.Header.IsWide;
+        var entries = new List<(int Index, TextLine Line, string? Label)>();
+        var pitches = new List<double>();
+        bool toFoot = true;
+        double? last = lastBaseline;
+        while (j < _lines.Count && _lines[j].Page == page)
+        {
+            var line = _lines[j];
+            if (Furniture.Contains(line)) { j++; continue; }
+            double gap = last is double b ? b - line.Baseline : 0;
+            double limit = pitches.Count == 0 ? 3.5 * size : Math.Max(2.2 * Median(pitches), 1.9 * size);
+            bool stop = gap > limit
+                        || line.Size > 1.25 * size || line.Size < 0.7 * size
+                        || HeaderAt(j) is not null
+                        || IsStatement(line)
+                        || line.Chunks().Any(c => c.Words.Count >= 6);
+            string? label = null;
+            if (!stop && hasCase && line.Chunks().Count == 1) label = PdfStatements.CaseLabel(line.Text);
+            if (stop) { toFoot = false; break; }
+            entries.Add((j, line, label));
+            if (last is not null) pitches.Add(gap);
+            last = line.Baseline;
+            j++;
+        }
+
+        var rows = entries.Where(e => e.Label is null).Select(e => e.Line).ToList();
+        int before = t.RowLines.Count;
+        var (_, firstBad) = rows.Count == 0 ? (null!, 0) : TableLayout.Place(t.Columns, t.RowLines.Concat(rows).ToList(), t.Header.Tight);
+        int accepted = Math.Max(0, firstBad - before);
+        if (accepted < rows.Count)
+        {
+            toFoot = false;
+            j = _index[rows[accepted]];
+            // Labels printed after the last accepted row belong to what follows.
+            while (entries.Count > 0 && _index[entries[^1].Line] >= j) entries.RemoveAt(entries.Count - 1);
+        }
+        // A label stays in force across a page break.
+        (string Case, TextLine Label)? current = before > 0 && t.RowCase.TryGetValue(t.RowLines[^1], out var held) ? held : null;
+        int taken = 0;
+        foreach (var e in entries)
+        {
+            if (e.Label is not null)
+            {
+                current = (e.Label, e.Line);
+                Consumed.Add(e.Line);
+                continue;
+            }
+            if (taken >= accepted) break;
+            t.RowLines.Add(e.Line);
+            Consumed.Add(e.Line);
+            if (current is { } c) t.RowCase[e.Line] = c;
+            taken++;
+        }
+        t.Open = toFoot && t.RowLines.Count > 0;
+        return t.Open ? j : AttachBelow(t, j);
+    }
+
+    private static double Median(List<double> xs)
+    {
+        var s = xs.Order().ToList();
+        return s[s.Count / 2];
+    }
+
+    /// <summary>Units lines, notes about parentheses and title-block lines end a table.</summary>
+    private static bool IsStatement(TextLine line) =>
+        PdfStatements.Units(line.Text) is not null || PdfStatements.SaysParenthesesNegative(line.Text) || PdfStatements.KeyValues(line).Count > 0
+        || NoteLead().IsMatch(line.Text);
+
+    /// <summary>Takes up to three caption lines just above a header (same page, not part of another table).</summary>
+    private void AttachAbove(FoundTable t, int headerIndex)
+    {
+        double below = t.First.Baseline;
+        for (int k = headerIndex - 1; k >= 0 && t.Above.Count < 3; k--)
+        {
+            var line = _lines[k];
+            if (line.Page != t.First.Page || Consumed.Contains(line)) break;
+            if (Furniture.Contains(line)) continue;
+            if (line.Baseline - below > 3.5 * Math.Max(line.Size, t.First.Size)) break;
+            if (LooksTabular(line) && HeaderAt(k) is null && t.Above.Count == 0 && line.Baseline - below > 2 * t.First.Size) break;
+            t.Above.Add(line);
+            Consumed.Add(line);
+            below = line.Baseline;
+        }
+    }
+
+    /// <summary>Takes the note lines just below a table (units, parentheses) and returns the index after them.</summary>
+    private int AttachBelow(FoundTable t, int j)
+    {
+        if (t.RowLines.Count == 0) return j;
+        double above = t.RowLines[^1].Baseline;
+        int page = t.RowLines[^1].Page;
+        int k = j;
+        while (k < _lines.Count && t.Below.Count < 3)
+        {
+            var line = _lines[k];
+            if (line.Page != page || Consumed.Contains(line)) break;
+            if (Furniture.Contains(line)) { k++; continue; }
+            if (above - line.Baseline > 3.5 * line.Size) break;
+            bool note = PdfStatements.Units(line.Text) is not null || PdfStatements.SaysParenthesesNegative(line.Text) || NoteLead().IsMatch(line.Text);
+            if (!note || HeaderAt(k) is not null) break;
+            t.Below.Add(line);
+            Consumed.Add(line);
+            above = line.Baseline;
+            k++;
+        }
+        return k;
+    }
+
+    /// <summary>A line with two or more pieces separated by wide gaps.</summary>
+    public static bool LooksTabular(TextLine line) => line.Chunks().Count >= 2;
+
+    // ---- page furniture ------------------------------------------------------------------------------
+
+    private static HashSet<TextLine> FindFurniture(TextDocument doc)
+    {
+        var set = new HashSet<TextLine>();
+        foreach (var page in doc.Pages)
+            foreach (var line in page.Lines)
+                if (InMargin(line, page) && PdfStatements.IsPageNumber(line.Text)) set.Add(line);
+        if (doc.Pages.Count < 2) return set;
+        var groups = new Dictionary<string, List<(TextLine Line, TextPage Page)>>(StringComparer.Ordinal);
+        foreach (var page in doc.Pages)
+            foreach (var line in page.Lines)
+            {
+                if (!InMargin(line, page)) continue;
+                string key = PageWords().IsMatch(line.Text) ? PdfStatements.Shape(line.Text) : line.Text;
+                if (!groups.TryGetValue(key, out var list)) groups[key] = list = [];
+                list.Add((line, page));
+            }
+        foreach (var list in groups.Values)
+        {
+            foreach (var (line, page) in list)
+            {
+                bool repeated = list.Any(o => o.Page.Number != page.Number && Math.Abs(o.Line.Baseline - line.Baseline) < 3);
+                if (repeated && HeaderMatcher.Match(line) is null) set.Add(line);
+            }
+        }
+        return set;
+    }
+
+    /// <summary>In the top or bottom sixth of the page, where running headers and footers sit.</summary>
+    private static bool InMargin(TextLine line, TextPage page) =>
+        page.Height <= 0 || line.Baseline > page.Height * (5.0 / 6) || line.Baseline < page.Height / 6;
+
+    [GeneratedRegex(@"\b(?:page|sheet|p\.|pg\.?)\s*\d", RegexOptions.IgnoreCase)]
+    private static partial Regex PageWords();
+
+    [GeneratedRegex(@"^\s*(?:notes?\b|\*|†|‡)", RegexOptions.IgnoreCase)]
+    private static partial Regex NoteLead();
+}
