@@ -24,6 +24,7 @@ public static class App
             "its author claims, and writes a review memo. It checks analysis arithmetic only; the engineer of record stays responsible.");
         root.Add(ReviewCommand.Create(io));
         root.Add(SolveCommand.Create(io));
+        root.Add(ExtractCommand.Create(io));
         foreach (var cmd in ExtraCommands) root.Add(cmd(io));
         foreach (var sub in root.Subcommands)
             if (!sub.Options.OfType<VersionOption>().Any()) sub.Add(new VersionOption());

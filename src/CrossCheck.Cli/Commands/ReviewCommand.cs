@@ -24,18 +24,24 @@ internal static partial class ReviewCommand
         var abs = new Option<double>("--abs-tolerance") { Description = "Agreement floor in the submission's moment unit.", DefaultValueFactory = _ => 0.1 };
         var minor = new Option<double>("--minor-tolerance") { Description = "Differences up to this fraction of the peak are minor; beyond, discrepant.", DefaultValueFactory = _ => 0.05 };
         var quiet = new Option<bool>("--quiet", "-q") { Description = "Print no summary." };
+        var (maxPages, timeLimit) = CommandSupport.PdfLimitOptions();
         var cmd = new Command("review", "Recompute the end moments, check the claimed numbers, and write a review memo.")
         {
-            submission, format, output, template, reviewer, date, rel, abs, minor, quiet,
+            submission, format, output, template, reviewer, date, rel, abs, minor, quiet, maxPages, timeLimit,
         };
-        cmd.SetAction(pr => Run(new Request(
-            pr.GetValue(submission)!, pr.GetValue(format)!, pr.GetValue(output), pr.GetValue(template), pr.GetValue(reviewer), pr.GetValue(date),
-            pr.GetValue(rel), pr.GetValue(abs), pr.GetValue(minor), pr.GetValue(quiet)), io));
+        cmd.SetAction(pr =>
+        {
+            var limits = CommandSupport.Limits(pr, maxPages, timeLimit, io);
+            if (limits is null) return ExitCodes.InputError;
+            return Run(new Request(
+                pr.GetValue(submission)!, pr.GetValue(format)!, pr.GetValue(output), pr.GetValue(template), pr.GetValue(reviewer), pr.GetValue(date),
+                pr.GetValue(rel), pr.GetValue(abs), pr.GetValue(minor), pr.GetValue(quiet), limits), io);
+        });
         return cmd;
     }
 
     private sealed record Request(string Path, string Format, string? Out, string? Template, string? Reviewer, string? Date,
-        double Relative, double Absolute, double Minor, bool Quiet);
+        double Relative, double Absolute, double Minor, bool Quiet, Import.Pdf.PdfLimits Limits);
 
     private static int Run(Request r, CliIo io)
     {
@@ -63,7 +69,7 @@ internal static partial class ReviewCommand
             templateText = File.ReadAllText(r.Template);
         }
 
-        var imported = SubmissionReader.Read(r.Path);
+        var imported = SubmissionReader.Read(r.Path, r.Limits);
         if (!imported.Succeeded)
         {
             var errors = imported.Errors.ToList();

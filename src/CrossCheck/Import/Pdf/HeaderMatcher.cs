@@ -79,7 +79,7 @@ internal static partial class HeaderMatcher
         {
             var prev = block[^1];
             var next = lines[k];
-            if (next.Page != prev.Page || prev.Baseline - next.Baseline > 1.7 * Math.Max(prev.Size, next.Size) || next.Baseline >= prev.Baseline) break;
+            if (next.Page != prev.Page || prev.Baseline - next.Baseline > 2.2 * Math.Max(prev.Size, next.Size) || next.Baseline >= prev.Baseline) break;
             block.Add(next);
             result.Add(Best(block));
         }

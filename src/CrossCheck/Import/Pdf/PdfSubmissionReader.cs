@@ -88,7 +88,8 @@ public static class PdfSubmissionReader
             var infoTable = InfoTable(info, merged.FirstOrDefault(m => m.Spec == TableSchema.Info));
             if (infoTable is not null) tables.Add(infoTable);
             foreach (var m in merged.Where(m => m.Spec != TableSchema.Info)) tables.Add(m.ToRaw(_file));
-            var reports = merged.Select(Report).ToList();
+            var reports = merged.Where(m => m.Spec != TableSchema.Info).Select(Report).ToList();
+            if (infoTable is not null) reports.Insert(0, InfoReport(infoTable));
             return new PdfExtraction(path, tables, reports, _ignored, problems);
         }
 
@@ -193,7 +194,7 @@ public static class PdfSubmissionReader
                 var h = t.Columns[k].Header!;
                 if (h.Column is { } c)
                 {
-                    string? unit = c.Type == ColumnType.Number ? h.Unit : null;
+                    string? unit = c.Type == ColumnType.Number ? h.Unit ?? t.UnitsRow?.GetValueOrDefault(k) : null;
                     string? external = c.Type == ColumnType.Number && unit is null
                         ? ExternalUnit(t, t.Columns[k], c.Kind, t.Spec == TableSchema.Displacements) : null;
                     seg.Columns.Add(new SegmentColumn(c, HeaderName(t.Spec, h), unit, external, h.Printed));
@@ -307,7 +308,7 @@ public static class PdfSubmissionReader
                     problems.Add(new InputProblem(where, Messages.UnknownColumn(h.Printed, TableSchema.EndMoments), ProblemSeverity.Warning));
                     continue;
                 }
-                string? u = h.Unit ?? ExternalUnit(t, t.Columns[k], QuantityKind.Moment, false);
+                string? u = h.Unit ?? t.UnitsRow?.GetValueOrDefault(k) ?? ExternalUnit(t, t.Columns[k], QuantityKind.Moment, false);
                 if (u is not null)
                 {
                     if (unit is null) { unit = u; unitFrom = h.Printed; }
@@ -454,6 +455,14 @@ public static class PdfSubmissionReader
         }
 
         // ---- report ------------------------------------------------------------------------------------
+
+        private static PdfTableReport InfoReport(RawTable info)
+        {
+            var pages = info.Rows.GroupBy(r => r.Page).Select(g => string.Create(CultureInfo.InvariantCulture,
+                $"p.{g.Key} line{(g.Count() > 1 ? "s" : "")} {string.Join(", ", g.Select(r => r.Line).Distinct())}"));
+            var keys = info.Rows.Select(r => $"{r.Cell(0)} → {TableSchema.InfoKey(r.Cell(0)) ?? TableSchema.Normalize(r.Cell(0))}").ToList();
+            return new PdfTableReport("info", string.Join("; ", pages), info.Rows.Count, keys, "title block and settings from 'key: value' lines");
+        }
 
         private PdfTableReport Report(Segment s)
         {

@@ -21,6 +21,9 @@ internal sealed class FoundTable(HeaderMatch header)
     /// <summary>Note lines just below the last row (units, what parentheses mean).</summary>
     public List<TextLine> Below { get; } = [];
 
+    /// <summary>Units from a units row under the header, by column index.</summary>
+    public Dictionary<int, string>? UnitsRow { get; set; }
+
     /// <summary>True while the table ran to the foot of its page and may continue on the next.</summary>
     public bool Open { get; set; }
 
@@ -137,14 +140,22 @@ internal sealed partial class PdfTableFinder
             if (Furniture.Contains(line)) { j++; continue; }
             double gap = last is double b ? b - line.Baseline : 0;
             double limit = pitches.Count == 0 ? 3.5 * size : Math.Max(2.2 * Median(pitches), 1.9 * size);
+            string? label = hasCase && line.Chunks().Count == 1 ? PdfStatements.CaseLabel(line.Text) : null;
             bool stop = gap > limit
                         || line.Size > 1.25 * size || line.Size < 0.7 * size
                         || HeaderAt(j) is not null
                         || IsStatement(line)
-                        || line.Chunks().Any(c => c.Words.Count >= 6);
-            string? label = null;
-            if (!stop && hasCase && line.Chunks().Count == 1) label = PdfStatements.CaseLabel(line.Text);
+                        || (label is null && line.Chunks().Any(c => c.Words.Count >= 6));
             if (stop) { toFoot = false; break; }
+            if (entries.Count == 0 && t.RowLines.Count == 0 && t.UnitsRow is null && UnitsRow(t, line) is { } unitsRow)
+            {
+                // A units row the header block did not take in (set farther below the header than a wrapped line).
+                t.UnitsRow = unitsRow;
+                Consumed.Add(line);
+                last = line.Baseline;
+                j++;
+                continue;
+            }
             entries.Add((j, line, label));
             if (last is not null) pitches.Add(gap);
             last = line.Baseline;
@@ -181,6 +192,24 @@ internal sealed partial class PdfTableFinder
         }
         t.Open = toFoot && t.RowLines.Count > 0;
         return t.Open ? j : AttachBelow(t, j);
+    }
+
+    /// <summary>The units a line gives the columns it sits under, when every piece of it is a unit (<c>(m)</c>, <c>[kN·m]</c>, <c>kNm</c>).</summary>
+    private static Dictionary<int, string>? UnitsRow(FoundTable t, TextLine line)
+    {
+        var placed = TableLayout.PlaceLine(t.Columns, line, t.Header.Tight);
+        if (placed is null || placed.Leading is not null) return null;
+        var units = new Dictionary<int, string>();
+        for (int k = 0; k < placed.Cells.Length; k++)
+        {
+            if (placed.Cells[k] is not { } text) continue;
+            string u = text.Trim();
+            if (u.Length > 2 && (u[0], u[^1]) is ('(', ')') or ('[', ']')) u = u[1..^1].Trim();
+            var kind = t.Columns[k].Header?.Column?.Kind;
+            if (kind is null or QuantityKind.Number || UnitReader.TryRead(u, kind.Value) is null) return null;
+            units[k] = u;
+        }
+        return units.Count > 0 ? units : null;
     }
 
     private static double Median(List<double> xs)
@@ -259,7 +288,7 @@ internal sealed partial class PdfTableFinder
         {
             foreach (var (line, page) in list)
             {
-                bool repeated = list.Any(o => o.Page.Number != page.Number && Math.Abs(o.Line.Baseline - line.Baseline) < 3);
+                bool repeated = list.Any(o => o.Page.Number != page.Number && Math.Abs(o.Line.Baseline - line.Baseline) < 2 * line.Size);
                 if (repeated && HeaderMatcher.Match(line) is null) set.Add(line);
             }
         }
