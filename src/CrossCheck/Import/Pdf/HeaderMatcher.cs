@@ -80,6 +80,8 @@ internal static partial class HeaderMatcher
             var prev = block[^1];
             var next = lines[k];
             if (next.Page != prev.Page || prev.Baseline - next.Baseline > 2.2 * Math.Max(prev.Size, next.Size) || next.Baseline >= prev.Baseline) break;
+            // A line with a number in it is a row of data, not the rest of a header.
+            if (next.Chunks().Any(c => IsNumber(c.Text))) break;
             block.Add(next);
             result.Add(Best(block));
         }
@@ -99,6 +101,10 @@ internal static partial class HeaderMatcher
         }
         return best;
     }
+
+    private static bool IsNumber(string text) =>
+        NumberText.TryParse(text.Replace('\u2212', '-').Trim('(', ')'), false, out _)
+        || NumberText.TryParse(text.Replace(",", "", StringComparison.Ordinal).Replace('\u2212', '-'), false, out _);
 
     /// <summary>A header cell candidate: words and the text they make.</summary>
     private sealed record Piece(IReadOnlyList<TextWord> Words, string Text)
@@ -150,7 +156,7 @@ internal static partial class HeaderMatcher
                 Add(whole, piece.Words);
                 continue;
             }
-            var split = piece.Words.Count >= 2 && piece.Words.Count <= 12 ? Split(spec, piece.Words, used) : null;
+            var split = piece.Words.Count >= 2 && piece.Words.Count <= 30 ? Split(spec, piece.Words, used) : null;
             if (split is not null)
             {
                 tight = true;
@@ -167,19 +173,26 @@ internal static partial class HeaderMatcher
         }
         var match = new HeaderMatch(spec, cells, lines, tight);
         if (match.Known < 2 || match.Known < match.Unknown) return null;
+        // A run of words cut into names counts when it names three columns or more, or two by words of their own
+        // ("support restraint"); "Load case W" is a label, not the columns 'case' and 'w'.
+        if (tight && pieces.Count == 1 && match.Known < 3 && cells.Any(c => !c.IsKnown || TableSchema.Normalize(c.Name).Length < 2)) return null;
         // Data rows are not headers: a header holds no bare numbers, and names at least one column by a word
         // (a row "A 41.7" must not pass for the columns 'a' and 'b').
-        if (cells.Any(c => !c.IsKnown && NumberText.TryParse(c.Printed.Replace('\u2212', '-'), false, out _))) return null;
+        if (cells.Any(c => !c.IsKnown && IsNumber(c.Printed))) return null;
         if (!cells.Any(c => c.Subscript is not null || (c.Column is not null && TableSchema.Normalize(c.Name).Length >= 2))) return null;
         return match;
     }
 
-    /// <summary>Splits a tightly set piece into consecutive word groups that are all known, distinct names.</summary>
+    /// <summary>
+    /// Splits a tightly set piece into consecutive word groups that are all known, distinct names. Of the ways to
+    /// split it, the one whose cells hold the narrowest gaps wins (<c>span  length [m]</c> set with a wider gap after
+    /// <c>span</c> is two cells, not the synonym <c>span length</c>); then the one with fewer cells.
+    /// </summary>
     private static List<(CellMatch Match, IReadOnlyList<TextWord> Words)>? Split(TableSpec spec, IReadOnlyList<TextWord> words, HashSet<string> used)
     {
         int n = words.Count;
-        var best = new List<(CellMatch, IReadOnlyList<TextWord>)>?[n + 1];
-        best[0] = [];
+        var best = new (List<(CellMatch, IReadOnlyList<TextWord>)> Cells, double Gap)?[n + 1];
+        best[0] = ([], 0);
         for (int end = 1; end <= n; end++)
         {
             for (int start = Math.Max(0, end - 6); start < end; start++)
@@ -188,12 +201,16 @@ internal static partial class HeaderMatcher
                 var group = words.Skip(start).Take(end - start).ToList();
                 var m = MatchCell(spec, string.Join(" ", group.Select(w => w.Text)));
                 if (m is null) continue;
-                if (m.Column is not null && (used.Contains(m.Column.Name) || prefix.Any(p => p.Item1.Column == m.Column))) continue;
-                var candidate = new List<(CellMatch, IReadOnlyList<TextWord>)>(prefix) { (m, group) };
-                if (best[end] is null || candidate.Count < best[end]!.Count) best[end] = candidate;
+                if (m.Column is not null && (used.Contains(m.Column.Name) || prefix.Cells.Any(p => p.Item1.Column == m.Column))) continue;
+                double inner = 0;
+                for (int k = 1; k < group.Count; k++) inner = Math.Max(inner, (group[k].Left - group[k - 1].Right) / Math.Max(1, group[k].Size));
+                var candidate = (Cells: new List<(CellMatch, IReadOnlyList<TextWord>)>(prefix.Cells) { (m, group) }, Gap: Math.Max(prefix.Gap, inner));
+                if (best[end] is not { } current || candidate.Gap < current.Gap - 0.05
+                    || (Math.Abs(candidate.Gap - current.Gap) <= 0.05 && candidate.Cells.Count < current.Cells.Count))
+                    best[end] = candidate;
             }
         }
-        return best[n] is { Count: >= 2 } result ? result : null;
+        return best[n] is { Cells.Count: >= 2 } result ? result.Cells : null;
     }
 
     /// <summary>What one header cell's text stands for in a table of the format.</summary>

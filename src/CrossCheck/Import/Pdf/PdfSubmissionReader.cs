@@ -59,7 +59,6 @@ public static class PdfSubmissionReader
         private readonly List<PdfIgnored> _ignored = [];
         private readonly string _file = doc.File;
         private readonly List<(TextLine Line, UnitsStatement Units)> _docUnits = [];
-        private bool _docParentheses;
         private NumberStyle _style = new(false, false);
         private bool _warnedParentheses, _warnedThousands;
 
@@ -70,7 +69,7 @@ public static class PdfSubmissionReader
             var attached = new HashSet<TextLine>(_finder.Tables.SelectMany(t => t.Above.Concat(t.Below)));
             var info = ReadStatements(tableLines, attached);
             var (comma, pointSeen) = PdfNumbers.Detect(NumberCells());
-            _style = new NumberStyle(comma, _docParentheses, pointSeen);
+            _style = new NumberStyle(comma, _parenthesesNote is not null, pointSeen);
 
             if (_finder.Tables.Count == 0)
             {
@@ -119,10 +118,12 @@ public static class PdfSubmissionReader
                 var pairs = PdfStatements.KeyValues(line);
                 foreach (var kv in pairs.Where(p => p.Key != "units"))
                     if (keys.Add(kv.Key)) info.Add((kv, line));
-                if (attached.Contains(line)) { FlushRun(); continue; }
+                // Units lines hold from where they stand until the next one; a note that parentheses mean negative
+                // holds for the whole document (wherever it is printed, next to a table or not).
                 var units = PdfStatements.Units(line.Text);
                 if (units is not null) _docUnits.Add((line, units));
-                if (PdfStatements.SaysParenthesesNegative(line.Text)) _docParentheses = true;
+                if (PdfStatements.SaysParenthesesNegative(line.Text) && _parenthesesNote is null) _parenthesesNote = line;
+                if (attached.Contains(line)) { FlushRun(); continue; }
                 bool tabular = !furniture && pairs.Count == 0 && units is null && PdfTableFinder.LooksTabular(line);
                 if (tabular && (tabularRun.Count == 0 || (tabularRun[^1].Page == line.Page && tabularRun[^1].Baseline - line.Baseline < 3 * line.Size)))
                 {
@@ -133,13 +134,14 @@ public static class PdfSubmissionReader
                 if (tabular) tabularRun.Add(line);
             }
             FlushRun();
-            foreach (var t in _finder.Tables)
-                if (t.Above.Concat(t.Below).Any(l => PdfStatements.SaysParenthesesNegative(l.Text))) _tableParentheses.Add(t);
+            if (_parenthesesNote is { } note)
+                _ignored.Add(new PdfIgnored(new SourceRef(_file, null, note.Number, null, note.Page),
+                    "numbers in parentheses were read as negative, as this note says"));
             return info;
         }
 
         private readonly List<string> _seenHeaders = [];
-        private readonly HashSet<FoundTable> _tableParentheses = [];
+        private TextLine? _parenthesesNote;
 
         private List<string> HeaderRowsSeen(HashSet<TextLine> tableLines) => _seenHeaders.Take(8).ToList();
 
@@ -160,6 +162,8 @@ public static class PdfSubmissionReader
         private string? ExternalUnit(FoundTable t, FoundColumn col, QuantityKind kind, bool displacement)
         {
             // A group header directly above: "End moments [kN·m]" over some of the columns.
+            // A caption ("Table 3: End moments (kN·m)") gives its unit to every column of that kind; a group header set
+            // over some of the columns ("Settlements [mm]", starting right of the table's first column) only to those.
             foreach (var line in t.Above)
             {
                 bool direct = line.Baseline - t.First.Baseline < 2.2 * t.First.Size;
@@ -167,9 +171,9 @@ public static class PdfSubmissionReader
                 {
                     var st = PdfStatements.Bracketed(chunk.Text);
                     if (st is null) continue;
-                    bool spansAll = chunk.Left <= t.Header.Left + 1 && chunk.Right >= t.Header.Right - 1;
+                    bool caption = !direct || chunk.Left <= t.Header.Left + t.First.Size;
                     bool over = Geometry.Overlap(chunk.Left, chunk.Right, col.HeadLeft, col.HeadRight) > 0;
-                    if (direct && !spansAll && !over) continue;
+                    if (!caption && !over) continue;
                     if (st.For(kind, displacement) is { } u) return u;
                 }
             }
@@ -186,8 +190,7 @@ public static class PdfSubmissionReader
         private Segment Segment(FoundTable t)
         {
             var seg = new Segment(t.Spec, t);
-            bool parentheses = _style.ParenthesesNegative || _tableParentheses.Contains(t);
-            var style = _style with { ParenthesesNegative = parentheses };
+            var style = _style;
             var keep = new List<int>();
             for (int k = 0; k < t.Columns.Count; k++)
             {
@@ -344,8 +347,7 @@ public static class PdfSubmissionReader
             seg.Columns.Add(new SegmentColumn(TableSchema.EndMoments.Column("at"), "at", null, null, "at"));
             seg.Columns.Add(new SegmentColumn(TableSchema.EndMoments.Column("moment"), "moment", unit, null, "moment"));
             seg.WideFrom = ends.Select(e => e.Printed).ToList();
-            bool parentheses = _style.ParenthesesNegative || _tableParentheses.Contains(t);
-            var style = _style with { ParenthesesNegative = parentheses };
+            var style = _style;
             string? captionCase = CaptionCase(t);
             for (int r = 0; r < t.Placed.Count; r++)
             {

@@ -21,6 +21,9 @@ internal sealed class FoundTable(HeaderMatch header)
     /// <summary>Note lines just below the last row (units, what parentheses mean).</summary>
     public List<TextLine> Below { get; } = [];
 
+    /// <summary>The load-case label in force where this part of a table begins (printed in the part before).</summary>
+    public (string Case, TextLine Label)? InheritedCase { get; set; }
+
     /// <summary>Units from a units row under the header, by column index.</summary>
     public Dictionary<int, string>? UnitsRow { get; set; }
 
@@ -75,6 +78,7 @@ internal sealed partial class PdfTableFinder
         {
             var line = _lines[i];
             if (Furniture.Contains(line) || Consumed.Contains(line)) { i++; continue; }
+            FoundTable? before = open;
             if (open is not null && line.Page != open.LastPage)
             {
                 if (line.Page == open.LastPage + 1 && HeaderAt(i) is null && ContinuesWithoutHeader(open, line))
@@ -88,6 +92,10 @@ internal sealed partial class PdfTableFinder
             if (HeaderAt(i) is { } h)
             {
                 var t = new FoundTable(h);
+                // The header repeated on the next page: the load-case label in force carries on.
+                if (before is not null && before.Spec == h.Spec && before.Header.Signature.SequenceEqual(h.Signature) && before.RowLines.Count > 0
+                    && before.RowCase.TryGetValue(before.RowLines[^1], out var inherited))
+                    t.InheritedCase = inherited;
                 AttachAbove(t, i);
                 foreach (var l in h.Lines) Consumed.Add(l);
                 Tables.Add(t);
@@ -143,7 +151,7 @@ internal sealed partial class PdfTableFinder
             string? label = hasCase && line.Chunks().Count == 1 ? PdfStatements.CaseLabel(line.Text) : null;
             bool stop = gap > limit
                         || line.Size > 1.25 * size || line.Size < 0.7 * size
-                        || HeaderAt(j) is not null
+                        || (label is null && HeaderAt(j) is not null)
                         || IsStatement(line)
                         || (label is null && line.Chunks().Any(c => c.Words.Count >= 6));
             if (stop) { toFoot = false; break; }
@@ -173,8 +181,8 @@ internal sealed partial class PdfTableFinder
             // Labels printed after the last accepted row belong to what follows.
             while (entries.Count > 0 && _index[entries[^1].Line] >= j) entries.RemoveAt(entries.Count - 1);
         }
-        // A label stays in force across a page break.
-        (string Case, TextLine Label)? current = before > 0 && t.RowCase.TryGetValue(t.RowLines[^1], out var held) ? held : null;
+        // A label stays in force across a page break, and into the part of the table printed under a repeated header.
+        (string Case, TextLine Label)? current = before > 0 && t.RowCase.TryGetValue(t.RowLines[^1], out var held) ? held : t.InheritedCase;
         int taken = 0;
         foreach (var e in entries)
         {

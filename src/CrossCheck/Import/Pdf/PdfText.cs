@@ -18,8 +18,9 @@ internal sealed record TextWord(string Text, double Left, double Right, double S
 /// </summary>
 internal sealed class TextLine
 {
-    public TextLine(int page, int number, IReadOnlyList<TextWord> words, double baseline, double size)
+    public TextLine(int page, int number, IReadOnlyList<TextWord> words, double baseline, double size, double? spaceWidth = null)
     {
+        SpaceWidth = spaceWidth;
         Page = page;
         Number = number;
         Words = words;
@@ -38,6 +39,9 @@ internal sealed class TextLine
     /// <summary>Font size of the main letters (points).</summary>
     public double Size { get; }
 
+    /// <summary>Width of a space in the line's font, when the PDF sets spaces as letters (a monospace space is 0.6 em).</summary>
+    public double? SpaceWidth { get; }
+
     /// <summary>The words joined by single spaces.</summary>
     public string Text { get; }
 
@@ -45,17 +49,20 @@ internal sealed class TextLine
     public double Right => Words[^1].Right;
 
     /// <summary>
-    /// The line cut where the space between two words is wider than <paramref name="gapEm"/> times the font size:
-    /// the pieces a table's column gaps leave (a header such as <c>L [m]</c> stays one piece).
+    /// The line cut where the space between two words is wider than <paramref name="gapEm"/> times the font size
+    /// (and clearly wider than one of the font's spaces): the pieces a table's column gaps leave (a header such as
+    /// <c>L [m]</c> stays one piece).
     /// </summary>
     public IReadOnlyList<Chunk> Chunks(double gapEm = Chunk.DefaultGapEm)
     {
+        if (gapEm == Chunk.DefaultGapEm && _chunks is not null) return _chunks;
         var chunks = new List<Chunk>();
         var current = new List<TextWord> { Words[0] };
+        double space = 1.6 * (SpaceWidth ?? 0);
         for (int i = 1; i < Words.Count; i++)
         {
             double size = Math.Max(Words[i - 1].Size, Words[i].Size);
-            if (Words[i].Left - Words[i - 1].Right > gapEm * size)
+            if (Words[i].Left - Words[i - 1].Right > Math.Max(gapEm * size, space))
             {
                 chunks.Add(new Chunk(current));
                 current = [];
@@ -63,8 +70,11 @@ internal sealed class TextLine
             current.Add(Words[i]);
         }
         chunks.Add(new Chunk(current));
+        if (gapEm == Chunk.DefaultGapEm) _chunks = chunks;
         return chunks;
     }
+
+    private IReadOnlyList<Chunk>? _chunks;
 
     public override string ToString() => $"p{Page}:{Number}: {Text}";
 }

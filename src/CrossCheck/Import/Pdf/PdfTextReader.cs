@@ -221,27 +221,26 @@ internal static class PdfTextReader
         }
 
         Reattach(builders);
-        var made = new List<(double Baseline, double Size, List<TextWord> Words)>();
+        var made = new List<(double Baseline, double Size, List<TextWord> Words, double? Space)>();
         foreach (var b in builders)
         {
             if (b.Glyphs.Count == 0) continue;
             var visible = b.Glyphs.Where(g => !g.IsSpace).ToList();
             if (visible.Count == 0) continue;
-            double size = DominantSize(visible);
-            var main = visible.Where(g => g.Size >= 0.9 * size).Select(g => g.Base).Order().ToList();
+            MarkScripts(visible);
+            var normal = visible.Where(g => g.Script == Script.None).ToList();
+            double size = DominantSize(normal);
+            var main = normal.Where(g => g.Size >= 0.9 * size).Select(g => g.Base).Order().ToList();
             double baseline = main[main.Count / 2];
-            foreach (var g in b.Glyphs)
-            {
-                if (g.IsSpace || g.Size >= 0.9 * size) continue;
-                if (g.Base - baseline > 0.12 * size) g.Script = Script.Super;
-                else if (baseline - g.Base > 0.08 * size) g.Script = Script.Sub;
-            }
             var words = Words(b.Glyphs, size);
-            if (words.Count > 0) made.Add((baseline, size, words));
+            var spaces = b.Glyphs.Where(g => g.IsSpace && g.Size >= 0.9 * size && g.X1 - g.X0 > 0.05 * size && g.X1 - g.X0 < 1.2 * size)
+                .Select(g => g.X1 - g.X0).Order().ToList();
+            double? space = spaces.Count == 0 ? null : spaces[spaces.Count / 2];
+            if (words.Count > 0) made.Add((baseline, size, words, space));
         }
         made.Sort((a, b) => b.Baseline.CompareTo(a.Baseline));
         var lines = new List<TextLine>(made.Count);
-        for (int i = 0; i < made.Count; i++) lines.Add(new TextLine(pageNumber, i + 1, made[i].Words, made[i].Baseline, made[i].Size));
+        for (int i = 0; i < made.Count; i++) lines.Add(new TextLine(pageNumber, i + 1, made[i].Words, made[i].Baseline, made[i].Size, made[i].Space));
         return (lines, invisible, rotated);
     }
 
@@ -284,6 +283,36 @@ internal static class PdfTextReader
         {
             from.Glyphs.Remove(g);
             to.Glyphs.Add(g);
+        }
+    }
+
+    /// <summary>
+    /// Marks sub- and superscripts: a letter smaller than the letter it follows (touching it), set below or above that
+    /// letter's baseline. Judged letter by letter, so that a header of many subscripts (<c>M_AB</c>, <c>M_BA</c>, ...)
+    /// is read as well as a single <c>mm⁴</c>.
+    /// </summary>
+    private static void MarkScripts(List<Glyph> glyphs)
+    {
+        var sorted = glyphs.OrderBy(g => g.X0).ToList();
+        Glyph? basis = null, prev = null;
+        foreach (var g in sorted)
+        {
+            // A script run goes on while its letters touch and keep the size and baseline of the run.
+            if (prev is { Script: not Script.None } && basis is not null && g.X0 - prev.X1 < 0.3 * prev.Size
+                && Math.Abs(g.Size - prev.Size) < 0.1 * prev.Size && Math.Abs(g.Base - prev.Base) < 0.1 * prev.Size)
+            {
+                g.Script = prev.Script;
+                prev = g;
+                continue;
+            }
+            if (basis is not null && prev is not null && g.X0 - prev.X1 < 0.3 * basis.Size && g.Size < 0.85 * basis.Size)
+            {
+                if (g.Base - basis.Base > 0.12 * basis.Size) { g.Script = Script.Super; prev = g; continue; }
+                if (basis.Base - g.Base > 0.08 * basis.Size) { g.Script = Script.Sub; prev = g; continue; }
+            }
+            g.Script = Script.None;
+            basis = g;
+            prev = g;
         }
     }
 

@@ -157,6 +157,8 @@ internal static class TableLayout
             cells[c] = cells[c] is null ? p.Text : cells[c] + " " + p.Text;
             if (edges is not null) { edges[c].Lefts.Add(p.Left); edges[c].Rights.Add(p.Right); }
         }
+        // Text left of the first column belongs to it unless the first column has a value of its own in this row.
+        if (leading is not null && cells.Length > 0 && cells[0] is null) { cells[0] = leading; leading = null; }
         int filled = cells.Count(c => c is not null) + (leading is null ? 0 : 1);
         if (filled < Math.Min(2, n)) return null;
         return new Placed(cells, leading, worst);
