@@ -154,7 +154,7 @@ public sealed class SubmissionBuilder
         if (v is "cw") return SignConvention.Clockwise;
         if (v is "bending") return SignConvention.Sagging;
         var words = v.Split(' ', StringSplitOptions.RemoveEmptyEntries);
-        if (words.Any(w => w is "anticlockwise" or "counterclockwise" or "counter" or "hogging" or "anti")) return null;
+        if (words.Any(w => w is "anticlockwise" or "counterclockwise" or "counter" or "anti") || v.Contains("hogging positive", StringComparison.Ordinal)) return null;
         bool cw = words.Contains("clockwise"), sag = words.Contains("sagging");
         return cw == sag ? null : cw ? SignConvention.Clockwise : SignConvention.Sagging;
     }

@@ -211,7 +211,7 @@ internal static partial class PdfStatements
     [GeneratedRegex(@"^(?:load\s+case|case|lc|load\s+combination|combination)(?:\s+no\.?)?(?:\s*[:\-–]\s*|\s+)(?<id>[^\s:,;()]+)(?:\s*[:\-–(,].*)?$", RegexOptions.IgnoreCase)]
     private static partial Regex CaseLabelRx();
 
-    [GeneratedRegex(@"\b(?:load\s+case|case|load\s+combination|combination)\s*(?:no\.?\s*)?[:\-–]?\s+(?<id>[^\s:,;()]+)", RegexOptions.IgnoreCase)]
+    [GeneratedRegex(@"\b(?:load\s+case|case|lc|load\s+combination|combination)\s*(?:no\.?\s*)?[:\-–]?\s+(?<id>[^\s:,;()]+)", RegexOptions.IgnoreCase)]
     private static partial Regex CaptionCaseRx();
 
     [GeneratedRegex(@"^(?:(?:page|sheet|p\.|pg\.?)\s*\d+(?:\s*(?:of|/)\s*\d+)?|\d+\s*(?:of|/)\s*\d+|[-–]?\s*\d{1,4}\s*[-–]?)$", RegexOptions.IgnoreCase)]

@@ -22,14 +22,16 @@ public class PdfRoundTripTests
         new("dejavu-wide-labels-left-aligned") { Face = Face.DejaVuSans, WideMoments = true, RightAlign = false, Numbers = NumberLook.UnicodeMinus, Units = UnitPlacement.UnitsRow },
     ];
 
+    public static readonly string[] Submissions = ["footbridge.csv", "shed-frame", "every-column", "random-1", "random-2"];
+
     public static IEnumerable<object[]> Cases()
     {
         foreach (var layout in Layouts)
-            foreach (var submission in new[] { "footbridge.csv", "shed-frame", "every-column", "random-1", "random-2" })
+            foreach (var submission in Submissions)
                 yield return [submission, layout.Name];
     }
 
-    private static string Source(string name, TempSubmission t) => name switch
+    public static string Source(string name, TempSubmission t) => name switch
     {
         "every-column" => t.Write("every-column.csv", PdfTestData.EveryColumn),
         "random-1" => t.Write("random-1.csv", PdfTestData.RandomFrame(seed: 11, bays: 2, storeys: 2)),

@@ -81,13 +81,25 @@ public static class SubmissionPdf
         ["moment"] = "End moment", ["Rx"] = "H", ["Ry"] = "V", ["ux"] = "Sway", ["uy"] = "Deflection", ["rotation"] = "Rotation",
     };
 
-    public static byte[] Render(IReadOnlyList<RawTable> tables, Layout layout)
+    public static byte[] Render(IReadOnlyList<RawTable> tables, Layout layout) => RenderWithTruth(tables, layout).Pdf;
+
+    /// <summary>
+    /// The PDF, and what it prints in the form of the submission format (the reference for measuring how many cells
+    /// a reader gets right): a wide end-moment table as its long form, row by row in printed order; load-case labels as a
+    /// case column; units in the headers wherever they were printed.
+    /// </summary>
+    public static (byte[] Pdf, List<RawTable> Printed) RenderWithTruth(IReadOnlyList<RawTable> tables, Layout layout)
     {
+        var printed = new List<RawTable>();
         var w = new PdfFixtureWriter(layout.Face, layout.Size, layout.Landscape, layout.RunningHeader);
         w.Text("Structural calculation (test fixture)", 1.5 * layout.Size, bold: true).Gap(0.5);
         var info = tables.FirstOrDefault(t => TableSchema.Find(t.Name) == TableSchema.Info);
         if (info is not null)
-            foreach (var r in info.Rows.Where(r => !r.IsBlank && r.Cell(1).Length > 0)) w.Text($"{r.Cell(0)}: {r.Cell(1)}");
+        {
+            var rows = info.Rows.Where(r => !r.IsBlank && r.Cell(1).Length > 0).ToList();
+            foreach (var r in rows) w.Text($"{r.Cell(0)}: {r.Cell(1)}");
+            printed.Add(Truth("info", ["key", "value"], rows.Select(r => (IReadOnlyList<string>)[r.Cell(0), r.Cell(1)])));
+        }
         if (layout.Numbers == NumberLook.Parentheses) w.Text("Negative values are shown in brackets.");
         if (layout.Prose)
             w.Paragraph("The analysis below is a linear elastic analysis of the structure described by the following tables. " +
@@ -101,10 +113,11 @@ public static class SubmissionPdf
             n++;
             w.Heading($"{n}. {Capital(spec.Name.Replace('-', ' '))}");
             if (layout.Prose && n % 2 == 0) w.Paragraph($"Table {n} lists the {spec.Name.Replace('-', ' ')} as used in the calculation, row by row.");
-            if (spec == TableSchema.EndMoments && layout.WideMoments && Wide(t, geometry, layout) is { } wide)
+            if (spec == TableSchema.EndMoments && layout.WideMoments && Wide(t, geometry, layout) is var (wide, wideEnds) && wide is not null)
             {
                 // Six member ends to a table, as a page-wide calc sheet would print them.
                 int parts = 0;
+                var longRows = new List<IReadOnlyList<string>>();
                 for (int from = 1; from < wide.Header.Count; from += 6)
                 {
                     int count = Math.Min(6, wide.Header.Count - from);
@@ -113,20 +126,36 @@ public static class SubmissionPdf
                         wide.Rows.Select(r => (IReadOnlyList<string>)[r[0], .. r.Skip(from).Take(count)]).ToList());
                     string title = parts++ == 0 ? $"Table {n}: final end moments{wide.Caption}" : $"Table {n} (continued){wide.Caption}";
                     w.Table(Style(part, layout) with { Caption = title });
+                    foreach (var row in wide.Rows)
+                        for (int k = from; k < from + count; k++)
+                            if (row[k].Length > 0) longRows.Add([row[0], wideEnds[k - 1].Member, wideEnds[k - 1].At, Plain(row[k])]);
                 }
+                string unit = wide.Caption is { Length: > 0 } cap ? $" {cap.Trim()}" : "";
+                printed.Add(Truth("end-moments", ["case", "member", "at", $"moment{unit}"], longRows));
                 continue;
             }
-            var fixture = Fixture(t, spec, layout);
+            var (fixture, truth) = Fixture(t, spec, layout);
             w.Table(fixture with { Caption = fixture.Caption ?? $"Table {n}: {spec.Name.Replace('-', ' ')}" });
+            printed.Add(truth);
         }
-        return w.Build();
+        return (w.Build(), printed);
+    }
+
+    private static RawTable Truth(string name, IReadOnlyList<string> header, IEnumerable<IReadOnlyList<string>> rows) =>
+        new(name, "printed", new RawRow(1, header), rows.Select((r, i) => new RawRow(i + 2, r)).ToList());
+
+    /// <summary>A number as printed, back in its plain form (the reference for a reader).</summary>
+    private static string Plain(string printed)
+    {
+        string s = printed.Replace('−', '-').Replace(",", "", StringComparison.Ordinal);
+        return s.StartsWith('(') && s.EndsWith(')') ? "-" + s[1..^1] : s;
     }
 
     private static string Capital(string s) => s.Length == 0 ? s : char.ToUpperInvariant(s[0]) + s[1..];
 
     private sealed record Column(ColumnSpec? Spec, string Name, string? Unit, int Index);
 
-    private static FixtureTable Fixture(RawTable t, TableSpec spec, Layout layout)
+    private static (FixtureTable Table, RawTable Truth) Fixture(RawTable t, TableSpec spec, Layout layout)
     {
         var cols = new List<Column>();
         for (int i = 0; i < t.Header.Cells.Count; i++)
@@ -166,7 +195,19 @@ public static class SubmissionPdf
                 ? table with { Caption = $"Units: {string.Join(", ", units)}" }
                 : table with { Header = cols.Select(c => c.Unit is null ? c.Name : $"{c.Name} [{Sup(c.Unit)}]").ToList() };
         }
-        return Style(table, layout);
+        var truthHeader = cols.Select(c => c.Unit is null ? c.Spec!.Name : $"{c.Spec!.Name} [{c.Unit}]").ToList();
+        var truthRows = rows.Select(r => (IReadOnlyList<string>)cols.Select(c => r.Cell(c.Index)).ToList()).ToList();
+        if (labels is not null)
+        {
+            truthHeader.Add("case");
+            string current = "";
+            for (int r = 0; r < truthRows.Count; r++)
+            {
+                if (labels.TryGetValue(r, out var l)) current = l["Load case ".Length..];
+                truthRows[r] = [.. truthRows[r], current];
+            }
+        }
+        return (Style(table, layout), Truth(spec.Name, truthHeader, truthRows));
     }
 
     private static FixtureTable Style(FixtureTable t, Layout layout)
@@ -250,7 +291,7 @@ public static class SubmissionPdf
         t.Header.Cells.Select((c, i) => (c, i)).First(x => TableSchema.ResolveColumn(spec, TableSchema.SplitHeader(x.c).Name)?.Name == column).i;
 
     /// <summary>The claims as one row per load case and one column per member end (<c>M_{AB}</c>).</summary>
-    private static FixtureTable? Wide(RawTable t, List<Ends> geometry, Layout layout)
+    private static (FixtureTable? Table, List<(string Member, string At)> Ends) Wide(RawTable t, List<Ends> geometry, Layout layout)
     {
         var spec = TableSchema.EndMoments;
         int c = t.Header.Cells.Select((h, i) => (h, i)).FirstOrDefault(x => TableSchema.ResolveColumn(spec, TableSchema.SplitHeader(x.h).Name)?.Name == "case", (h: "", i: -1)).i;
@@ -261,7 +302,7 @@ public static class SubmissionPdf
         foreach (var r in rows)
         {
             var g = geometry.FirstOrDefault(e => e.Member == r.Cell(m));
-            if (g is null) return null;
+            if (g is null) return (null, []);
             string at = r.Cell(a) switch { "start" => g.Start, "end" => g.End, var j => j };
             if (!ends.Contains((g.Member, at))) ends.Add((g.Member, at));
         }
@@ -286,7 +327,7 @@ public static class SubmissionPdf
             }
             cells.Add(row);
         }
-        return new FixtureTable(header, cells) { Caption = unit is null ? null : $" [{unit}]" };
+        return (new FixtureTable(header, cells) { Caption = unit is null ? null : $" [{unit}]" }, ends);
     }
 
     private static List<T> Shuffled<T>(this List<T> list, int seed)
