@@ -1,4 +1,5 @@
 using CrossCheck.Import;
+using CrossCheck.Review;
 using CrossCheck.Tests.Support;
 
 namespace CrossCheck.Tests.Import.Pdf;
@@ -57,5 +58,17 @@ public class PdfRoundTripTests
         PdfTestData.Canon(fromPdf.Submission!).ShouldBe(PdfTestData.Canon(fromCsv.Submission!));
         // Every claim points at the page and line it was printed on.
         fromPdf.Submission!.Claims.EndMoments.ShouldAllBe(c => c.Source.Page != null && c.Source.Row != null && c.Source.File == Path.GetFileName(pdf));
+
+        // Reviewed end to end, the PDF gives the CSV's verdict and findings.
+        var pdfReview = PdfFixtureReviewTests.ReviewOf(pdf);
+        PdfFixtureReviewTests.Findings(pdfReview).Order(StringComparer.Ordinal)
+            .ShouldBe(PdfFixtureReviewTests.Findings(PdfFixtureReviewTests.ReviewOf(csv)).Order(StringComparer.Ordinal));
+        pdfReview.Verdict.ShouldBe(submission switch
+        {
+            // The random frames claim the solver's own moments (to seven digits): nothing to find.
+            "random-1" or "random-2" => Verdict.Concur,
+            // The demos carry planted mistakes (fixtures/demo/README.md); the reading fixture's claims are invented.
+            _ => Verdict.Revise,
+        });
     }
 }
