@@ -97,6 +97,8 @@ internal static class Messages
         F($"reading the PDF took longer than the time budget of {seconds:0.#} s (stopped at page {page} of {pages}); raise it with --time-limit, or extract the calculation's pages");
     public static string PdfScanned(int pages) =>
         F($"the PDF has no extractable text: {(pages == 1 ? "its page is an image" : $"all {pages} pages are images")} (a scan?). CrossCheck does not read numbers from images; export the calculation's tables as a text PDF or as CSV");
+    public static string PdfInvisibleOnly =>
+        "the PDF's only text is invisible: an OCR layer over scanned images. CrossCheck does not read numbers recognised from images; export the calculation's tables as a text PDF or as CSV";
     public static string PdfNoText => "the PDF has no text on any page; export the calculation's tables as a text PDF or as CSV";
     public static string PdfPageImageOnly => "this page has no text, only images (a scanned page?); nothing on it was read";
     public static string PdfPageInvisibleText =>

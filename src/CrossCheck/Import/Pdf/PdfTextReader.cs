@@ -77,7 +77,7 @@ internal static class PdfTextReader
             if (n == 0) { problems.Add(new InputProblem(whole, Messages.PdfNoPages)); return (null, problems); }
             if (n > limits.MaxPages) { problems.Add(new InputProblem(whole, Messages.PdfTooManyPages(n, limits.MaxPages))); return (null, problems); }
             var pages = new List<TextPage>();
-            int imagePages = 0, textPages = 0;
+            int imagePages = 0, textPages = 0, invisiblePages = 0;
             for (int i = 1; i <= n; i++)
             {
                 progress.Page = i;
@@ -97,8 +97,10 @@ internal static class PdfTextReader
                 }
                 var (lines, invisible, rotated) = BuildLines(letters, i);
                 int images = lines.Count == 0 ? SafeImageCount(page) : 0;
-                if (lines.Count > 0) textPages++;
-                else if (invisible > 0) problems.Add(new InputProblem(pageRef, Messages.PdfPageInvisibleText, ProblemSeverity.Warning));
+                int visible = lines.Sum(l => l.Text.Count(c => !char.IsWhiteSpace(c)));
+                // A page whose text is mostly invisible is an OCR layer over a scan, even with a printed page number.
+                if (invisible > 0 && invisible > 4 * visible) { invisiblePages++; problems.Add(new InputProblem(pageRef, Messages.PdfPageInvisibleText, ProblemSeverity.Warning)); }
+                else if (lines.Count > 0) textPages++;
                 else if (images > 0) { imagePages++; problems.Add(new InputProblem(pageRef, Messages.PdfPageImageOnly, ProblemSeverity.Warning)); }
                 if (rotated > 0 && lines.Count > 0) problems.Add(new InputProblem(pageRef, Messages.PdfRotatedText(rotated), ProblemSeverity.Warning));
                 pages.Add(new TextPage(i, page.Width, page.Height, lines, images));
@@ -106,8 +108,7 @@ internal static class PdfTextReader
             if (textPages == 0)
             {
                 problems.RemoveAll(p => p.Where.Page is not null && !p.IsError);
-                bool anyInvisible = pages.Count > 0 && imagePages < n;
-                problems.Add(new InputProblem(whole, imagePages > 0 || anyInvisible ? Messages.PdfScanned(n) : Messages.PdfNoText));
+                problems.Add(new InputProblem(whole, invisiblePages > 0 ? Messages.PdfInvisibleOnly : imagePages > 0 ? Messages.PdfScanned(n) : Messages.PdfNoText));
                 return (null, problems);
             }
             return (new TextDocument(display, pages), problems);
