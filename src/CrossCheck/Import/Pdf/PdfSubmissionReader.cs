@@ -77,6 +77,14 @@ public static class PdfSubmissionReader
                 return new PdfExtraction(path, [], [], _ignored, problems);
             }
 
+            // A header with no rows under it (a running header that names columns, a table cut off) is dropped when
+            // the table is printed elsewhere with rows.
+            foreach (var empty in _finder.Tables.Where(t => t.RowLines.Count == 0 && _finder.Tables.Any(o => o.Spec == t.Spec && o.RowLines.Count > 0)).ToList())
+            {
+                _finder.Tables.Remove(empty);
+                _ignored.Add(new PdfIgnored(new SourceRef(_file, empty.Spec.Name, empty.First.Number, null, empty.First.Page),
+                    $"a header of table '{empty.Spec.Name}' with no rows under it (\"{Shorten(empty.First.Text)}\")"));
+            }
             var segments = _finder.Tables.Where(t => !t.Header.IsWide).Select(Segment).ToList();
             var geometry = MembersOf(segments);
             foreach (var t in _finder.Tables.Where(t => t.Header.IsWide))

@@ -153,7 +153,7 @@ internal sealed partial class PdfTableFinder
                         || line.Size > 1.25 * size || line.Size < 0.7 * size
                         || (label is null && HeaderAt(j) is not null)
                         || IsStatement(line)
-                        || (label is null && line.Chunks().Any(c => c.Words.Count >= 6));
+                        || (label is null && IsProse(line));
             if (stop) { toFoot = false; break; }
             if (entries.Count == 0 && t.RowLines.Count == 0 && t.UnitsRow is null && UnitsRow(t, line) is { } unitsRow)
             {
@@ -218,6 +218,15 @@ internal sealed partial class PdfTableFinder
             units[k] = u;
         }
         return units.Count > 0 ? units : null;
+    }
+
+    /// <summary>A run of six words or more, or a sentence of four (ending in a full stop or a colon), is prose, not a row.</summary>
+    private static bool IsProse(TextLine line)
+    {
+        var chunks = line.Chunks();
+        if (chunks.Any(c => c.Words.Count >= 6)) return true;
+        string text = line.Text.TrimEnd();
+        return chunks.Count == 1 && chunks[0].Words.Count >= 4 && (text.EndsWith('.') || text.EndsWith(':'));
     }
 
     private static double Median(List<double> xs)

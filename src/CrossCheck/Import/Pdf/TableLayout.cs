@@ -165,8 +165,9 @@ internal static class TableLayout
     }
 
     /// <summary>
-    /// The row's pieces: runs of words between wide gaps. A run that reaches over two columns is cut into words when
-    /// each word sits within one column (a tightly set row); otherwise the line is not a row (null).
+    /// The row's pieces: runs of words between wide gaps. In a tightly set table (header cells one space apart) a run
+    /// that reaches over two columns is cut into words, each in the column it sits in; otherwise such a line is not a
+    /// row (null).
     /// </summary>
     private static List<RowPiece>? Pieces(List<FoundColumn> columns, TextLine line, bool tight)
     {
@@ -180,6 +181,8 @@ internal static class TableLayout
                 pieces.Add(new RowPiece(chunk.Left, chunk.Right, chunk.Text, line.Size));
                 continue;
             }
+            // Where the header's cells stand apart, so do a row's: a run of words across two columns is prose.
+            if (!tight) return null;
             // Cut into words, keeping together the words that share one column.
             var groups = new List<(int Column, List<TextWord> Words)>();
             foreach (var w in chunk.Words)
@@ -187,7 +190,7 @@ internal static class TableLayout
                 var under = columns.Select((c, i) => (c, i)).Where(t => Overlaps(t.c, w.Left, w.Right, em)).ToList();
                 if (under.Count > 1) return null;
                 int col = under.Count == 1 ? under[0].i : groups.Count > 0 ? groups[^1].Column : -1;
-                if (col < 0 && !tight) return null;
+                if (col < 0) return null;
                 if (groups.Count > 0 && groups[^1].Column == col) groups[^1].Words.Add(w);
                 else groups.Add((col, [w]));
             }
