@@ -124,6 +124,8 @@ internal static class Messages
         F($"a second '{name}' table with different columns (the first is at {first}); this one was not read. Give one '{name}' table");
     public static string PdfUnitsDiffer(string name, string column, string first) =>
         F($"this part of table '{name}' gives column '{column}' in a different unit from the part at {first}; this part was not read");
+    public static string PdfSideBySide(string read, string beside) =>
+        F($"two tables stand side by side in this line ('{beside}' and '{read}'); CrossCheck reads tables set one under another, so the '{beside}' table was not read. Give the tables as CSV (or print them one under the other)");
     public static string PdfUnlabelledColumn(string sample) => F($"a column without a header (values such as \"{sample}\") was ignored");
 
     public static string NoJointsConnected(string id) => F($"joint '{id}' is not connected to any member");

@@ -19,6 +19,9 @@ internal sealed record HeaderCell(string Printed, double Left, double Right, Col
 /// <summary>A line (or two, for a wrapped header or a units row) recognised as the header row of a table.</summary>
 internal sealed record HeaderMatch(TableSpec Spec, IReadOnlyList<HeaderCell> Cells, IReadOnlyList<TextLine> Lines, bool Tight)
 {
+    /// <summary>Another table whose header stands in the same line, beside this one (two tables side by side).</summary>
+    public TableSpec? Beside { get; init; }
+
     public int Known => Cells.Count(c => c.IsKnown);
     public int Unknown => Cells.Count(c => !c.IsKnown);
     public int Units => Cells.Count(c => c.Unit is not null);
@@ -99,7 +102,24 @@ internal static partial class HeaderMatcher
             if (m is null) continue;
             if (best is null || m.Score > best.Score) best = m;
         }
-        return best;
+        return best is null ? null : best with { Beside = Beside(best, pieces) };
+    }
+
+    /// <summary>A run of two or more unknown cells of a header that is itself the header of another table.</summary>
+    private static TableSpec? Beside(HeaderMatch match, List<Piece> pieces)
+    {
+        var run = new List<Piece>();
+        foreach (var cell in match.Cells.Append(null))
+        {
+            if (cell is { IsKnown: false }) { run.AddRange(pieces.Where(p => p.Left >= cell.Left - 0.01 && p.Right <= cell.Right + 0.01)); continue; }
+            if (run.Count >= 2)
+            {
+                foreach (var spec in TableSchema.All.Where(s => s != match.Spec))
+                    if (MatchSpec(spec, run, match.Lines) is { Unknown: 0 }) return spec;
+            }
+            run.Clear();
+        }
+        return null;
     }
 
     private static bool IsNumber(string text) =>

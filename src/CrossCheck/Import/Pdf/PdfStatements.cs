@@ -151,7 +151,7 @@ internal static partial class PdfStatements
         for (int n = words.Length; n >= 1; n--)
         {
             if (n < words.Length && n > 2) continue;
-            string u = string.Join(" ", words[..n]);
+            string u = string.Join(" ", words[..n]).TrimEnd('.', ',', ';', ':');
             foreach (var candidate in TryOrder)
             {
                 if (UnitReader.TryRead(u, candidate) is null) continue;

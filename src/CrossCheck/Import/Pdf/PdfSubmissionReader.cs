@@ -77,6 +77,9 @@ public static class PdfSubmissionReader
                 return new PdfExtraction(path, [], [], _ignored, problems);
             }
 
+            foreach (var t in _finder.Tables.Where(t => t.Header.Beside is not null))
+                problems.Add(new InputProblem(new SourceRef(_file, t.Spec.Name, t.First.Number, null, t.First.Page),
+                    Messages.PdfSideBySide(t.Spec.Name, t.Header.Beside!.Name)));
             // A header with no rows under it (a running header that names columns, a table cut off) is dropped when
             // the table is printed elsewhere with rows.
             foreach (var empty in _finder.Tables.Where(t => t.RowLines.Count == 0 && _finder.Tables.Any(o => o.Spec == t.Spec && o.RowLines.Count > 0)).ToList())

@@ -95,7 +95,7 @@ internal static class PdfTextReader
                     problems.Add(new InputProblem(pageRef, Messages.PdfTooManyLetters(letters.Count, limits.MaxLettersPerPage)));
                     return (null, problems);
                 }
-                var (lines, invisible, rotated) = BuildLines(letters, i);
+                var (lines, invisible, rotated, sideways) = BuildLines(letters, i, page.Width, page.Height);
                 int images = lines.Count == 0 ? SafeImageCount(page) : 0;
                 int visible = lines.Sum(l => l.Text.Count(c => !char.IsWhiteSpace(c)));
                 // A page whose text is mostly invisible is an OCR layer over a scan, even with a printed page number.
@@ -103,7 +103,7 @@ internal static class PdfTextReader
                 else if (lines.Count > 0) textPages++;
                 else if (images > 0) { imagePages++; problems.Add(new InputProblem(pageRef, Messages.PdfPageImageOnly, ProblemSeverity.Warning)); }
                 if (rotated > 0 && lines.Count > 0) problems.Add(new InputProblem(pageRef, Messages.PdfRotatedText(rotated), ProblemSeverity.Warning));
-                pages.Add(new TextPage(i, page.Width, page.Height, lines, images));
+                pages.Add(sideways ? new TextPage(i, page.Height, page.Width, lines, images) : new TextPage(i, page.Width, page.Height, lines, images));
             }
             if (textPages == 0)
             {
@@ -186,25 +186,42 @@ internal static class PdfTextReader
     }
 
     /// <summary>Groups the letters of a page into numbered lines of words.</summary>
-    private static (List<TextLine> Lines, int Invisible, int Rotated) BuildLines(IReadOnlyList<Letter> letters, int pageNumber)
+    /// <summary>
+    /// Groups the letters of a page into numbered lines of words. The page is read in the direction most of its text
+    /// runs: a wide table set sideways on a portrait page (text running up or down) is read as if the page were turned;
+    /// text in the other directions is counted and not read.
+    /// </summary>
+    private static (List<TextLine> Lines, int Invisible, int Rotated, bool Sideways) BuildLines(IReadOnlyList<Letter> letters, int pageNumber, double width, double height)
     {
         var glyphs = new List<Glyph>(letters.Count);
         int invisible = 0, rotated = 0;
+        var direction = letters.Where(l => !string.IsNullOrWhiteSpace(l.Value) && l.TextOrientation != TextOrientation.Other
+                                           && l.RenderingMode is not (TextRenderingMode.Neither or TextRenderingMode.NeitherClip))
+            .GroupBy(l => l.TextOrientation).OrderByDescending(g => g.Count()).Select(g => g.Key).DefaultIfEmpty(TextOrientation.Horizontal).First();
+        // Coordinates in the page turned so that the text reads left to right, bottom up.
+        Func<double, double, (double X, double Y)> turn = direction switch
+        {
+            TextOrientation.Rotate270 => (x, y) => (y, width - x),  // text running up the page
+            TextOrientation.Rotate90 => (x, y) => (height - y, x),  // text running down the page
+            TextOrientation.Rotate180 => (x, y) => (width - x, height - y),
+            _ => (x, y) => (x, y),
+        };
         foreach (var l in letters)
         {
             if (string.IsNullOrEmpty(l.Value)) continue;
             if (l.RenderingMode is TextRenderingMode.Neither or TextRenderingMode.NeitherClip) { if (!string.IsNullOrWhiteSpace(l.Value)) invisible++; continue; }
-            if (l.TextOrientation != TextOrientation.Horizontal) { if (!string.IsNullOrWhiteSpace(l.Value)) rotated++; continue; }
+            if (l.TextOrientation != direction) { if (!string.IsNullOrWhiteSpace(l.Value)) rotated++; continue; }
             string text = CleanText(l.Value);
             if (text.Length == 0) continue;
-            double size = l.PointSize > 0 && double.IsFinite(l.PointSize) ? l.PointSize : Math.Max(1, l.BoundingBox.Height);
-            double x0 = l.StartBaseLine.X, x1 = l.EndBaseLine.X;
-            if (!(x1 - x0 > 0.01)) x1 = x0 + Math.Max(l.BoundingBox.Width, l.Width);
-            double y = l.StartBaseLine.Y;
+            double size = l.PointSize > 0 && double.IsFinite(l.PointSize) ? l.PointSize : Math.Max(1, Math.Min(l.BoundingBox.Height, l.BoundingBox.Width));
+            var (x0, y) = turn(l.StartBaseLine.X, l.StartBaseLine.Y);
+            double x1 = turn(l.EndBaseLine.X, l.EndBaseLine.Y).X;
+            if (!(x1 - x0 > 0.01)) x1 = x0 + Math.Max(l.Width, 0.01);
             if (!double.IsFinite(x0) || !double.IsFinite(x1) || !double.IsFinite(y)) continue;
             glyphs.Add(new Glyph(text, x0, x1, y, size));
         }
-        if (glyphs.All(g => g.IsSpace)) return ([], invisible, rotated);
+        bool sideways = direction is TextOrientation.Rotate90 or TextOrientation.Rotate270;
+        if (glyphs.All(g => g.IsSpace)) return ([], invisible, rotated, sideways);
 
         glyphs.Sort((a, b) => b.Centre.CompareTo(a.Centre));
         var builders = new List<LineBuilder>();
@@ -242,7 +259,7 @@ internal static class PdfTextReader
         made.Sort((a, b) => b.Baseline.CompareTo(a.Baseline));
         var lines = new List<TextLine>(made.Count);
         for (int i = 0; i < made.Count; i++) lines.Add(new TextLine(pageNumber, i + 1, made[i].Words, made[i].Baseline, made[i].Size, made[i].Space));
-        return (lines, invisible, rotated);
+        return (lines, invisible, rotated, sideways);
     }
 
     /// <summary>

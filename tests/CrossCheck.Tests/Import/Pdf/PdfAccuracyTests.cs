@@ -15,7 +15,7 @@ public class PdfAccuracyTests(ITestOutputHelper output)
     public static IEnumerable<object[]> Committed() =>
     [
         ["demo/footbridge"], ["demo/shed-frame"],
-        ["pdf/four-span-floor-beam"], ["pdf/portal-frame-decimal-comma"], ["pdf/propped-cantilever-plain-text"],
+        ["pdf/four-span-floor-beam"], ["pdf/portal-frame-decimal-comma"], ["pdf/propped-cantilever-plain-text"], ["pdf/sideways-two-span-beam"],
     ];
 
     [Theory]
@@ -29,7 +29,7 @@ public class PdfAccuracyTests(ITestOutputHelper output)
         output.WriteLine($"{name}.pdf: {score}");
         score.Misses.ShouldBeEmpty();
         score.Right.ShouldBe(score.Present);
-        score.Present.ShouldBeGreaterThan(40);
+        score.Present.ShouldBeGreaterThan(30);
     }
 
     [Fact]

@@ -257,6 +257,20 @@ public class PdfErrorTests
                                     && p.Where.Page == page && p.Where.Row == line);
     }
 
+    [Fact]
+    public void TablesSideBySide_AreNamedAsSuch()
+    {
+        // A layout known not to be read: two tables printed next to each other in one band of lines.
+        using var t = new TempSubmission();
+        var w = new PdfFixtureWriter().Text("Units: kN, m")
+            .Table(new FixtureTable(["Joint", "x", "y", "Restraint", "Member", "Start", "End", "E [GPa]", "I [mm4]"],
+                [["A", "0", "0", "fixed", "AB", "A", "B", "200", "250e6"], ["B", "6", "0", "roller", "", "", "", "", ""]]) { GapEm = 2.5 });
+        string path = t.WriteBytes("calc.pdf", w.Build());
+        var (page, line) = Where(path, "Restraint");
+        SubmissionReader.Read(path).Errors.ShouldContain(e => e.Message.StartsWith("two tables stand side by side in this line ('joints' and 'members')", StringComparison.Ordinal)
+                                                            && e.Where.Page == page && e.Where.Row == line);
+    }
+
     [Theory]
     [InlineData("review")]
     [InlineData("solve")]

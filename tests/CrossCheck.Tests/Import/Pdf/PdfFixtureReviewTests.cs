@@ -64,6 +64,9 @@ public class PdfFixtureReviewTests
     // Propped cantilever: wL²/8 = 81 kN·m (Hicks Fig. 2.2 case 10); central load 3PL/16 = 45 kN·m (AISC Table 3-23
     // case 13, from memory). The fixture claims 45.9 (2 % high): concur with comments.
     [InlineData("pdf/propped-cantilever-plain-text.pdf", "pdf/propped-cantilever-plain-text.expected.csv", Verdict.ConcurWithComments)]
+    // Two equal spans, w = 18 kN/m, L = 6 m: support moment wL²/8 = 81 kN·m (Hicks, Table 2.1); the sheet is printed
+    // sideways on a portrait page: concur.
+    [InlineData("pdf/sideways-two-span-beam.pdf", "pdf/sideways-two-span-beam.expected.csv", Verdict.Concur)]
     public void PdfFixture_ReviewsToItsVerdict_AndToTheSameFindingsAsTheCsv(string pdf, string csv, Verdict verdict)
     {
         string root = Path.Combine(RepoPaths.Root, "fixtures");
