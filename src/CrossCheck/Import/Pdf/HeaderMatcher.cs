@@ -94,6 +94,7 @@ internal static partial class HeaderMatcher
     private static HeaderMatch? Best(List<TextLine> block)
     {
         var pieces = block.Count == 1 ? Pieces(block[0]) : Merge(block);
+        if (pieces is null) return null;
         if (pieces.Count < 2 && !(pieces.Count == 1 && pieces[0].Words.Count >= 2)) return null;
         HeaderMatch? best = null;
         foreach (var spec in TableSchema.All)
@@ -136,11 +137,13 @@ internal static partial class HeaderMatcher
     private static List<Piece> Pieces(TextLine line) => line.Chunks().Select(c => new Piece(c.Words, c.Text)).ToList();
 
     /// <summary>Header lines combined column by column: each piece of a lower line joins the piece above it, or starts a cell of its own.</summary>
-    private static List<Piece> Merge(List<TextLine> block)
+    private static List<Piece>? Merge(List<TextLine> block)
     {
         var cells = new List<List<TextWord>>();
         foreach (var line in block)
         {
+            // A line of notes or units set above a header is not part of it.
+            if (PdfStatements.Units(line.Text) is not null || PdfStatements.KeyValues(line).Count > 0) return null;
             var lineCells = new List<(int Target, List<TextWord> Words)>();
             foreach (var p in Pieces(line))
             {
@@ -154,6 +157,8 @@ internal static partial class HeaderMatcher
                 }
                 lineCells.Add((best, p.Words.ToList()));
             }
+            // A cell that reaches over two cells of the next line is a caption or a group header, not a wrapped name.
+            if (lineCells.Where(c => c.Target >= 0).GroupBy(c => c.Target).Any(g => g.Count() > 1)) return null;
             foreach (var (target, words) in lineCells)
             {
                 if (target >= 0) cells[target].AddRange(words);

@@ -265,7 +265,7 @@ public class PdfErrorTests
         var w = new PdfFixtureWriter().Text("Units: kN, m")
             .Table(new FixtureTable(["Joint", "x", "y", "Restraint", "Member", "Start", "End", "E [GPa]", "I [mm4]"],
                 [["A", "0", "0", "fixed", "AB", "A", "B", "200", "250e6"], ["B", "6", "0", "roller", "", "", "", "", ""]]) { GapEm = 2.5 });
-        string path = t.WriteBytes("calc.pdf", w.Build());
+        string path = PdfTestData.Save(t, "side-by-side.pdf", w.Build());
         var (page, line) = Where(path, "Restraint");
         SubmissionReader.Read(path).Errors.ShouldContain(e => e.Message.StartsWith("two tables stand side by side in this line ('joints' and 'members')", StringComparison.Ordinal)
                                                             && e.Where.Page == page && e.Where.Row == line);
