@@ -233,9 +233,12 @@ public static class PdfSubmissionReader
                 var p = t.Placed[r];
                 var cells = new List<string>();
                 var printed = new List<string>();
+                var wrapped = t.Wrapped.GetValueOrDefault(line);
                 foreach (int k in keep)
                 {
                     string raw = p.Cells[k] ?? "";
+                    if (wrapped is not null)
+                        foreach (var (w, column) in wrapped.Where(x => x.Column == k)) raw = Geometry.Collapse(raw + " " + w.Text);
                     printed.Add(raw);
                     cells.Add(Cell(seg.Columns[cells.Count].Column, raw, style, t, line, seg.Columns[cells.Count].Printed));
                 }

@@ -24,6 +24,9 @@ internal sealed class FoundTable(HeaderMatch header)
     /// <summary>The load-case label in force where this part of a table begins (printed in the part before).</summary>
     public (string Case, TextLine Label)? InheritedCase { get; set; }
 
+    /// <summary>Second lines of wrapped text cells, by the row they belong to, with their column.</summary>
+    public Dictionary<TextLine, List<(TextLine Line, int Column)>> Wrapped { get; } = [];
+
     /// <summary>Units from a units row under the header, by column index.</summary>
     public Dictionary<int, string>? UnitsRow { get; set; }
 
@@ -164,6 +167,15 @@ internal sealed partial class PdfTableFinder
                 j++;
                 continue;
             }
+            if (label is null && entries.Count > 0 && entries[^1].Label is null && gap <= 1.5 * size && Wrapped(t, entries[^1].Line, line) is int column)
+            {
+                // The second line of a cell whose text wrapped (a long restraint or note): part of the row above.
+                if (!t.Wrapped.TryGetValue(entries[^1].Line, out var parts)) t.Wrapped[entries[^1].Line] = parts = [];
+                parts.Add((line, column));
+                last = line.Baseline;
+                j++;
+                continue;
+            }
             entries.Add((j, line, label));
             if (last is not null) pitches.Add(gap);
             last = line.Baseline;
@@ -195,11 +207,29 @@ internal sealed partial class PdfTableFinder
             if (taken >= accepted) break;
             t.RowLines.Add(e.Line);
             Consumed.Add(e.Line);
+            if (t.Wrapped.TryGetValue(e.Line, out var wrapped)) foreach (var (w, _) in wrapped) Consumed.Add(w);
             if (current is { } c) t.RowCase[e.Line] = c;
             taken++;
         }
         t.Open = toFoot && t.RowLines.Count > 0;
         return t.Open ? j : AttachBelow(t, j);
+    }
+
+    /// <summary>
+    /// The column a line continues when it is the wrapped second line of a text cell of <paramref name="row"/>: one run
+    /// of words, under one column that is not a number column, where the row above has text.
+    /// </summary>
+    private static int? Wrapped(FoundTable t, TextLine row, TextLine line)
+    {
+        var chunks = line.Chunks();
+        if (chunks.Count != 1) return null;
+        var c = chunks[0];
+        double em = Math.Max(1, line.Size);
+        var under = t.Columns.Select((col, i) => (col, i)).Where(x => x.col.Distance(c.Left, c.Right) == 0).ToList();
+        if (under.Count != 1 || under[0].col.Header?.Column is { Type: ColumnType.Number } || under[0].col.Header?.Subscript is not null) return null;
+        var col = under[0].col;
+        bool above = row.Chunks().Any(r => col.Distance(r.Left, r.Right) == 0 && Math.Abs(r.Left - c.Left) < 2 * em);
+        return above ? under[0].i : null;
     }
 
     /// <summary>The units a line gives the columns it sits under, when every piece of it is a unit (<c>(m)</c>, <c>[kN·m]</c>, <c>kNm</c>).</summary>

@@ -203,7 +203,7 @@ public sealed class PdfFixtureWriter
         {
             double w = Measure(t.Header[k], _size, _bold);
             if (t.Units is { } u && k < u.Count) w = Math.Max(w, Measure(u[k], _size, _font));
-            foreach (var r in t.Rows) if (k < r.Count) w = Math.Max(w, Measure(r[k], _size, _font));
+            foreach (var r in t.Rows) if (k < r.Count) foreach (var part in r[k].Split('\n')) w = Math.Max(w, Measure(part, _size, _font));
             widths[k] = t.ColumnWidthEm is double cw ? Math.Max(w, cw * _size) : w;
         }
         var xs = new double[n];
@@ -249,13 +249,23 @@ public sealed class PdfFixtureWriter
             if (t.Labels?.TryGetValue(r, out var label) == true) Text(label, indentEm: 0.5);
             _y -= _size;
             var row = t.Rows[r];
+            int extra = 0;
             for (int k = 0; k < n && k < row.Count; k++)
             {
                 if (row[k].Length == 0) continue;
                 bool right = t.RightAligned is { } ra && k < ra.Count && ra[k];
-                Cell(row[k], k, right ? Align.Right : Align.Left, _font);
+                // A cell with a line break wraps onto the lines below, inside its row.
+                var parts = row[k].Split('\n');
+                double top = _y;
+                for (int p = 0; p < parts.Length; p++)
+                {
+                    _y = top - (p * 1.15 * _size);
+                    Cell(parts[p], k, right ? Align.Right : Align.Left, _font);
+                }
+                _y = top;
+                extra = Math.Max(extra, parts.Length - 1);
             }
-            _y -= LineHeight(_size) - _size;
+            _y -= LineHeight(_size) - _size + (extra * 1.15 * _size);
         }
         if (t.Notes is { } notes) foreach (var note in notes) Text(note, 0.9 * _size);
         Gap(0.8);

@@ -166,6 +166,22 @@ public class PdfReaderTests
     }
 
     [Fact]
+    public void WrappedTextCell_BelongsToItsRow()
+    {
+        using var t = new TempSubmission();
+        var w = new PdfFixtureWriter().Text("Units: kN, m")
+            .Table(new FixtureTable(["Joint", "x", "y", "Restraint", "Notes"],
+                [["A", "0", "0", "fixed", "base plate\ncast in"], ["B", "6", "0", "roller\n(padstone)", "bearing"]]) { GapEm = 2 })
+            .Table(Members).Table(Loads).Table(new FixtureTable(["Case", "Member", "At", "Moment"], [["1", "AB", "A", "-81"], ["1", "AB", "B", "0"]]));
+        string path = PdfTestData.Save(t, "calc.pdf", w.Build());
+        var joints = PdfSubmissionReader.Extract(path).Tables.Single(tb => tb.Name == "joints");
+        joints.Rows.Select(r => (r.Cell(3), r.Cell(4))).ShouldBe([("fixed", "base plate cast in"), ("roller (padstone)", "bearing")]);
+        // "roller (padstone)" is not a restraint word: the reader keeps the text, the importer says what is wrong and where.
+        var r = SubmissionReader.Read(path);
+        r.Errors.ShouldContain(e => e.Message.StartsWith("'restraint' = \"roller (padstone)\" is not recognised", StringComparison.Ordinal) && e.Where.Page == 1);
+    }
+
+    [Fact]
     public void RunningHeadersAndPageNumbers_AreNotRead()
     {
         using var t = new TempSubmission();
