@@ -82,6 +82,7 @@ internal static class ExtractCommand
             io.Output.WriteLine($"  {f.Table}: {f.Rows} row{(f.Rows == 1 ? "" : "s")}, {f.Where}{(f.Note is null ? "" : $" ({f.Note})")}");
             foreach (var c in f.Columns) io.Output.WriteLine($"      {c}");
         }
+        foreach (var n in x.Notes) io.Output.WriteLine($"note: {n.What} ({n.Where.Citation})");
         if (x.Ignored.Count == 0) return;
         io.Output.WriteLine("not read:");
         foreach (var i in x.Ignored) io.Output.WriteLine($"  {i.Where.Citation}: {i.What}");

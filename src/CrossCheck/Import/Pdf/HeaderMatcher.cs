@@ -11,9 +11,6 @@ namespace CrossCheck.Import.Pdf;
 internal sealed record HeaderCell(string Printed, double Left, double Right, ColumnSpec? Column, string Name, string? Unit, string? Subscript)
 {
     public bool IsKnown => Column is not null || Subscript is not null;
-
-    /// <summary>Printed without a marked subscript: <c>M_AB</c> → <c>MAB</c>.</summary>
-    public string Display => Printed;
 }
 
 /// <summary>A line (or two, for a wrapped header or a units row) recognised as the header row of a table.</summary>

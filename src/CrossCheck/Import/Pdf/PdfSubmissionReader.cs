@@ -14,7 +14,10 @@ public sealed record PdfTableReport(string Table, string Where, int Rows, IReadO
 /// <summary>Something in the PDF that was not read, and why.</summary>
 public sealed record PdfIgnored(SourceRef Where, string What);
 
-/// <summary>What the PDF reader found: the tables as text (in the form of the CSV contract), what it skipped, and the problems.</summary>
+/// <summary>
+/// What the PDF reader found: the tables as text (in the form of the CSV contract), what it skipped, how it read
+/// the numbers (<see cref="Notes"/>: parentheses as negatives, decimal commas) and the problems.
+/// </summary>
 public sealed record PdfExtraction(
     string Source,
     IReadOnlyList<RawTable> Tables,
@@ -22,6 +25,8 @@ public sealed record PdfExtraction(
     IReadOnlyList<PdfIgnored> Ignored,
     IReadOnlyList<InputProblem> Problems)
 {
+    public IReadOnlyList<PdfIgnored> Notes { get; init; } = [];
+
     public bool HasErrors => Problems.Any(p => p.IsError);
 }
 
@@ -57,6 +62,7 @@ public static class PdfSubmissionReader
     {
         private readonly PdfTableFinder _finder = new(doc);
         private readonly List<PdfIgnored> _ignored = [];
+        private readonly List<PdfIgnored> _notes = [];
         private readonly string _file = doc.File;
         private readonly List<(TextLine Line, UnitsStatement Units)> _docUnits = [];
         private NumberStyle _style = new(false, false);
@@ -70,10 +76,11 @@ public static class PdfSubmissionReader
             var info = ReadStatements(tableLines, attached);
             var (comma, pointSeen) = PdfNumbers.Detect(NumberCells());
             _style = new NumberStyle(comma, _parenthesesNote is not null, pointSeen);
+            if (comma) _notes.Add(new PdfIgnored(new SourceRef(_file), "numbers are read with decimal commas (the document's numbers use them)"));
 
             if (_finder.Tables.Count == 0)
             {
-                problems.Add(new InputProblem(new SourceRef(_file), Messages.PdfNoTables(HeaderRowsSeen(tableLines))));
+                problems.Add(new InputProblem(new SourceRef(_file), Messages.PdfNoTables(_seenHeaders.Take(8).ToList())));
                 return new PdfExtraction(path, [], [], _ignored, problems);
             }
 
@@ -100,7 +107,7 @@ public static class PdfSubmissionReader
             foreach (var m in merged.Where(m => m.Spec != TableSchema.Info)) tables.Add(m.ToRaw(_file));
             var reports = merged.Where(m => m.Spec != TableSchema.Info).Select(Report).ToList();
             if (infoTable is not null) reports.Insert(0, InfoReport(infoTable));
-            return new PdfExtraction(path, tables, reports, _ignored, problems);
+            return new PdfExtraction(path, tables, reports, _ignored, problems) { Notes = _notes };
         }
 
         // ---- statements outside the tables ---------------------------------------------------------------
@@ -146,15 +153,13 @@ public static class PdfSubmissionReader
             }
             FlushRun();
             if (_parenthesesNote is { } note)
-                _ignored.Add(new PdfIgnored(new SourceRef(_file, null, note.Number, null, note.Page),
-                    "numbers in parentheses were read as negative, as this note says"));
+                _notes.Add(new PdfIgnored(new SourceRef(_file, null, note.Number, null, note.Page),
+                    "numbers in parentheses are read as negative, as this note says"));
             return info;
         }
 
         private readonly List<string> _seenHeaders = [];
         private TextLine? _parenthesesNote;
-
-        private List<string> HeaderRowsSeen(HashSet<TextLine> tableLines) => _seenHeaders.Take(8).ToList();
 
         private static string Shorten(string s) => s.Length > 60 ? s[..60] + "…" : s;
 
@@ -313,7 +318,7 @@ public static class PdfSubmissionReader
             var caseCol = TableSchema.EndMoments.Column("case");
             var ends = new List<(int K, string Member, string At, string Printed)>();
             int caseK = -1;
-            string? unit = null, unitFrom = null;
+            string? unit = null;
             bool ok = true;
             for (int k = 0; k < t.Columns.Count; k++)
             {
@@ -328,7 +333,7 @@ public static class PdfSubmissionReader
                 string? u = h.Unit ?? t.UnitsRow?.GetValueOrDefault(k) ?? ExternalUnit(t, t.Columns[k], QuantityKind.Moment, false);
                 if (u is not null)
                 {
-                    if (unit is null) { unit = u; unitFrom = h.Printed; }
+                    if (unit is null) unit = u;
                     else if (UnitReader.TryRead(u, QuantityKind.Moment)?.ToSi != UnitReader.TryRead(unit, QuantityKind.Moment)?.ToSi)
                     {
                         problems.Add(new InputProblem(where, Messages.PdfWideUnits(unit, u)));
@@ -354,7 +359,6 @@ public static class PdfSubmissionReader
                     ok = false;
                 }
             }
-            _ = unitFrom;
             if (!ok || ends.Count == 0) return null;
             seg.Columns.Add(new SegmentColumn(caseCol, "case", null, null, "case"));
             seg.Columns.Add(new SegmentColumn(TableSchema.EndMoments.Column("member"), "member", null, null, "member"));

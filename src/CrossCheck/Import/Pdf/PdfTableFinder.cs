@@ -56,13 +56,11 @@ internal sealed partial class PdfTableFinder
 
     public PdfTableFinder(TextDocument doc)
     {
-        Document = doc;
         _lines = doc.Lines.ToList();
         for (int i = 0; i < _lines.Count; i++) _index[_lines[i]] = i;
         Furniture = FindFurniture(doc);
     }
 
-    public TextDocument Document { get; }
     public List<FoundTable> Tables { get; } = [];
 
     /// <summary>Running headers, footers and page numbers.</summary>

@@ -6,10 +6,7 @@ namespace CrossCheck.Import.Pdf;
 /// A word as printed: its text (sub- and superscripts folded in, see <see cref="PdfTextReader"/>), its horizontal
 /// extent in points and the font size of its main letters.
 /// </summary>
-internal sealed record TextWord(string Text, double Left, double Right, double Size)
-{
-    public double Width => Right - Left;
-}
+internal sealed record TextWord(string Text, double Left, double Right, double Size);
 
 /// <summary>
 /// One line of text on a page: the words that share a baseline (sub- and superscripts included), left to right.
@@ -88,7 +85,6 @@ internal sealed class Chunk(IReadOnlyList<TextWord> words)
     public IReadOnlyList<TextWord> Words { get; } = words;
     public double Left => Words[0].Left;
     public double Right => Words[^1].Right;
-    public double Centre => (Left + Right) / 2;
     public string Text { get; } = string.Join(" ", words.Select(w => w.Text));
 }
 
