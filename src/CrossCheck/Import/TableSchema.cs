@@ -12,8 +12,12 @@ internal enum ColumnType
 /// <summary>A column of the submission format: its name, accepted synonyms and kind.</summary>
 internal sealed record ColumnSpec(string Name, ColumnType Type, QuantityKind Kind, bool Required, params string[] Synonyms)
 {
-    public bool Matches(string normalizedHeader) =>
-        TableSchema.Normalize(Name) == normalizedHeader || Synonyms.Any(s => TableSchema.Normalize(s) == normalizedHeader);
+    /// <summary>The name, normalised (see <see cref="TableSchema.Normalize"/>).</summary>
+    public string NormalizedName { get; } = TableSchema.Normalize(Name);
+
+    private readonly HashSet<string> _names = [TableSchema.Normalize(Name), .. Synonyms.Select(TableSchema.Normalize)];
+
+    public bool Matches(string normalizedHeader) => _names.Contains(normalizedHeader);
 }
 
 /// <summary>A table of the submission format.</summary>
@@ -128,7 +132,7 @@ internal static partial class TableSchema
     public static ColumnSpec? ResolveColumn(TableSpec spec, string name)
     {
         string norm = Normalize(name);
-        return spec.Columns.FirstOrDefault(c => Normalize(c.Name) == norm) ?? spec.Columns.FirstOrDefault(c => c.Matches(norm));
+        return spec.Columns.FirstOrDefault(c => c.NormalizedName == norm) ?? spec.Columns.FirstOrDefault(c => c.Matches(norm));
     }
 
     /// <summary>

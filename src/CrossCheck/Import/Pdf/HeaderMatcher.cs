@@ -92,6 +92,8 @@ internal static partial class HeaderMatcher
     {
         var pieces = block.Count == 1 ? Pieces(block[0]) : Merge(block);
         if (pieces is null) return null;
+        // A header holds no bare numbers: a row of data is not tried against every table.
+        if (pieces.Any(p => IsNumber(p.Text))) return null;
         if (pieces.Count < 2 && !(pieces.Count == 1 && pieces[0].Words.Count >= 2)) return null;
         HeaderMatch? best = null;
         foreach (var spec in TableSchema.All)

@@ -182,8 +182,11 @@ internal sealed partial class PdfTableFinder
 
         var rows = entries.Where(e => e.Label is null).Select(e => e.Line).ToList();
         int before = t.RowLines.Count;
-        var (_, firstBad) = rows.Count == 0 ? (null!, 0) : TableLayout.Place(t.Columns, t.RowLines.Concat(rows).ToList(), t.Header.Tight);
-        int accepted = Math.Max(0, firstBad - before);
+        // The new rows are judged with the last rows already read, where the columns' values are known to sit
+        // (all of them would make a long table quadratic in its length).
+        var context = t.RowLines.Skip(Math.Max(0, before - 40)).ToList();
+        var (_, firstBad) = rows.Count == 0 ? (null!, 0) : TableLayout.Place(t.Columns, context.Concat(rows).ToList(), t.Header.Tight);
+        int accepted = Math.Max(0, firstBad - context.Count);
         if (accepted < rows.Count)
         {
             toFoot = false;
