@@ -108,6 +108,13 @@ internal static partial class PdfNumbers
         return sb.ToString();
     }
 
+    /// <summary>A number followed by a unit in one cell (<c>8.0 m</c>, <c>−81.0 kN·m</c>): the two parts, or null.</summary>
+    public static (string Number, string Unit)? SplitUnit(string printed)
+    {
+        var m = NumberAndUnit().Match(Geometry.Collapse(printed));
+        return m.Success ? (m.Groups["n"].Value, m.Groups["u"].Value) : null;
+    }
+
     /// <summary>
     /// Decides whether a document writes decimal commas, from its number cells: <c>12,5</c> or <c>1.250,5</c> say
     /// yes, <c>12.5</c> or <c>1,250.5</c> say no; <c>1,250</c> and <c>1.250</c> say nothing. Decimal commas only when
@@ -127,6 +134,9 @@ internal static partial class PdfNumbers
 
     [GeneratedRegex(@"^\((?<n>[^()]+)\)$")]
     private static partial Regex Parenthesised();
+
+    [GeneratedRegex(@"^(?<n>\(?[+\-−–]?\s?[\d.,' ]*\d(?:\s*[x×]\s*10(?:\^[+\-−]?\d+|[⁻⁺]?[⁰¹²³⁴⁵⁶⁷⁸⁹]+))?\)?)\s*(?<u>[A-Za-zµ°][A-Za-z0-9µ°²³⁴·*./\-^]*(?:\s?[·*]\s?[A-Za-z][A-Za-z0-9²³⁴]*)?)$")]
+    private static partial Regex NumberAndUnit();
 
     [GeneratedRegex(@"^([+-])\s+")]
     private static partial Regex SignSpace();

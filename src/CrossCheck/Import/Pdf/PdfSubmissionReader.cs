@@ -256,7 +256,35 @@ public static class PdfSubmissionReader
                 }
                 seg.Rows.Add(new SegmentRow(line, cells, printed));
             }
+            CellUnits(seg, style);
             return seg;
+        }
+
+        /// <summary>
+        /// Numbers printed with their unit in the cell (<c>8.0 m</c>, <c>14 kN/m</c>): the column takes the first such unit
+        /// when its header gives none, and every value is written in the column's unit.
+        /// </summary>
+        private void CellUnits(Segment seg, NumberStyle style)
+        {
+            for (int k = 0; k < seg.Columns.Count; k++)
+            {
+                var col = seg.Columns[k];
+                if (col.Column is not { Type: ColumnType.Number } spec) continue;
+                foreach (var row in seg.Rows)
+                {
+                    if (row.Cells[k].Length == 0 || NumberText.TryParse(row.Cells[k], false, out _)) continue;
+                    if (PdfNumbers.SplitUnit(row.Printed[k]) is not var (numberText, unitText)) continue;
+                    var unit = UnitReader.TryRead(unitText, spec.Kind);
+                    string number = PdfNumbers.Normalize(numberText, style, out _);
+                    if (unit is null || !NumberText.TryParse(number, false, out double value)) continue;
+                    if (col.EffectiveUnit is null) seg.Columns[k] = col = col with { External = unitText };
+                    var target = UnitReader.TryRead(col.EffectiveUnit!, spec.Kind);
+                    if (target is null) continue;
+                    row.Cells[k] = Math.Abs(target.ToSi - unit.ToSi) <= 1e-12 * target.ToSi
+                        ? number
+                        : (value * unit.ToSi / target.ToSi).ToString("R", CultureInfo.InvariantCulture);
+                }
+            }
         }
 
         private static string? CaptionCase(FoundTable t) => t.Above.Select(l => PdfStatements.CaptionCase(l.Text)).FirstOrDefault(c => c is not null);
@@ -520,7 +548,7 @@ public static class PdfSubmissionReader
         public string? EffectiveUnit => Unit ?? External;
     }
 
-    private sealed record SegmentRow(TextLine Line, IReadOnlyList<string> Cells, IReadOnlyList<string> Printed);
+    private sealed record SegmentRow(TextLine Line, List<string> Cells, List<string> Printed);
 
     /// <summary>A table (or a printed part of one) as text cells, ready to become a <see cref="RawTable"/>.</summary>
     private sealed class Segment

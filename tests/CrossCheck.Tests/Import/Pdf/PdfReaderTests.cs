@@ -77,6 +77,24 @@ public class PdfReaderTests
     }
 
     [Fact]
+    public void NumbersWithTheirUnitInTheCell()
+    {
+        // No units in the headers: the first cell with a unit gives its column one; other units are converted to it.
+        using var t = new TempSubmission();
+        var w = new PdfFixtureWriter(Face.DejaVuSans)
+            .Table(new FixtureTable(["Joint", "x", "y", "Restraint"], [["A", "0 m", "0 m", "fixed"], ["B", "6000 mm", "0 m", "roller"]]))
+            .Table(new FixtureTable(["Member", "Start", "End", "E", "I"], [["AB", "A", "B", "200 GPa", "250×10^{6} mm⁴"]]))
+            .Table(new FixtureTable(["Case", "On", "Kind", "w"], [["1", "AB", "udl", "18 kN/m"]]))
+            .Table(new FixtureTable(["Case", "Member", "At", "Moment"], [["1", "AB", "A", "−81.0 kN·m"], ["1", "AB", "B", "0 kN·m"]]));
+        var s = Ok(Read(w, t));
+        s.Model.Joint("B").X.ShouldBe(6, 1e-12);
+        s.Model.Member("AB").I.ShouldBe(250e-6, 1e-15);
+        s.Model.Member("AB").E.ShouldBe(200e9, 1);
+        Claim(s, "AB", MemberEnd.Start).ShouldBe(-81, 1e-9);
+        s.Info.Units.Moment.Symbol.ShouldBe("kN·m");
+    }
+
+    [Fact]
     public void DecimalCommas_AreRecognisedFromTheNumbersThemselves()
     {
         using var t = new TempSubmission();
