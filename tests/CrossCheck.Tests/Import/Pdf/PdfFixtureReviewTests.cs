@@ -67,6 +67,9 @@ public class PdfFixtureReviewTests
     // Two equal spans, w = 18 kN/m, L = 6 m: support moment wL²/8 = 81 kN·m (Hicks, Table 2.1); the sheet is printed
     // sideways on a portrait page: concur.
     [InlineData("pdf/sideways-two-span-beam.pdf", "pdf/sideways-two-span-beam.expected.csv", Verdict.Concur)]
+    // Two equal spans of 20 ft, 1.5 klf: support moment 0.125 wL² = 75 kip-ft, reactions 0.375 wL and 1.25 wL = 11.25 and
+    // 37.5 kips (Hicks, Table 2.1); kip-ft units, numeric joint ids (M12), a bordered grid in capitals: concur.
+    [InlineData("pdf/us-canopy-beam-grid.pdf", "pdf/us-canopy-beam-grid.expected.csv", Verdict.Concur)]
     public void PdfFixture_ReviewsToItsVerdict_AndToTheSameFindingsAsTheCsv(string pdf, string csv, Verdict verdict)
     {
         string root = Path.Combine(RepoPaths.Root, "fixtures");
