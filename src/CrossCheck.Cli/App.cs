@@ -27,6 +27,7 @@ public static class App
         root.Add(ScreenCommand.Create(io));
         root.Add(HistoryCommand.Create(io));
         root.Add(HistoryCommand.CreateRegister(io));
+        root.Add(ExtractCommand.Create(io));
         foreach (var cmd in ExtraCommands) root.Add(cmd(io));
         foreach (var sub in root.Subcommands)
             if (!sub.Options.OfType<VersionOption>().Any()) sub.Add(new VersionOption());

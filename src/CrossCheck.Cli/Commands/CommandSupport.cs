@@ -1,5 +1,7 @@
 using CrossCheck.Analysis;
+using System.CommandLine;
 using CrossCheck.Import;
+using CrossCheck.Import.Pdf;
 using CrossCheck.Memo;
 using CrossCheck.Model;
 using CrossCheck.Review;
@@ -10,10 +12,30 @@ namespace CrossCheck.Cli.Commands;
 /// <summary>What the commands share: reading a submission, reporting input problems, writing outputs.</summary>
 internal static class CommandSupport
 {
-    /// <summary>Reads a submission; on failure prints every problem and returns null.</summary>
-    public static Submission? Read(string path, CliIo io, bool quietWarnings = false)
+    /// <summary>The options that bound the work of reading a PDF.</summary>
+    public static (Option<int> MaxPages, Option<double> TimeLimit) PdfLimitOptions() =>
+    (
+        new Option<int>("--max-pages") { Description = "Read PDFs of at most this many pages.", DefaultValueFactory = _ => PdfLimits.Default.MaxPages },
+        new Option<double>("--time-limit") { Description = "Give up reading a PDF after this many seconds.", DefaultValueFactory = _ => PdfLimits.Default.TimeBudget.TotalSeconds }
+    );
+
+    /// <summary>The PDF limits asked for; null (after a message) when they make no sense.</summary>
+    public static PdfLimits? Limits(ParseResult pr, Option<int> maxPages, Option<double> timeLimit, CliIo io)
     {
-        var result = SubmissionReader.Read(path);
+        int pages = pr.GetValue(maxPages);
+        double seconds = pr.GetValue(timeLimit);
+        if (pages < 1 || !(seconds > 0) || seconds > 3600)
+        {
+            io.Error.WriteLine("crosscheck: --max-pages must be at least 1 and --time-limit between 0 and 3600 seconds.");
+            return null;
+        }
+        return PdfLimits.Default with { MaxPages = pages, TimeBudget = TimeSpan.FromSeconds(seconds) };
+    }
+
+    /// <summary>Reads a submission; on failure prints every problem and returns null.</summary>
+    public static Submission? Read(string path, CliIo io, bool quietWarnings = false, PdfLimits? limits = null)
+    {
+        var result = SubmissionReader.Read(path, limits);
         if (!quietWarnings)
             foreach (var w in result.Warnings) io.Error.WriteLine($"warning: {w}");
         if (result.Succeeded) return result.Submission;

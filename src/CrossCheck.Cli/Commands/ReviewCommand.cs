@@ -21,6 +21,7 @@ internal static class ReviewCommand
         var quiet = new Option<bool>("--quiet", "-q") { Description = "Print no summary." };
         var register = new Option<string?>("--register") { Description = "Record the review in this register file and compare it with the previous round of the same reference." };
         var working = new Option<bool>("--show-working") { Description = "Add CrossCheck's own moment-distribution working table to the memo." };
+        var (maxPages, timeLimit) = CommandSupport.PdfLimitOptions();
         var cmd = new Command("review", "Recompute the end moments, check the claimed numbers, and write a review memo.")
         {
             submission, format, output, template,
@@ -29,18 +30,23 @@ internal static class ReviewCommand
         cmd.Add(quiet);
         cmd.Add(register);
         cmd.Add(working);
+        cmd.Add(maxPages);
+        cmd.Add(timeLimit);
         cmd.SetAction(pr =>
         {
             var options = settings.Read(pr, io);
             if (options is null) return ExitCodes.InputError;
             options = options with { ShowWorking = pr.GetValue(working) };
+            var limits = CommandSupport.Limits(pr, maxPages, timeLimit, io);
+            if (limits is null) return ExitCodes.InputError;
             return Run(new Request(pr.GetValue(submission)!, pr.GetValue(format)!, pr.GetValue(output), pr.GetValue(template), options,
-                pr.GetValue(quiet), pr.GetValue(register)), io);
+                pr.GetValue(quiet), pr.GetValue(register), limits), io);
         });
         return cmd;
     }
 
-    private sealed record Request(string Path, string Format, string? Out, string? Template, ReviewOptions Options, bool Quiet, string? Register);
+    private sealed record Request(string Path, string Format, string? Out, string? Template, ReviewOptions Options, bool Quiet, string? Register,
+        Import.Pdf.PdfLimits Limits);
 
     private static int Run(Request r, CliIo io)
     {
@@ -69,7 +75,7 @@ internal static class ReviewCommand
             }
         }
 
-        var outcome = ReviewPipeline.Run(r.Path, r.Options);
+        var outcome = ReviewPipeline.Run(r.Path, r.Options, r.Limits);
         foreach (var w in outcome.Warnings) io.Error.WriteLine($"warning: {w}");
         if (outcome.Review is not { } review)
         {

@@ -14,17 +14,22 @@ internal static class SolveCommand
         var format = new Option<string>("--format", "-f") { Description = "Output format.", DefaultValueFactory = _ => "table" };
         format.AcceptOnlyFromAmong("table", "csv", "json");
         var output = new Option<string?>("--out", "-o") { Description = "Write to this file instead of standard output." };
+        var (maxPages, timeLimit) = CommandSupport.PdfLimitOptions();
         var cmd = new Command("solve", "Recompute every member end moment of a submission with the independent stiffness solver.")
         {
-            submission, format, output,
+            submission, format, output, maxPages, timeLimit,
         };
-        cmd.SetAction(pr => Run(pr.GetValue(submission)!, pr.GetValue(format)!, pr.GetValue(output), io));
+        cmd.SetAction(pr =>
+        {
+            var limits = CommandSupport.Limits(pr, maxPages, timeLimit, io);
+            return limits is null ? ExitCodes.InputError : Run(pr.GetValue(submission)!, pr.GetValue(format)!, pr.GetValue(output), limits, io);
+        });
         return cmd;
     }
 
-    private static int Run(string path, string format, string? outPath, CliIo io)
+    private static int Run(string path, string format, string? outPath, Import.Pdf.PdfLimits limits, CliIo io)
     {
-        var s = CommandSupport.Read(path, io);
+        var s = CommandSupport.Read(path, io, limits: limits);
         if (s is null) return ExitCodes.InputError;
         var result = CommandSupport.Solve(s, io);
         if (result is null) return ExitCodes.InputError;

@@ -77,5 +77,56 @@ internal static class Messages
     public static string EmptyTable(string name) => F($"table '{name}' has no header row");
     public static string NotFound(string path) => F($"'{path}' does not exist");
     public static string Unsupported(string path) => F($"'{path}' is not a folder, a .csv file or a .pdf file");
+
+    // ---- PDF input ----------------------------------------------------------------------------------
+
+    public static string PdfEmptyFile => "the file is empty (0 bytes), not a PDF";
+    public static string PdfTooLarge(long bytes, long max) =>
+        F($"the file is {bytes / (1024 * 1024)} MB; CrossCheck reads PDFs up to {max / (1024 * 1024)} MB");
+    public static string PdfNotPdf => "the file is not a PDF (it does not begin with '%PDF-'); give a text PDF, a CSV file or a folder of CSV tables";
+    public static string PdfDamaged(string reason) =>
+        F($"the PDF is damaged or uses features CrossCheck cannot read ({reason}); export the calculation again, or give its tables as CSV");
+    public static string PdfEncrypted =>
+        "the PDF is encrypted with a password; CrossCheck cannot read it. Export an unprotected copy, or give the tables as CSV";
+    public static string PdfNoPages => "the PDF has no pages";
+    public static string PdfTooManyPages(int pages, int max) =>
+        F($"the PDF has {pages} pages; CrossCheck reads at most {max} (raise the limit with --max-pages, or extract the calculation's pages)");
+    public static string PdfTooManyLetters(int letters, int max) =>
+        F($"the page holds {letters} letters, more than the {max} a page of tables can have; it looks like a drawing or a damaged page");
+    public static string PdfTimeBudget(double seconds, int page, int pages) =>
+        F($"reading the PDF took longer than the time budget of {seconds:0.#} s (stopped at page {page} of {pages}); raise it with --time-limit, or extract the calculation's pages");
+    public static string PdfScanned(int pages) =>
+        F($"the PDF has no extractable text: {(pages == 1 ? "its page is an image" : $"all {pages} pages are images")} (a scan?). CrossCheck does not read numbers from images; export the calculation's tables as a text PDF or as CSV");
+    public static string PdfInvisibleOnly =>
+        "the PDF's only text is invisible: an OCR layer over scanned images. CrossCheck does not read numbers recognised from images; export the calculation's tables as a text PDF or as CSV";
+    public static string PdfNoText => "the PDF has no text on any page; export the calculation's tables as a text PDF or as CSV";
+    public static string PdfPageImageOnly => "this page has no text, only images (a scanned page?); nothing on it was read";
+    public static string PdfPageInvisibleText =>
+        "this page's text is invisible (an OCR layer over a scanned image?); CrossCheck does not read it. Give a text PDF or CSV";
+    public static string PdfRotatedText(int letters) =>
+        F($"{letters} letters of rotated text on this page were not read (only horizontal text is read)");
+    public static string PdfNoTables(IReadOnlyList<string> seen) => seen.Count == 0
+        ? "no table of the submission format was found, and no line looked like a table header. Tables are recognised by their header row (see the README's 'PDF input')"
+        : F($"no table of the submission format was recognised. Header rows seen: {string.Join("; ", seen)}. Name the columns as in the submission format (or a listed synonym), or give the tables as CSV");
+    public static string PdfParenthesesWithoutNote(string column, string text) =>
+        F($"'{column}' = \"{text}\" is in parentheses, and the document does not say that parentheses mean negative (a note such as 'negative values in brackets'); correct the value after 'crosscheck extract'");
+    public static string PdfAmbiguousThousands(string text) =>
+        F($"\"{text}\" was read with ',' as a thousands separator (the document shows no decimal commas); check it");
+    public static string PdfWideUnresolved(string header, string sub) =>
+        F($"end-moment column '{header}': '{sub}' does not name the two joints of a member in the members table (M_AB is the moment at end A of the member from A to B)");
+    public static string PdfWideAmbiguous(string header, IEnumerable<string> readings) =>
+        F($"end-moment column '{header}' can be read more than one way ({string.Join(" or ", readings)}); write the subscript with a separator, e.g. M_A-B");
+    public static string PdfWideNoGeometry(string header) =>
+        F($"end-moment column '{header}' cannot be resolved: the document has no members (or spans) table naming the members' joints");
+    public static string PdfWideUnits(string a, string b) =>
+        F($"the end-moment columns give different units ('{a}' and '{b}'); give one unit for the table");
+    public static string PdfIncompatibleTables(string name, string first) =>
+        F($"a second '{name}' table with different columns (the first is at {first}); this one was not read. Give one '{name}' table");
+    public static string PdfUnitsDiffer(string name, string column, string first) =>
+        F($"this part of table '{name}' gives column '{column}' in a different unit from the part at {first}; this part was not read");
+    public static string PdfSideBySide(string read, string beside) =>
+        F($"two tables stand side by side in this line ('{beside}' and '{read}'); CrossCheck reads tables set one under another, so the '{beside}' table was not read. Give the tables as CSV (or print them one under the other)");
+    public static string PdfUnlabelledColumn(string sample) => F($"a column without a header (values such as \"{sample}\") was ignored");
+
     public static string NoJointsConnected(string id) => F($"joint '{id}' is not connected to any member");
 }

@@ -4,7 +4,11 @@ namespace CrossCheck.Import;
 /// <param name="Line">1-based line in the file (CSV) or on the page (PDF).</param>
 /// <param name="Cells">Cell texts, trimmed.</param>
 /// <param name="Page">Page for PDF input.</param>
-public sealed record RawRow(int Line, IReadOnlyList<string> Cells, int? Page = null)
+/// <param name="Printed">
+/// The cells exactly as printed, when <paramref name="Cells"/> holds a normalised form (a PDF's <c>(1,250.5)</c>
+/// read as <c>-1250.5</c>); provenance cites the printed text.
+/// </param>
+public sealed record RawRow(int Line, IReadOnlyList<string> Cells, int? Page = null, IReadOnlyList<string>? Printed = null)
 {
     public string Cell(int i) => i < Cells.Count ? Cells[i] : "";
     public bool IsBlank => Cells.All(c => c.Length == 0);

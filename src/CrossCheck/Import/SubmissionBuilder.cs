@@ -116,7 +116,8 @@ public sealed class SubmissionBuilder
             var view = new TableView(t, TableSchema.Info, new UnitDefaults(null, null), _problems);
             foreach (var row in view.Rows)
             {
-                string key = TableSchema.Normalize(view.Text(row, "key"));
+                string printedKey = view.Text(row, "key");
+                string key = TableSchema.InfoKey(printedKey) ?? TableSchema.Normalize(printedKey);
                 string value = view.Text(row, "value");
                 if (key.Length == 0) continue;
                 var where = view.CellRef(row, "value");
@@ -132,22 +133,33 @@ public sealed class SubmissionBuilder
                         if (length is null) Error(where, $"'{value}' is not a length unit");
                         break;
                     case "sign convention":
-                        string v = TableSchema.Normalize(value);
-                        if (v is "clockwise" or "cw" or "clockwise positive") sign = SignConvention.Clockwise;
-                        else if (v is "sagging" or "sagging positive" or "bending") sign = SignConvention.Sagging;
+                        if (ParseSign(value) is SignConvention sc) sign = sc;
                         else Error(where, Messages.BadWord("sign convention", value, ["clockwise", "sagging"]));
                         break;
                 }
             }
         }
-        string? Get(params string[] keys) => keys.Select(k => raw.TryGetValue(k, out var v) ? v.Item1 : null).FirstOrDefault(v => !string.IsNullOrEmpty(v));
-        string[] known = ["title", "project", "reference", "ref", "job", "job number", "revision", "rev", "prepared by", "author", "designer", "checked by", "checker", "date",
-            "force unit", "length unit", "sign convention", "axial"];
-        var other = raw.Where(kv => !known.Contains(kv.Key)).ToDictionary(kv => kv.Key, kv => kv.Value.Item1, StringComparer.Ordinal);
-        var info = new SubmissionInfo(Get("title", "project"), Get("reference", "ref", "job", "job number"), Get("revision", "rev"),
-            Get("prepared by", "author", "designer"), Get("checked by", "checker"), Get("date"), sign, DisplayUnits.Si, other);
+        string? Get(string key) => raw.TryGetValue(key, out var v) && v.Item1.Length > 0 ? v.Item1 : null;
+        var other = raw.Where(kv => !TableSchema.InfoKeys.ContainsKey(kv.Key)).ToDictionary(kv => kv.Key, kv => kv.Value.Item1, StringComparer.Ordinal);
+        var info = new SubmissionInfo(Get("title"), Get("reference"), Get("revision"),
+            Get("prepared by"), Get("checked by"), Get("date"), sign, DisplayUnits.Si, other);
         _defaults = new UnitDefaults(force, length);
         return (info, _defaults, raw);
+    }
+
+    /// <summary>
+    /// Reads a sign-convention statement: <c>clockwise</c>, <c>sagging</c>, or a phrase holding exactly one of them
+    /// (<c>clockwise moments positive</c>). Anticlockwise and hogging-positive conventions are not supported.
+    /// </summary>
+    private static SignConvention? ParseSign(string value)
+    {
+        string v = TableSchema.Normalize(value);
+        if (v is "cw") return SignConvention.Clockwise;
+        if (v is "bending") return SignConvention.Sagging;
+        var words = v.Split(' ', StringSplitOptions.RemoveEmptyEntries);
+        if (words.Any(w => w is "anticlockwise" or "counterclockwise" or "counter" or "anti") || v.Contains("hogging positive", StringComparison.Ordinal)) return null;
+        bool cw = words.Contains("clockwise"), sag = words.Contains("sagging");
+        return cw == sag ? null : cw ? SignConvention.Clockwise : SignConvention.Sagging;
     }
 
     private UnitDefaults _defaults = new(null, null);

@@ -1,3 +1,4 @@
+using CrossCheck.Import.Pdf;
 using CrossCheck.Model;
 
 namespace CrossCheck.Import;
@@ -6,7 +7,10 @@ namespace CrossCheck.Import;
 public static class SubmissionReader
 {
     /// <summary>Reads the submission at <paramref name="path"/>. Never throws for bad input: problems are returned.</summary>
-    public static ImportResult Read(string path)
+    public static ImportResult Read(string path) => Read(path, null);
+
+    /// <summary>Reads the submission at <paramref name="path"/>, reading a PDF within <paramref name="pdfLimits"/>.</summary>
+    public static ImportResult Read(string path, PdfLimits? pdfLimits)
     {
         ArgumentNullException.ThrowIfNull(path);
         var problems = new List<InputProblem>();
@@ -20,12 +24,9 @@ public static class SubmissionReader
             var tables = CsvTableReader.ReadSectioned(path, display, problems);
             return SubmissionBuilder.Build(path, tables, problems);
         }
-        if (ext == ".pdf" && PdfReaderHook is { } pdf) return pdf(path);
+        if (ext == ".pdf") return PdfSubmissionReader.Read(path, pdfLimits);
         return new ImportResult(null, [new InputProblem(new SourceRef(display), Messages.Unsupported(path))]);
     }
-
-    /// <summary>The PDF importer registers itself here (kept apart so CSV users need nothing from PDF code).</summary>
-    internal static Func<string, ImportResult>? PdfReaderHook { get; set; }
 
     private static ImportResult ReadFolder(string folder, List<InputProblem> problems)
     {

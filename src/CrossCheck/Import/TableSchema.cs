@@ -12,8 +12,12 @@ internal enum ColumnType
 /// <summary>A column of the submission format: its name, accepted synonyms and kind.</summary>
 internal sealed record ColumnSpec(string Name, ColumnType Type, QuantityKind Kind, bool Required, params string[] Synonyms)
 {
-    public bool Matches(string normalizedHeader) =>
-        TableSchema.Normalize(Name) == normalizedHeader || Synonyms.Any(s => TableSchema.Normalize(s) == normalizedHeader);
+    /// <summary>The name, normalised (see <see cref="TableSchema.Normalize"/>).</summary>
+    public string NormalizedName { get; } = TableSchema.Normalize(Name);
+
+    private readonly HashSet<string> _names = [TableSchema.Normalize(Name), .. Synonyms.Select(TableSchema.Normalize)];
+
+    public bool Matches(string normalizedHeader) => _names.Contains(normalizedHeader);
 }
 
 /// <summary>A table of the submission format.</summary>
@@ -36,10 +40,10 @@ internal static partial class TableSchema
 
     public static readonly TableSpec Joints = new("joints",
     [
-        Id("joint", true, "node", "id", "point"),
-        Num("x", QuantityKind.Length, true),
-        Num("y", QuantityKind.Length, true),
-        Text("restraint", false, "support", "fixity", "boundary"),
+        Id("joint", true, "node", "id", "point", "joint no", "node no", "jt"),
+        Num("x", QuantityKind.Length, true, "x coord", "x coordinate"),
+        Num("y", QuantityKind.Length, true, "y coord", "y coordinate"),
+        Text("restraint", false, "support", "fixity", "boundary", "support type", "restraint type"),
         Num("settle x", QuantityKind.Length, false, "settlement x", "dx"),
         Num("settle y", QuantityKind.Length, false, "settlement y", "settlement", "dy"),
         Num("settle rotation", QuantityKind.Angle, false, "settlement rotation", "rotation"),
@@ -47,12 +51,12 @@ internal static partial class TableSchema
 
     public static readonly TableSpec Members = new("members",
     [
-        Id("member", true, "element", "id", "span", "bar"),
-        Id("start", true, "from", "start joint", "node i", "i", "joint i"),
-        Id("end", true, "to", "end joint", "node j", "j", "joint j"),
-        Num("E", QuantityKind.Modulus, false, "modulus", "elastic modulus", "young's modulus"),
-        Num("I", QuantityKind.SecondMoment, true, "Ixx", "Iz", "second moment of area", "moment of inertia", "inertia"),
-        Num("A", QuantityKind.Area, false, "area", "section area"),
+        Id("member", true, "element", "id", "span", "bar", "member no", "element no", "mem"),
+        Id("start", true, "from", "start joint", "node i", "i", "joint i", "start node", "i node", "i end"),
+        Id("end", true, "to", "end joint", "node j", "j", "joint j", "end node", "j node", "j end"),
+        Num("E", QuantityKind.Modulus, false, "modulus", "elastic modulus", "young's modulus", "youngs modulus"),
+        Num("I", QuantityKind.SecondMoment, true, "Ixx", "Iz", "Ix", "second moment of area", "moment of inertia", "inertia"),
+        Num("A", QuantityKind.Area, false, "area", "section area", "cross section area"),
         Text("hinge", false, "release", "releases", "hinges"),
     ], "elements", "member properties");
 
@@ -66,50 +70,50 @@ internal static partial class TableSchema
 
     public static readonly TableSpec Spans = new("spans",
     [
-        Id("span", true, "member", "id"),
-        Num("length", QuantityKind.Length, true, "L", "span length"),
-        Num("E", QuantityKind.Modulus, false, "modulus", "elastic modulus"),
-        Num("I", QuantityKind.SecondMoment, true, "Ixx", "Iz", "second moment of area", "moment of inertia", "inertia"),
+        Id("span", true, "member", "id", "span no"),
+        Num("length", QuantityKind.Length, true, "L", "span length", "length L"),
+        Num("E", QuantityKind.Modulus, false, "modulus", "elastic modulus", "young's modulus", "youngs modulus"),
+        Num("I", QuantityKind.SecondMoment, true, "Ixx", "Iz", "Ix", "second moment of area", "moment of inertia", "inertia"),
         Text("hinge", false, "release", "releases"),
     ]);
 
     public static readonly TableSpec Loads = new("loads",
     [
-        Id("case", false, "load case", "lc", "loadcase", "combination"),
-        Id("on", true, "member", "joint", "span", "applied to", "element", "location"),
-        Text("kind", true, "type", "load type"),
-        Num("P", QuantityKind.Force, false, "force", "load", "F"),
+        Id("case", false, "load case", "lc", "loadcase", "combination", "load combination"),
+        Id("on", true, "member", "joint", "span", "applied to", "element", "location", "acting on", "member/joint"),
+        Text("kind", true, "type", "load type", "load kind"),
+        Num("P", QuantityKind.Force, false, "force", "load", "F", "point load"),
         Num("w", QuantityKind.ForcePerLength, false, "w start", "intensity", "udl", "w1", "q"),
         Num("w end", QuantityKind.ForcePerLength, false, "w2", "intensity end", "q end", "q2"),
-        Num("M", QuantityKind.Moment, false, "moment", "couple"),
-        Num("a", QuantityKind.Length, false, "x", "position", "distance", "from", "start at"),
+        Num("M", QuantityKind.Moment, false, "moment", "couple", "applied moment"),
+        Num("a", QuantityKind.Length, false, "x", "position", "distance", "from", "start at", "dist"),
         Num("b", QuantityKind.Length, false, "to", "end at"),
         Text("dir", false, "direction"),
     ], "load table", "applied loads");
 
     public static readonly TableSpec EndMoments = new("end-moments",
     [
-        Id("case", false, "load case", "lc", "loadcase", "combination"),
+        Id("case", false, "load case", "lc", "loadcase", "combination", "load combination"),
         Id("member", true, "span", "element"),
-        Id("at", true, "end", "joint", "node"),
-        Num("moment", QuantityKind.Moment, true, "M", "end moment", "member end moment", "final moment"),
-    ], "end moments", "member end moments", "final moments", "moments");
+        Id("at", true, "end", "joint", "node", "at joint"),
+        Num("moment", QuantityKind.Moment, true, "M", "end moment", "member end moment", "final moment", "final end moment"),
+    ], "end moments", "member end moments", "final moments", "moments", "final end moments");
 
     public static readonly TableSpec Reactions = new("reactions",
     [
-        Id("case", false, "load case", "lc", "loadcase"),
+        Id("case", false, "load case", "lc", "loadcase", "combination"),
         Id("joint", true, "support", "node"),
-        Num("Rx", QuantityKind.Force, false, "H", "horizontal"),
-        Num("Ry", QuantityKind.Force, false, "V", "R", "vertical"),
-        Num("M", QuantityKind.Moment, false, "moment", "Mz"),
+        Num("Rx", QuantityKind.Force, false, "H", "horizontal", "Fx", "horizontal reaction"),
+        Num("Ry", QuantityKind.Force, false, "V", "R", "vertical", "Fy", "vertical reaction"),
+        Num("M", QuantityKind.Moment, false, "moment", "Mz", "moment reaction", "fixing moment"),
     ], "support reactions");
 
     public static readonly TableSpec Displacements = new("displacements",
     [
-        Id("case", false, "load case", "lc", "loadcase"),
+        Id("case", false, "load case", "lc", "loadcase", "combination"),
         Id("joint", true, "node"),
-        Num("ux", QuantityKind.Length, false, "dx", "sway", "drift", "horizontal"),
-        Num("uy", QuantityKind.Length, false, "dy", "deflection", "vertical"),
+        Num("ux", QuantityKind.Length, false, "dx", "sway", "drift", "horizontal", "δx", "Δx"),
+        Num("uy", QuantityKind.Length, false, "dy", "deflection", "vertical", "δy", "Δy"),
         Num("rotation", QuantityKind.Angle, false, "theta", "θ", "rz"),
     ], "deflections", "joint displacements");
 
@@ -129,6 +133,43 @@ internal static partial class TableSchema
     {
         string n = Normalize(name);
         return All.FirstOrDefault(t => t.Matches(n));
+    }
+
+    /// <summary>
+    /// The column a header name (without its unit) stands for: the column whose own name matches first, then a
+    /// column with a matching synonym. Every reader resolves headers through here.
+    /// </summary>
+    public static ColumnSpec? ResolveColumn(TableSpec spec, string name)
+    {
+        string norm = Normalize(name);
+        return spec.Columns.FirstOrDefault(c => c.NormalizedName == norm) ?? spec.Columns.FirstOrDefault(c => c.Matches(norm));
+    }
+
+    /// <summary>
+    /// Keys of the <c>info</c> table and the words calculation title blocks use for them
+    /// (<c>Job No.</c> = reference, <c>Designed by</c> = prepared by, ...).
+    /// </summary>
+    public static readonly IReadOnlyDictionary<string, string[]> InfoKeys = new Dictionary<string, string[]>(StringComparer.Ordinal)
+    {
+        ["title"] = ["project", "project title", "job title", "subject"],
+        ["reference"] = ["ref", "job", "job number", "job no", "calc ref", "calculation reference", "calc no", "document number", "doc no", "project number", "project no"],
+        ["revision"] = ["rev", "issue"],
+        ["prepared by"] = ["author", "designer", "designed by", "calculated by", "calc by", "made by", "calcs by", "by"],
+        ["checked by"] = ["checker", "checked"],
+        ["date"] = ["dated"],
+        ["force unit"] = [],
+        ["length unit"] = [],
+        ["sign convention"] = ["moment sign convention", "convention"],
+        ["axial"] = ["axial behaviour", "axial behavior", "axial deformation"],
+    };
+
+    /// <summary>The info key a title-block word stands for (<c>Job No.</c> → <c>reference</c>), or null when it is none of them.</summary>
+    public static string? InfoKey(string key)
+    {
+        string n = Normalize(key.Trim().TrimEnd('.', ':'));
+        foreach (var (canonical, synonyms) in InfoKeys)
+            if (canonical == n || synonyms.Any(s => Normalize(s) == n)) return canonical;
+        return null;
     }
 
     /// <summary>Case-insensitive, trimmed, with space, <c>_</c> and <c>-</c> treated alike.</summary>

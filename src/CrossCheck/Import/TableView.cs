@@ -26,9 +26,7 @@ internal sealed class TableView
             if (cell.Length == 0) continue;
             var (name, unitText) = TableSchema.SplitHeader(cell);
             if (unitText is null && raw.ColumnUnits?.TryGetValue(i, out var u) == true) unitText = u;
-            string norm = TableSchema.Normalize(name);
-            var col = spec.Columns.FirstOrDefault(c => TableSchema.Normalize(c.Name) == norm)
-                      ?? spec.Columns.FirstOrDefault(c => c.Matches(norm));
+            var col = TableSchema.ResolveColumn(spec, name);
             var where = HeaderRef(cell);
             if (col is null)
             {
@@ -69,7 +67,11 @@ internal sealed class TableView
     public SourceRef RowRef(RawRow row) => new(Raw.File, Spec.Name, row.Line, null, row.Page);
 
     public SourceRef CellRef(RawRow row, string column) =>
-        new(Raw.File, Spec.Name, row.Line, _headerText.GetValueOrDefault(column, column), row.Page, Text(row, column));
+        new(Raw.File, Spec.Name, row.Line, _headerText.GetValueOrDefault(column, column), row.Page, Printed(row, column));
+
+    /// <summary>The cell as printed in the source (PDF cells are read in a normalised form; see <see cref="RawRow.Printed"/>).</summary>
+    private string Printed(RawRow row, string column) =>
+        _index.TryGetValue(column, out int i) && row.Printed is { } p && i < p.Count ? p[i] : Text(row, column);
 
     private SourceRef HeaderRef(string cell) => new(Raw.File, Spec.Name, Raw.Header.Line, cell, Raw.Header.Page);
 

@@ -54,7 +54,8 @@ public static partial class UnitReader
         var m = PowerPrefix().Match(raw);
         if (m.Success)
         {
-            multiplier = Math.Pow(10, int.Parse(m.Groups["exp"].Value, CultureInfo.InvariantCulture));
+            string exp = m.Groups["exp"].Success ? m.Groups["exp"].Value : FromSuperscript(m.Groups["sup"].Value);
+            multiplier = Math.Pow(10, int.Parse(exp, CultureInfo.InvariantCulture));
             raw = raw[m.Length..].Trim();
         }
         string norm = Normalize(raw);
@@ -111,8 +112,16 @@ public static partial class UnitReader
         return s;
     }
 
-    [GeneratedRegex(@"^(?:[x×]\s*)?(?:10\s*\^\s*|10(?=[⁰¹²³⁴⁵⁶⁷⁸⁹])|1e)(?<exp>[+-]?\d+)\s*", RegexOptions.CultureInvariant)]
+    [GeneratedRegex(@"^(?:[x×]\s*)?(?:(?:10\s*\^\s*|1e)(?<exp>[+-]?\d+)|10(?<sup>[⁻⁺]?[⁰¹²³⁴⁵⁶⁷⁸⁹]+))\s*", RegexOptions.CultureInvariant)]
     private static partial Regex PowerPrefix();
+
+    /// <summary><c>⁻⁶</c> → <c>-6</c>.</summary>
+    private static string FromSuperscript(string s)
+    {
+        var sb = new System.Text.StringBuilder();
+        foreach (char c in s) sb.Append(c switch { '⁻' => '-', '⁺' => '+', _ => (char)('0' + "⁰¹²³⁴⁵⁶⁷⁸⁹".IndexOf(c, StringComparison.Ordinal)) });
+        return sb.ToString();
+    }
 
     private static Dictionary<string, (QuantityKind Kind, double ToSi)> BuildAliases()
     {

@@ -34,11 +34,16 @@ public enum ReviewFailure
 public static class ReviewPipeline
 {
     /// <summary>Reviews the submission at <paramref name="path"/>. Bad input is returned as errors, never thrown.</summary>
-    public static ReviewOutcome Run(string path, ReviewOptions options)
+    public static ReviewOutcome Run(string path, ReviewOptions options) => Run(path, options, null);
+
+    /// <param name="path">The submission.</param>
+    /// <param name="options">Tolerances and sign-off details.</param>
+    /// <param name="pdfLimits">Page and time limits for PDF input (defaults when null).</param>
+    public static ReviewOutcome Run(string path, ReviewOptions options, Import.Pdf.PdfLimits? pdfLimits)
     {
         ArgumentNullException.ThrowIfNull(path);
         ArgumentNullException.ThrowIfNull(options);
-        var imported = SubmissionReader.Read(path);
+        var imported = SubmissionReader.Read(path, pdfLimits);
         var warnings = imported.Warnings.ToList();
         if (!imported.Succeeded) return new ReviewOutcome(path, null, imported.Errors.ToList(), warnings, ReviewFailure.Unreadable);
         var s = imported.Submission!;

@@ -1,0 +1,209 @@
+namespace CrossCheck.Import.Pdf;
+
+/// <summary>A column of a table found in a PDF: its header cell (none for a column printed without one) and where its values sit.</summary>
+internal sealed class FoundColumn(HeaderCell? header, double left, double right)
+{
+    public HeaderCell? Header { get; } = header;
+    public double HeadLeft { get; } = left;
+    public double HeadRight { get; } = right;
+
+    /// <summary>Typical extent of the values (median left and right edges), once rows have been placed.</summary>
+    public (double Left, double Right)? Data { get; set; }
+
+    /// <summary>Distance from a piece of text to this column (0 when it overlaps the header or the values).</summary>
+    public double Distance(double l, double r)
+    {
+        double d = Geometry.Distance(l, r, HeadLeft, HeadRight);
+        if (Data is var (dl, dr)) d = Math.Min(d, Geometry.Distance(l, r, dl, dr));
+        return d;
+    }
+}
+
+/// <summary>A piece of a row: one cell's words.</summary>
+internal sealed record RowPiece(double Left, double Right, string Text, double Size);
+
+/// <summary>
+/// Places the words of table rows in columns. Cells are rebuilt from column extents, not from words: each row's
+/// pieces (runs of words between wide gaps) are matched to the columns in order, at least cost, where the cost is the
+/// horizontal distance to the column's header or to where the column's values sit in the other rows. That handles
+/// right-aligned numbers under short left- or centre-aligned headers, empty cells, and a leading column printed
+/// without a header. The column extents are refined over a few passes. A line that crosses two headers, or has more
+/// pieces than the table has columns, is not a row: the table ends there.
+/// </summary>
+internal static class TableLayout
+{
+    /// <summary>Cost of leaving a piece out of every column, in font sizes.</summary>
+    private const double DropEm = 4;
+
+    /// <summary>Cost of placing the first piece in a column to the left of every header.</summary>
+    private const double LeadingEm = 2;
+
+    /// <summary>Farthest a piece may sit from the column it is placed in, in font sizes.</summary>
+    private const double MaxDistanceEm = 8;
+
+    /// <summary>A row placed in columns: the text per column (index −1 = the leading column without a header).</summary>
+    internal sealed record Placed(string?[] Cells, string? Leading, double WorstDistanceEm);
+
+    /// <summary>
+    /// Places every line; returns the placements of the lines up to (not including) the first that is not a row of this
+    /// table, and that line's index (or the count when all fit). Updates the columns' value extents.
+    /// </summary>
+    public static (List<Placed> Rows, int FirstBad) Place(List<FoundColumn> columns, IReadOnlyList<TextLine> lines, bool tight)
+    {
+        var placed = new List<Placed>();
+        int firstBad = lines.Count;
+        for (int pass = 0; pass < 3; pass++)
+        {
+            placed.Clear();
+            var edges = columns.Select(_ => (Lefts: new List<double>(), Rights: new List<double>())).ToList();
+            firstBad = lines.Count;
+            for (int i = 0; i < lines.Count; i++)
+            {
+                // The first pass only learns where each column's values sit; later passes judge every line.
+                var p = PlaceLine(columns, lines[i], tight, edges, lenient: pass == 0);
+                if (p is null) { firstBad = i; break; }
+                placed.Add(p);
+            }
+            for (int k = 0; k < columns.Count; k++)
+            {
+                var (ls, rs) = edges[k];
+                if (ls.Count == 0) continue;
+                ls.Sort();
+                rs.Sort();
+                columns[k].Data = (ls[ls.Count / 2], rs[rs.Count / 2]);
+            }
+        }
+        return (placed, firstBad);
+    }
+
+    /// <summary>Places one line, or returns null when it is not a row of the table.</summary>
+    public static Placed? PlaceLine(List<FoundColumn> columns, TextLine line, bool tight,
+        List<(List<double> Lefts, List<double> Rights)>? edges = null, bool lenient = false)
+    {
+        var pieces = Pieces(columns, line, tight);
+        if (pieces is null || pieces.Count == 0 || pieces.Count > columns.Count + 2) return null;
+        double em = Math.Max(1, line.Size);
+        int n = columns.Count, m = pieces.Count;
+
+        // dp[i, k+1]: least cost with the first i pieces placed and the last used column k (−1: none, or the leading column).
+        var dp = new double[m + 1, n + 1];
+        var from = new (int K, int Choice)[m + 1, n + 1]; // Choice: column index, −1 leading, −2 drop, −3 join previous
+        for (int i = 0; i <= m; i++) for (int k = 0; k <= n; k++) dp[i, k] = double.PositiveInfinity;
+        dp[0, 0] = 0;
+        for (int i = 0; i < m; i++)
+        {
+            var p = pieces[i];
+            for (int k = 0; k <= n; k++)
+            {
+                double c0 = dp[i, k];
+                if (double.IsPositiveInfinity(c0)) continue;
+                int last = k - 1;
+                for (int j = last + 1; j < n; j++)
+                {
+                    double c = c0 + columns[j].Distance(p.Left, p.Right);
+                    if (c < dp[i + 1, j + 1]) { dp[i + 1, j + 1] = c; from[i + 1, j + 1] = (k, j); }
+                }
+                if (i == 0 && p.Right < Math.Min(columns[0].HeadLeft, columns[0].Data?.Left ?? double.MaxValue) - (0.3 * em))
+                {
+                    double c = c0 + (LeadingEm * em);
+                    if (c < dp[1, 0]) { dp[1, 0] = c; from[1, 0] = (k, -1); }
+                }
+                if (last >= 0 && i > 0)
+                {
+                    double gap = p.Left - pieces[i - 1].Right;
+                    double c = c0 + Math.Max(0, gap) + (0.3 * em);
+                    if (gap < 3 * em && c < dp[i + 1, k]) { dp[i + 1, k] = c; from[i + 1, k] = (k, -3); }
+                }
+                {
+                    double c = c0 + ((lenient ? 5 * DropEm : DropEm) * em);
+                    if (c < dp[i + 1, k]) { dp[i + 1, k] = c; from[i + 1, k] = (k, -2); }
+                }
+            }
+        }
+        int bestK = 0;
+        for (int k = 1; k <= n; k++) if (dp[m, k] < dp[m, bestK]) bestK = k;
+        if (double.IsPositiveInfinity(dp[m, bestK])) return null;
+
+        var choice = new int[m];
+        int kk = bestK;
+        for (int i = m; i > 0; i--)
+        {
+            var (prevK, ch) = from[i, kk];
+            choice[i - 1] = ch == -3 ? kk - 1 : ch;
+            if (ch == -2) choice[i - 1] = -2;
+            kk = prevK;
+        }
+        var cells = new string?[n];
+        string? leading = null;
+        double worst = 0;
+        for (int i = 0; i < m; i++)
+        {
+            var p = pieces[i];
+            int c = choice[i];
+            if (c == -2)
+            {
+                if (lenient) continue;
+                return null; // a piece that belongs to no column: not a row of this table
+            }
+            if (c == -1) { leading = p.Text; continue; }
+            double d = columns[c].Distance(p.Left, p.Right) / em;
+            worst = Math.Max(worst, d);
+            if (d > MaxDistanceEm && !lenient) return null;
+            // A value that reaches under two headers is prose or another table, not a cell.
+            int under = 0;
+            for (int j = 0; j < n; j++)
+                if (Geometry.Overlap(p.Left, p.Right, columns[j].HeadLeft, columns[j].HeadRight) > 0.15 * em) under++;
+            if (under > 1) return null;
+            cells[c] = cells[c] is null ? p.Text : cells[c] + " " + p.Text;
+            if (edges is not null) { edges[c].Lefts.Add(p.Left); edges[c].Rights.Add(p.Right); }
+        }
+        // Text left of the first column belongs to it unless the first column has a value of its own in this row.
+        if (leading is not null && cells.Length > 0 && cells[0] is null) { cells[0] = leading; leading = null; }
+        int filled = cells.Count(c => c is not null) + (leading is null ? 0 : 1);
+        if (filled < Math.Min(2, n)) return null;
+        return new Placed(cells, leading, worst);
+    }
+
+    /// <summary>
+    /// The row's pieces: runs of words between wide gaps. In a tightly set table (header cells one space apart) a run
+    /// that reaches over two columns is cut into words, each in the column it sits in; otherwise such a line is not a
+    /// row (null).
+    /// </summary>
+    private static List<RowPiece>? Pieces(List<FoundColumn> columns, TextLine line, bool tight)
+    {
+        var pieces = new List<RowPiece>();
+        double em = Math.Max(1, line.Size);
+        foreach (var chunk in line.Chunks())
+        {
+            var zones = columns.Where(c => Overlaps(c, chunk.Left, chunk.Right, em)).ToList();
+            if (zones.Count <= 1 || chunk.Words.Count == 1)
+            {
+                pieces.Add(new RowPiece(chunk.Left, chunk.Right, chunk.Text, line.Size));
+                continue;
+            }
+            // Where the header's cells stand apart, so do a row's: a run of words across two columns is prose.
+            if (!tight) return null;
+            // Cut into words, keeping together the words that share one column.
+            var groups = new List<(int Column, List<TextWord> Words)>();
+            foreach (var w in chunk.Words)
+            {
+                var under = columns.Select((c, i) => (c, i)).Where(t => Overlaps(t.c, w.Left, w.Right, em)).ToList();
+                if (under.Count > 1) return null;
+                int col = under.Count == 1 ? under[0].i : groups.Count > 0 ? groups[^1].Column : -1;
+                if (col < 0) return null;
+                if (groups.Count > 0 && groups[^1].Column == col) groups[^1].Words.Add(w);
+                else groups.Add((col, [w]));
+            }
+            foreach (var (_, words) in groups)
+                pieces.Add(new RowPiece(words[0].Left, words[^1].Right, string.Join(" ", words.Select(w => w.Text)), line.Size));
+        }
+        return pieces;
+    }
+
+    private static bool Overlaps(FoundColumn c, double l, double r, double em)
+    {
+        double tol = 0.1 * em;
+        if (Geometry.Overlap(l, r, c.HeadLeft, c.HeadRight) > tol) return true;
+        return c.Data is var (dl, dr) && Geometry.Overlap(l, r, dl, dr) > tol;
+    }
+}
