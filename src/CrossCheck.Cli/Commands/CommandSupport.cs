@@ -1,7 +1,5 @@
 using CrossCheck.Analysis;
-using System.CommandLine;
 using CrossCheck.Import;
-using CrossCheck.Import.Pdf;
 using CrossCheck.Memo;
 using CrossCheck.Model;
 using CrossCheck.Review;
@@ -12,30 +10,10 @@ namespace CrossCheck.Cli.Commands;
 /// <summary>What the commands share: reading a submission, reporting input problems, writing outputs.</summary>
 internal static class CommandSupport
 {
-    /// <summary>The options that bound the work of reading a PDF.</summary>
-    public static (Option<int> MaxPages, Option<double> TimeLimit) PdfLimitOptions() =>
-    (
-        new Option<int>("--max-pages") { Description = "Read PDFs of at most this many pages.", DefaultValueFactory = _ => PdfLimits.Default.MaxPages },
-        new Option<double>("--time-limit") { Description = "Give up reading a PDF after this many seconds.", DefaultValueFactory = _ => PdfLimits.Default.TimeBudget.TotalSeconds }
-    );
-
-    /// <summary>The PDF limits asked for; null (after a message) when they make no sense.</summary>
-    public static PdfLimits? Limits(ParseResult pr, Option<int> maxPages, Option<double> timeLimit, CliIo io)
-    {
-        int pages = pr.GetValue(maxPages);
-        double seconds = pr.GetValue(timeLimit);
-        if (pages < 1 || !(seconds > 0) || seconds > 3600)
-        {
-            io.Error.WriteLine("crosscheck: --max-pages must be at least 1 and --time-limit between 0 and 3600 seconds.");
-            return null;
-        }
-        return PdfLimits.Default with { MaxPages = pages, TimeBudget = TimeSpan.FromSeconds(seconds) };
-    }
-
     /// <summary>Reads a submission; on failure prints every problem and returns null.</summary>
-    public static Submission? Read(string path, CliIo io, bool quietWarnings = false, PdfLimits? limits = null)
+    public static Submission? Read(string path, CliIo io, bool quietWarnings = false, InputLimits? limits = null)
     {
-        var result = SubmissionReader.Read(path, limits);
+        var result = SubmissionReader.Read(path, limits ?? InputLimits.Default);
         if (!quietWarnings)
             foreach (var w in result.Warnings) io.Error.WriteLine($"warning: {w}");
         if (result.Succeeded) return result.Submission;
@@ -66,12 +44,31 @@ internal static class CommandSupport
         return null;
     }
 
-    /// <summary>Writes to <paramref name="outPath"/> atomically, or to standard output when it is null.</summary>
-    public static void Emit(string? outPath, string content, CliIo io, bool announce = true)
+    /// <summary>Writes to <paramref name="outPath"/> atomically, or to standard output when it is null; false (after a message) when the file cannot be written.</summary>
+    public static bool Emit(string? outPath, string content, CliIo io, bool announce = true)
     {
-        if (outPath is null) { io.Output.Write(content); return; }
-        AtomicFile.WriteText(outPath, content);
+        if (outPath is null) { io.Output.Write(content); return true; }
+        if (!TryWrite(outPath, () => AtomicFile.WriteText(outPath, content), io)) return false;
         if (announce) io.Error.WriteLine($"wrote {outPath}");
+        return true;
+    }
+
+    /// <summary>
+    /// Runs <paramref name="write"/>; a path that cannot be written (a folder of that name, no permission, a missing
+    /// drive) is the user's to fix, so it is reported in a sentence, not as an internal error. Nothing is left half-written.
+    /// </summary>
+    public static bool TryWrite(string path, Action write, CliIo io)
+    {
+        try
+        {
+            write();
+            return true;
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
+        {
+            io.Error.WriteLine($"crosscheck: cannot write '{path}': {ex.Message}");
+            return false;
+        }
     }
 
     public static IAnsiConsole Console(CliIo io)

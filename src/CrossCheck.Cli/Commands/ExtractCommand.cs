@@ -17,20 +17,21 @@ internal static class ExtractCommand
         var pdf = new Argument<string>("pdf") { Description = "A text PDF of the calculation." };
         var output = new Option<string>("--out", "-o") { Description = "Folder to write the CSV tables into.", Required = true };
         var force = new Option<bool>("--force") { Description = "Replace the CSV tables of a folder that already holds some." };
-        var (maxPages, timeLimit) = CommandSupport.PdfLimitOptions();
+        var limitOptions = new LimitOptions();
         var cmd = new Command("extract", "Read the tables of a text PDF and write them as CSV files of the submission format.")
         {
-            pdf, output, force, maxPages, timeLimit,
+            pdf, output, force,
         };
+        limitOptions.AddTo(cmd);
         cmd.SetAction(pr =>
         {
-            var limits = CommandSupport.Limits(pr, maxPages, timeLimit, io);
+            var limits = limitOptions.Read(pr, io);
             return limits is null ? ExitCodes.InputError : Run(pr.GetValue(pdf)!, pr.GetValue(output)!, pr.GetValue(force), limits, io);
         });
         return cmd;
     }
 
-    private static int Run(string path, string outDir, bool force, PdfLimits limits, CliIo io)
+    private static int Run(string path, string outDir, bool force, InputLimits limits, CliIo io)
     {
         if (!File.Exists(path))
         {
@@ -42,7 +43,7 @@ internal static class ExtractCommand
             io.Error.WriteLine($"crosscheck: '{path}' is not a .pdf file; extract reads text PDFs (CSV submissions need no extracting).");
             return ExitCodes.InputError;
         }
-        var x = PdfSubmissionReader.Extract(path, limits);
+        var x = PdfSubmissionReader.Extract(path, limits.Pdf);
         if (x.Tables.Count == 0)
         {
             io.Error.WriteLine($"crosscheck: no tables were read from '{path}':");
@@ -56,10 +57,10 @@ internal static class ExtractCommand
             return ExitCodes.InputError;
         }
 
-        var built = SubmissionBuilder.Build(path, x.Tables, x.Problems);
+        var built = SubmissionBuilder.Build(path, x.Tables, x.Problems, limits);
         var files = ContractCsv.Render(x.Tables);
         PrintFound(x, io);
-        WriteFolder(outDir, files);
+        if (!CommandSupport.TryWrite(outDir, () => WriteFolder(outDir, files), io)) return ExitCodes.InputError;
         io.Output.WriteLine($"wrote {files.Count} table{(files.Count == 1 ? "" : "s")} to {outDir}: {string.Join(", ", files.Select(f => f.FileName))}");
 
         foreach (var w in built.Warnings) io.Error.WriteLine($"warning: {w}");
@@ -92,7 +93,8 @@ internal static class ExtractCommand
     private static void WriteFolder(string dir, IReadOnlyList<ContractFile> files)
     {
         Directory.CreateDirectory(dir);
-        foreach (var f in files) AtomicFile.WriteText(Path.Combine(dir, f.FileName), f.Content);
+        // The file names are the format's table names; ChildPath makes sure each stays a plain name inside the folder.
+        foreach (var f in files) AtomicFile.WriteText(SubmissionNames.ChildPath(dir, f.FileName), f.Content);
         var written = files.Select(f => f.FileName).ToHashSet(StringComparer.OrdinalIgnoreCase);
         foreach (var stale in Directory.EnumerateFiles(dir, "*.csv"))
         {

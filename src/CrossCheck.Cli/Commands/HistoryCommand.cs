@@ -116,8 +116,7 @@ internal static class HistoryCommand
     {
         using var register = OpenExisting(path, io);
         if (register is null) return ExitCodes.InputError;
-        CommandSupport.Emit(outPath, findings ? register.ExportFindingsCsv() : register.ExportReviewsCsv(), io);
-        return ExitCodes.Concur;
+        return CommandSupport.Emit(outPath, findings ? register.ExportFindingsCsv() : register.ExportReviewsCsv(), io) ? ExitCodes.Concur : ExitCodes.InputError;
     }
 
     private static int Check(string path, CliIo io)

@@ -21,7 +21,7 @@ internal static class ReviewCommand
         var quiet = new Option<bool>("--quiet", "-q") { Description = "Print no summary." };
         var register = new Option<string?>("--register") { Description = "Record the review in this register file and compare it with the previous round of the same reference." };
         var working = new Option<bool>("--show-working") { Description = "Add CrossCheck's own moment-distribution working table to the memo." };
-        var (maxPages, timeLimit) = CommandSupport.PdfLimitOptions();
+        var limitOptions = new LimitOptions();
         var cmd = new Command("review", "Recompute the end moments, check the claimed numbers, and write a review memo.")
         {
             submission, format, output, template,
@@ -30,14 +30,13 @@ internal static class ReviewCommand
         cmd.Add(quiet);
         cmd.Add(register);
         cmd.Add(working);
-        cmd.Add(maxPages);
-        cmd.Add(timeLimit);
+        limitOptions.AddTo(cmd);
         cmd.SetAction(pr =>
         {
             var options = settings.Read(pr, io);
             if (options is null) return ExitCodes.InputError;
             options = options with { ShowWorking = pr.GetValue(working) };
-            var limits = CommandSupport.Limits(pr, maxPages, timeLimit, io);
+            var limits = limitOptions.Read(pr, io);
             if (limits is null) return ExitCodes.InputError;
             return Run(new Request(pr.GetValue(submission)!, pr.GetValue(format)!, pr.GetValue(output), pr.GetValue(template), options,
                 pr.GetValue(quiet), pr.GetValue(register), limits), io);
@@ -46,7 +45,7 @@ internal static class ReviewCommand
     }
 
     private sealed record Request(string Path, string Format, string? Out, string? Template, ReviewOptions Options, bool Quiet, string? Register,
-        Import.Pdf.PdfLimits Limits);
+        InputLimits Limits);
 
     private static int Run(Request r, CliIo io)
     {
@@ -79,7 +78,7 @@ internal static class ReviewCommand
         foreach (var w in outcome.Warnings) io.Error.WriteLine($"warning: {w}");
         if (outcome.Review is not { } review)
         {
-            if (json) CommandSupport.Emit(r.Out, ReviewJson.WriteInputErrors(r.Path, outcome.Errors), io, announce: r.Out is not null);
+            if (json) _ = CommandSupport.Emit(r.Out, ReviewJson.WriteInputErrors(r.Path, outcome.Errors), io, announce: r.Out is not null);
             CommandSupport.ReportErrors(r.Path, outcome, io);
             return ExitCodes.InputError;
         }
@@ -113,19 +112,21 @@ internal static class ReviewCommand
         string? target = r.Out ?? (json ? null : DefaultMemoPath(r.Path, r.Format));
         if (pdf)
         {
+            byte[] printed;
             try
             {
-                AtomicFile.WriteBytes(target!, PdfPrinter.Print(content, browser!));
+                printed = PdfPrinter.Print(content, browser!);
             }
             catch (PdfPrintException ex)
             {
                 io.Error.WriteLine($"crosscheck: the PDF memo could not be printed: {ex.Message} Write it with --format html and print it from a browser instead.");
                 return ExitCodes.InputError;
             }
+            if (!CommandSupport.TryWrite(target!, () => AtomicFile.WriteBytes(target!, printed), io)) return ExitCodes.InputError;
         }
-        else
+        else if (!CommandSupport.Emit(target, content, io, announce: false))
         {
-            CommandSupport.Emit(target, content, io, announce: false);
+            return ExitCodes.InputError;
         }
         if (!r.Quiet && !(json && target is null)) PrintSummary(review, rounds, target, io);
         return review.Verdict == Verdict.Concur ? ExitCodes.Concur : ExitCodes.Comments;

@@ -23,23 +23,27 @@ internal static class ScreenCommand
         var jobs = new Option<int>("--jobs", "-j") { Description = "Submissions reviewed at once (default: one per processor).", DefaultValueFactory = _ => 0 };
         var quiet = new Option<bool>("--quiet", "-q") { Description = "Print only the totals." };
         var settings = new ReviewSettings();
+        var limitOptions = new LimitOptions();
         var cmd = new Command("screen", "Review every submission in a folder in parallel: a memo each, a summary table and CSV, and an HTML index.")
         {
             folder, output, format, template, register, noRegister, jobs, quiet,
         };
         settings.AddTo(cmd);
+        limitOptions.AddTo(cmd);
         cmd.SetAction(pr =>
         {
             var options = settings.Read(pr, io);
             if (options is null) return ExitCodes.InputError;
+            var limits = limitOptions.Read(pr, io);
+            if (limits is null) return ExitCodes.InputError;
             return Run(pr.GetValue(folder)!, pr.GetValue(output), pr.GetValue(format)!, pr.GetValue(template), pr.GetValue(register),
-                pr.GetValue(noRegister), pr.GetValue(jobs), pr.GetValue(quiet), options, io);
+                pr.GetValue(noRegister), pr.GetValue(jobs), pr.GetValue(quiet), options, limits, io);
         });
         return cmd;
     }
 
     private static int Run(string folder, string? outDir, string format, string? templatePath, string? registerPath, bool noRegister, int jobs, bool quiet,
-        ReviewOptions review, CliIo io)
+        ReviewOptions review, Import.InputLimits limits, CliIo io)
     {
         if (!Directory.Exists(folder))
         {
@@ -83,7 +87,7 @@ internal static class ScreenCommand
             return ExitCodes.InputError;
         }
         if (!noRegister) registerPath ??= Path.Combine(Path.GetDirectoryName(full) ?? full, ReviewRegister.DefaultFileName);
-        var options = new ScreenOptions(review, outDir, format == "md" ? MemoFormat.Markdown : MemoFormat.Html, jobs, registerPath, template);
+        var options = new ScreenOptions(review, outDir, format == "md" ? MemoFormat.Markdown : MemoFormat.Html, jobs, registerPath, template) { Limits = limits };
 
         var console = CommandSupport.Console(io);
         ScreenReport report;

@@ -14,20 +14,21 @@ internal static class SolveCommand
         var format = new Option<string>("--format", "-f") { Description = "Output format.", DefaultValueFactory = _ => "table" };
         format.AcceptOnlyFromAmong("table", "csv", "json");
         var output = new Option<string?>("--out", "-o") { Description = "Write to this file instead of standard output." };
-        var (maxPages, timeLimit) = CommandSupport.PdfLimitOptions();
+        var limitOptions = new LimitOptions();
         var cmd = new Command("solve", "Recompute every member end moment of a submission with the independent stiffness solver.")
         {
-            submission, format, output, maxPages, timeLimit,
+            submission, format, output,
         };
+        limitOptions.AddTo(cmd);
         cmd.SetAction(pr =>
         {
-            var limits = CommandSupport.Limits(pr, maxPages, timeLimit, io);
+            var limits = limitOptions.Read(pr, io);
             return limits is null ? ExitCodes.InputError : Run(pr.GetValue(submission)!, pr.GetValue(format)!, pr.GetValue(output), limits, io);
         });
         return cmd;
     }
 
-    private static int Run(string path, string format, string? outPath, Import.Pdf.PdfLimits limits, CliIo io)
+    private static int Run(string path, string format, string? outPath, Import.InputLimits limits, CliIo io)
     {
         var s = CommandSupport.Read(path, io, limits: limits);
         if (s is null) return ExitCodes.InputError;
@@ -38,17 +39,17 @@ internal static class SolveCommand
         switch (format)
         {
             case "csv":
-                CommandSupport.Emit(outPath, report.ToCsv(), io);
+                if (!CommandSupport.Emit(outPath, report.ToCsv(), io)) return ExitCodes.InputError;
                 break;
             case "json":
-                CommandSupport.Emit(outPath, report.ToJson(), io);
+                if (!CommandSupport.Emit(outPath, report.ToJson(), io)) return ExitCodes.InputError;
                 break;
             default:
                 if (outPath is not null)
                 {
                     var sw = new StringWriter(CultureInfo.InvariantCulture);
                     RenderTable(report, new CliIo(sw, io.Error, false));
-                    CommandSupport.Emit(outPath, sw.ToString(), io);
+                    if (!CommandSupport.Emit(outPath, sw.ToString(), io)) return ExitCodes.InputError;
                 }
                 else
                 {

@@ -20,8 +20,6 @@ public sealed class FrameSolver
     /// <summary>Scaled pivots below this send the structure to the mechanism check.</summary>
     private const double SuspectPivotRatio = 1e-6;
 
-    /// <summary>Condition estimates above this are reported in the notes.</summary>
-    private const double IllConditioned = 1e10;
     private readonly ILinearSolver _linear;
 
     public FrameSolver(ILinearSolver? linear = null) => _linear = linear ?? AutoSolver.Instance;
@@ -107,7 +105,8 @@ public sealed class FrameSolver
             var extra = new List<(int Dof, string Note)>();
             for (int attempt = 0; ; attempt++)
             {
-                var constraints = BuildConstraints(extra);
+                var held = new HashSet<int>();
+                var constraints = BuildConstraints(extra, held);
                 var t = constraints.Build();
                 var k = Reduce(t);
                 var loads = perCase.Select(pc => ReducedLoad(t, pc.Case, pc.Local)).ToList();
@@ -139,18 +138,46 @@ public sealed class FrameSolver
                 }
                 foreach (var (_, note) in extra) _notes.Add(note);
                 var results = new List<CaseResult>();
+                var balance = new List<CaseEquilibrium>();
                 for (int c = 0; c < perCase.Count; c++)
                 {
                     var q = factor!.Solve(loads[c].Reduced);
                     var d = t.Expand(q);
-                    results.Add(Recover(perCase[c].Case, perCase[c].Local, d, loads[c].Full, constraints));
+                    var (result, equilibrium) = Recover(perCase[c].Case, perCase[c].Local, d, constraints, held);
+                    results.Add(result);
+                    balance.Add(equilibrium);
                 }
                 double condition = 1 / Math.Max(factor!.MinPivotRatio, 1e-300);
-                if (condition > IllConditioned)
-                    _notes.Add(string.Create(CultureInfo.InvariantCulture,
-                        $"The stiffness matrix is ill-conditioned (condition estimate {condition:0.#e+0}): some members are far stiffer than their neighbours. Results are verified by equilibrium below, but check E, I and A for typing errors."));
-                return new AnalysisResult(_model, results, _notes, condition);
+                var report = new NumericalReport(condition, StiffnessContrast.Of(_model), balance);
+                Verify(report);
+                return new AnalysisResult(_model, results, _notes, condition) { Numerics = report };
             }
+        }
+
+        /// <summary>
+        /// The numerical sanity layer: an ill-conditioned matrix is noted with its condition estimate and the stiffest
+        /// contrast; results whose forces are out of balance beyond <see cref="NumericalLimits.EquilibriumResidual"/>
+        /// are not returned at all, since the claims must not be judged against them.
+        /// </summary>
+        private void Verify(NumericalReport report)
+        {
+            var worst = report.WorstCase;
+            string contrast = report.Contrast is { } k && k.Ratio >= NumericalLimits.StiffnessContrast
+                ? $" Member {k.Stiffer} is {NumericalReport.Scientific(k.Ratio)} times stiffer ({k.Measure}) than member {k.Softer}, which meets it at joint {k.Joint}."
+                : "";
+            if (worst is not null && !report.Trusted)
+            {
+                string where = worst.Joint >= worst.Global && worst.AtJoint is not null
+                    ? $"at joint {worst.AtJoint} ({worst.Direction}) the recovered member forces leave {NumericalReport.Scientific(worst.Joint)} of the applied load unbalanced"
+                    : $"the recovered forces of the whole structure leave {NumericalReport.Scientific(worst.Global)} of the applied load unbalanced";
+                throw new StructureException(
+                    $"The independent analysis failed its own equilibrium check: in case {worst.Case}, {where} " +
+                    $"(the limit is {NumericalReport.Scientific(NumericalLimits.EquilibriumResidual)}; condition estimate of the stiffness matrix " +
+                    $"{NumericalReport.Scientific(report.ConditionEstimate)}).{contrast} Its results cannot be trusted, so the claims were not judged against them. " +
+                    "Check E, I and A (and their units) for typing errors.", worst.AtJoint, worst.Direction);
+            }
+            if (report.IllConditioned)
+                _notes.Add(report.Describe());
         }
 
         private void CheckConnectivity()
@@ -175,7 +202,7 @@ public sealed class FrameSolver
             return map;
         }
 
-        private ConstraintSet BuildConstraints(List<(int Dof, string Note)> extra)
+        private ConstraintSet BuildConstraints(List<(int Dof, string Note)> extra, HashSet<int> held)
         {
             // A couple on a joint that cannot carry moment is an error before anything else.
             foreach (var joint in Kinematics.MomentFreeJoints(_model))
@@ -187,9 +214,15 @@ public sealed class FrameSolver
             var cs = Kinematics.Constraints(_model);
             if (_holdTranslations)
                 foreach (int dof in cs.Build().Masters.Where(d => d % 3 != 2))
+                {
                     cs.Add(new Dictionary<int, double> { [dof] = 1 }, 0, ("braced", dof, 0), out _);
+                    held.Add(dof);
+                }
             foreach (var (dof, _) in extra)
+            {
                 cs.Add(new Dictionary<int, double> { [dof] = 1 }, 0, ("added", dof, 0), out _);
+                held.Add(dof);
+            }
             return cs;
         }
 
@@ -388,7 +421,8 @@ public sealed class FrameSolver
             return (joint, DirectionNames[best % 3], others);
         }
 
-        private CaseResult Recover(LoadCase loadCase, Dictionary<string, List<LocalAction>> local, double[] d, double[] fullLoad, ConstraintSet constraints)
+        private (CaseResult Result, CaseEquilibrium Equilibrium) Recover(LoadCase loadCase, Dictionary<string, List<LocalAction>> local, double[] d,
+            ConstraintSet constraints, HashSet<int> held)
         {
             var endForces = new double[_elements.Length][];
             var localDisp = new double[_elements.Length][];
@@ -460,7 +494,121 @@ public sealed class FrameSolver
                         joint.Restraint.HasFlag(Restraint.Rotation) ? -reactionVec[(3 * j) + 2] : 0);
                 }
             }
-            return new CaseResult(loadCase.Id, members, displacements, reactions);
+            var result = new CaseResult(loadCase.Id, members, displacements, reactions);
+            return (result, Balance(loadCase, reactionVec, endForces, reactions, held));
+        }
+
+        /// <summary>
+        /// Joint and global equilibrium of the recovered forces. At every joint direction that no support or hold
+        /// restrains, the member end forces must balance the joint loads; over the whole structure, the loads (taken
+        /// from the submission's load records, not from the fixed-end actions) and the reactions must balance.
+        /// Both are measured as fractions of the applied loads.
+        /// </summary>
+        private CaseEquilibrium Balance(LoadCase loadCase, double[] outOfBalance, double[][] endForces, Dictionary<string, Reaction> reactions, HashSet<int> held)
+        {
+            double size = StructureSize();
+            double x0 = _model.Joints.Average(j => j.X), y0 = _model.Joints.Average(j => j.Y);
+            double loadForce = 0, loadMoment = 0, fx = 0, fy = 0, m = 0;
+            foreach (var load in loadCase.Loads)
+            {
+                switch (load)
+                {
+                    case JointForce p:
+                    {
+                        var j = _model.Joint(p.Joint);
+                        var (gx, gy) = p.Direction.Vector();
+                        fx += p.P * gx; fy += p.P * gy; m += ((j.X - x0) * p.P * gy) - ((j.Y - y0) * p.P * gx);
+                        loadForce += Math.Abs(p.P);
+                        break;
+                    }
+                    case JointCouple c:
+                        m -= c.M;
+                        loadMoment += Math.Abs(c.M);
+                        break;
+                    case MemberLoad ml:
+                    {
+                        var e = _elements[_elementIndex[ml.Member]];
+                        var start = _model.Joint(e.Member.Start);
+                        switch (ml)
+                        {
+                            case PointLoad p:
+                            {
+                                var (gx, gy) = p.Direction.Vector();
+                                double px = start.X + (e.Cos * p.A) - x0, py = start.Y + (e.Sin * p.A) - y0;
+                                fx += p.P * gx; fy += p.P * gy; m += (px * p.P * gy) - (py * p.P * gx);
+                                loadForce += Math.Abs(p.P);
+                                break;
+                            }
+                            case DistributedLoad w:
+                            {
+                                var (gx, gy) = w.Direction.Vector();
+                                double t = w.B - w.A;
+                                double total = (w.WStart + w.WEnd) / 2 * t;
+                                double first = (w.A * total) + (w.WStart * t * t / 2) + ((w.WEnd - w.WStart) * t * t / 3); // ∫ w(s)·s ds
+                                double mx = ((start.X - x0) * total) + (e.Cos * first), my = ((start.Y - y0) * total) + (e.Sin * first);
+                                fx += total * gx; fy += total * gy; m += (mx * gy) - (my * gx);
+                                loadForce += (Math.Abs(w.WStart) + Math.Abs(w.WEnd)) / 2 * t;
+                                break;
+                            }
+                            case MemberCouple c:
+                                m -= c.M;
+                                loadMoment += Math.Abs(c.M);
+                                break;
+                            case LockedEndMoments locked:
+                                // Self-equilibrated: no resultant, but it sets the scale of the case.
+                                loadMoment += Math.Abs(locked.StartMoment) + Math.Abs(locked.EndMoment);
+                                break;
+                        }
+                        break;
+                    }
+                }
+            }
+            foreach (var (id, r) in reactions)
+            {
+                var j = _model.Joint(id);
+                fx += r.Rx; fy += r.Ry; m += ((j.X - x0) * r.Ry) - ((j.Y - y0) * r.Rx) - r.M;
+            }
+            double forceScale = Math.Max(loadForce, loadMoment / size);
+            if (!(forceScale > 0))
+            {
+                // Support movements only: the reactions they cause set the scale.
+                foreach (var r in reactions.Values) forceScale = Math.Max(forceScale, Math.Max(Math.Max(Math.Abs(r.Rx), Math.Abs(r.Ry)), Math.Abs(r.M) / size));
+                foreach (var f in endForces) forceScale = Math.Max(forceScale, Math.Max(Math.Abs(f[2]), Math.Abs(f[5])) / size);
+            }
+            if (!(forceScale > 0)) return new CaseEquilibrium(loadCase.Id, 0, null, null, 0);
+            double momentScale = forceScale * size;
+
+            double worst = 0;
+            int worstDof = -1;
+            for (int j = 0; j < _model.Joints.Count; j++)
+            {
+                var restraint = _model.Joints[j].Restraint;
+                for (int dir = 0; dir < 3; dir++)
+                {
+                    int dof = (3 * j) + dir;
+                    var flag = dir switch { 0 => Restraint.X, 1 => Restraint.Y, _ => Restraint.Rotation };
+                    if (restraint.HasFlag(flag) || held.Contains(dof)) continue;
+                    double r = Math.Abs(outOfBalance[dof]) / (dir == 2 ? momentScale : forceScale);
+                    if (!(r <= worst)) { worst = r; worstDof = dof; }
+                }
+            }
+            // A braced analysis holds the structure against sway with external restraints: its reactions alone do not balance the loads.
+            double global = _holdTranslations ? 0 : Math.Max(Math.Max(Math.Abs(fx), Math.Abs(fy)) / forceScale, Math.Abs(m) / momentScale);
+            if (double.IsNaN(global)) global = double.PositiveInfinity;
+            return new CaseEquilibrium(loadCase.Id, worst, worstDof < 0 ? null : _model.Joints[worstDof / 3].Id,
+                worstDof < 0 ? null : DirectionNames[worstDof % 3], global);
+        }
+
+        private double _size;
+
+        /// <summary>The larger of the joints' bounding-box diagonal and the longest member (m); lever arm of the moment scale.</summary>
+        private double StructureSize()
+        {
+            if (_size > 0) return _size;
+            double w = _model.Joints.Max(j => j.X) - _model.Joints.Min(j => j.X), h = _model.Joints.Max(j => j.Y) - _model.Joints.Min(j => j.Y);
+            _size = Math.Max(Math.Sqrt((w * w) + (h * h)), _elements.Select(e => e.Length).DefaultIfEmpty(1).Max());
+            if (!(_size > 0)) _size = 1;
+            return _size;
         }
 
         /// <summary>

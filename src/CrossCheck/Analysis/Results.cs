@@ -233,5 +233,11 @@ public sealed class AnalysisResult
     /// <summary>Rough conditioning indicator: 1 / smallest scaled pivot of the factorisation.</summary>
     public double ConditionEstimate { get; }
 
+    /// <summary>
+    /// The numerical sanity checks the results passed: condition estimate, the largest stiffness contrast between
+    /// neighbouring members, and every case's equilibrium residual. An analysis that fails them is never returned.
+    /// </summary>
+    public NumericalReport Numerics { get; init; } = new(1, null, []);
+
     public CaseResult Case(string id) => Cases.First(c => c.Case == id);
 }

@@ -13,13 +13,11 @@ namespace CrossCheck.Import;
 /// </summary>
 public static partial class CsvTableReader
 {
-    /// <summary>Largest CSV file accepted (bytes); larger files are refused with a clear message.</summary>
-    public static long MaxFileBytes { get; set; } = 20L * 1024 * 1024;
-
     /// <summary>Reads one file that holds several <c>[table]</c> sections.</summary>
-    public static List<RawTable> ReadSectioned(string path, string displayName, List<InputProblem> problems)
+    public static List<RawTable> ReadSectioned(string path, string displayName, List<InputProblem> problems, InputLimits? limits = null)
     {
-        var records = ReadRecords(path, displayName, problems, out bool decimalComma);
+        var records = ReadRecords(path, displayName, problems, limits ?? InputLimits.Default, out bool decimalComma);
+        if (records is null) return [];
         var tables = new List<RawTable>();
         string? name = null;
         RawRow? header = null;
@@ -51,9 +49,10 @@ public static partial class CsvTableReader
     }
 
     /// <summary>Reads one file that holds a single table (the folder container); the table name is the file name.</summary>
-    public static RawTable? ReadSingle(string path, string displayName, string tableName, List<InputProblem> problems)
+    public static RawTable? ReadSingle(string path, string displayName, string tableName, List<InputProblem> problems, InputLimits? limits = null)
     {
-        var records = ReadRecords(path, displayName, problems, out bool decimalComma);
+        var records = ReadRecords(path, displayName, problems, limits ?? InputLimits.Default, out bool decimalComma);
+        if (records is null) return null;
         if (records.Count == 0)
         {
             problems.Add(new InputProblem(new SourceRef(displayName, tableName), Messages.EmptyTable(tableName)));
@@ -70,7 +69,8 @@ public static partial class CsvTableReader
         return r.Cells.Skip(1).All(c => c.Length == 0) ? m.Groups["name"].Value.Trim() : null;
     }
 
-    private static List<RawRow> ReadRecords(string path, string displayName, List<InputProblem> problems, out bool decimalComma)
+    /// <summary>The file's rows (blank and comment lines dropped); null when the file itself could not be read (already reported).</summary>
+    private static List<RawRow>? ReadRecords(string path, string displayName, List<InputProblem> problems, InputLimits limits, out bool decimalComma)
     {
         decimalComma = false;
         var where = new SourceRef(displayName);
@@ -78,22 +78,27 @@ public static partial class CsvTableReader
         try
         {
             var info = new FileInfo(path);
-            if (info.Length > MaxFileBytes)
+            if (info.Length > limits.MaxFileBytes)
             {
-                problems.Add(new InputProblem(where, $"the file is {info.Length / (1024 * 1024)} MB; CSV files larger than {MaxFileBytes / (1024 * 1024)} MB are not read"));
-                return [];
+                problems.Add(new InputProblem(where, Messages.CsvTooLarge(info.Length, limits.MaxFileBytes)));
+                return null;
             }
             bytes = File.ReadAllBytes(path);
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
             problems.Add(new InputProblem(where, Messages.NotACsv(ex.Message)));
-            return [];
+            return null;
+        }
+        if (bytes.Length == 0)
+        {
+            problems.Add(new InputProblem(where, Messages.EmptyFile));
+            return null;
         }
         if (LooksBinary(bytes))
         {
             problems.Add(new InputProblem(where, Messages.NotACsv("it contains binary data, not text")));
-            return [];
+            return null;
         }
         string text;
         try
@@ -104,9 +109,11 @@ public static partial class CsvTableReader
         {
             // Not UTF-8: spreadsheets on older systems save Windows-1252; Latin-1 keeps every byte readable.
             text = Encoding.Latin1.GetString(bytes);
-            problems.Add(new InputProblem(where, "the file is not UTF-8; it was read as Latin-1 (save as 'CSV UTF-8' to be sure of special characters)", ProblemSeverity.Warning));
+            problems.Add(new InputProblem(where, Messages.NotUtf8, ProblemSeverity.Warning));
         }
         if (text.Length > 0 && text[0] == '\uFEFF') text = text[1..];
+        text = StripByteOrderMarks(text, displayName, problems);
+        if (!LinesFit(text, displayName, limits, problems)) return null;
         char separator = DetectSeparator(text);
         decimalComma = separator == ';';
         var records = new List<RawRow>();
@@ -118,11 +125,11 @@ public static partial class CsvTableReader
                 HasHeader = false,
                 TrackLineNumbers = true,
                 SkipEmptyLines = true,
-                MaxRecordSize = 1024 * 1024,
+                MaxRecordSize = Math.Max(1024 * 1024, 2 * limits.MaxLineChars),
                 MissingField = CsvMissingFieldHandling.ReturnEmpty,
                 MalformedData = CsvMalformedDataHandling.Recover,
                 OnMalformedRecord = m => problems.Add(new InputProblem(new SourceRef(displayName, null, (int)m.LineNumber),
-                    $"badly quoted CSV ({m.Reason}); the row was read as best it could be, check it", ProblemSeverity.Warning)),
+                    Messages.BadQuoting(m.Reason.ToString()), ProblemSeverity.Warning)),
             });
             while (reader.Read())
             {
@@ -131,6 +138,12 @@ public static partial class CsvTableReader
                 var row = new RawRow((int)reader.LineNumber, cells);
                 if (row.IsBlank) continue;
                 if (cells.Length > 0 && cells[0].StartsWith('#')) continue;
+                int wide = Array.FindIndex(cells, c => c.Length > limits.MaxCellChars);
+                if (wide >= 0)
+                {
+                    problems.Add(new InputProblem(new SourceRef(displayName, null, row.Line), Messages.CellTooLong(wide + 1, cells[wide].Length, limits.MaxCellChars)));
+                    continue;
+                }
                 records.Add(row);
             }
         }
@@ -139,6 +152,43 @@ public static partial class CsvTableReader
             problems.Add(new InputProblem(where, Messages.NotACsv(ex.Message)));
         }
         return records;
+    }
+
+    /// <summary>
+    /// Removes byte-order marks found after the start of the text (two files joined end to end leave one at the start of
+    /// the second): invisible, they would hide a <c>[table]</c> line or a column name. Each line that had one is named in a warning.
+    /// </summary>
+    private static string StripByteOrderMarks(string text, string displayName, List<InputProblem> problems)
+    {
+        if (!text.Contains('\uFEFF', StringComparison.Ordinal)) return text;
+        int line = 1;
+        var lines = new List<int>();
+        foreach (char c in text)
+        {
+            if (c == '\n') line++;
+            else if (c == '\uFEFF' && (lines.Count == 0 || lines[^1] != line)) lines.Add(line);
+        }
+        foreach (int l in lines.Take(5))
+            problems.Add(new InputProblem(new SourceRef(displayName, null, l), Messages.StrayByteOrderMark, ProblemSeverity.Warning));
+        return text.Replace("\uFEFF", "", StringComparison.Ordinal);
+    }
+
+    /// <summary>False (with the problem reported) when a line is longer than <see cref="InputLimits.MaxLineChars"/>.</summary>
+    private static bool LinesFit(string text, string displayName, InputLimits limits, List<InputProblem> problems)
+    {
+        int line = 1, start = 0;
+        for (int i = 0; i <= text.Length; i++)
+        {
+            if (i < text.Length && text[i] != '\n') continue;
+            if (i - start > limits.MaxLineChars)
+            {
+                problems.Add(new InputProblem(new SourceRef(displayName, null, line), Messages.LineTooLong(i - start, limits.MaxLineChars)));
+                return false;
+            }
+            line++;
+            start = i + 1;
+        }
+        return true;
     }
 
     private static bool LooksBinary(byte[] bytes)

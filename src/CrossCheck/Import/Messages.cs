@@ -73,6 +73,38 @@ internal static class Messages
         F($"{spans} span(s) need {spans + 1} supports listed left to right, but the supports table has {supports}");
     public static string UnknownInfoKey(string key) => F($"info key '{key}' is not used by the checker (kept for the memo)");
     public static string NotACsv(string reason) => F($"the file could not be read as CSV: {reason}");
+    public static string EmptyFile => "the file is empty (0 bytes)";
+    public static string NotUtf8 => "the file is not UTF-8; it was read as Latin-1 (save as 'CSV UTF-8' to be sure of special characters)";
+    public static string BadQuoting(string reason) => F($"badly quoted CSV ({reason}); the row was read as best it could be, check it");
+    public static string StrayByteOrderMark =>
+        "this line holds an invisible byte-order mark (were two files joined?); it was removed before the line was read";
+    public static string CsvTooLarge(long bytes, long max) =>
+        F($"the file is {Megabytes(bytes)} MB; CSV files larger than {Megabytes(max)} MB are not read (raise the limit with --max-file-mb)");
+    public static string LineTooLong(int chars, int max) =>
+        F($"this line is {chars} characters long; lines longer than {max} characters are not read (a table row is a few hundred; is the file a table?)");
+    public static string CellTooLong(int column, int chars, int max) =>
+        F($"cell {column} of this row holds {chars} characters; cells longer than {max} are not read, so the row was left out");
+    public static string TooManyRows(string table, int rows, int max) =>
+        F($"table '{table}' has {rows} rows; CrossCheck reads at most {max} rows per table (raise the limit with --max-rows)");
+    public static string TooManyMembers(int count, int max) =>
+        F($"the submission has {count} members; CrossCheck analyses at most {max} (raise the limit with --max-members)");
+    public static string TooManyJoints(int count, int max) =>
+        F($"the submission has {count} joints; CrossCheck analyses at most {max} (raise the limit with --max-members, which allows twice as many joints as members)");
+    public static string TooManyCases(int count, int max) =>
+        F($"the loads table has {count} load cases; CrossCheck reviews at most {max} in one submission (split the submission)");
+    public static string TooLong(string column, string text, double metres, double max) =>
+        F($"'{column}' = \"{text}\" is {metres:0.###e+0} m; CrossCheck reads lengths and coordinates up to {max:0.###e+0} m (a unit slip, such as millimetres read as metres?)");
+    public static string MemberTooLong(string member, double metres, double max) =>
+        F($"member '{member}' is {metres:0.###e+0} m long; CrossCheck analyses members up to {max:0.###e+0} m long (a unit slip, such as millimetres read as metres?)");
+    public static string InfoKeyTwice(string key, string first, string firstAt, string value) =>
+        F($"info key '{key}' is given twice with different values: \"{first}\" (at {firstAt}) and \"{value}\"; give it once");
+    public static string NotAForceUnit(string value) => F($"'{value}' is not a force unit");
+    public static string NotALengthUnit(string value) => F($"'{value}' is not a length unit");
+    public static string NoCsvInFolder =>
+        "the folder holds no CSV tables (expected joints.csv, members.csv, loads.csv, end-moments.csv, ...)";
+    public static string SeparateParts(int parts, IEnumerable<string> examples) =>
+        F($"the members form {parts} separate structures that share no joint ({string.Join("; ", examples)}); each is analysed with its own supports. Check the member joints if the structure should be one");
+    private static string Megabytes(long bytes) => (bytes / (1024.0 * 1024)).ToString(bytes < 10 * 1024 * 1024 ? "0.#" : "0", CultureInfo.InvariantCulture);
     public static string NoSections => "the file has no tables: a single-file submission introduces each table with a line such as [members]";
     public static string EmptyTable(string name) => F($"table '{name}' has no header row");
     public static string NotFound(string path) => F($"'{path}' does not exist");
@@ -93,6 +125,14 @@ internal static class Messages
         F($"the PDF has {pages} pages; CrossCheck reads at most {max} (raise the limit with --max-pages, or extract the calculation's pages)");
     public static string PdfTooManyLetters(int letters, int max) =>
         F($"the page holds {letters} letters, more than the {max} a page of tables can have; it looks like a drawing or a damaged page");
+    public static string PdfStreamTooLarge(long max) =>
+        F($"a compressed stream in the PDF expands to more than {max / (1024 * 1024)} MB, far more than a calculation needs: the file looks like a compression bomb and was not read");
+    public static string PdfDecodedTooMuch(long max) =>
+        F($"the PDF's compressed streams expand to more than {max / (1024 * 1024)} MB in all; the file was not read (a compression bomb, or a document of drawings rather than tables?)");
+    public static string PdfNestedTooDeep(int max) =>
+        F($"the PDF nests arrays or dictionaries more than {max} deep; no calculation needs that (a hostile or damaged file?), so it was not read");
+    public static string PdfPageTooCostly(long letters, long operations, int maxLetters, long maxOperations) =>
+        F($"the page would produce {(letters > 2L * maxLetters ? $"about {letters} letters (more than the {maxLetters} a page of tables can have)" : $"more than {operations} drawing operations (the limit is {maxOperations})")}, counting the forms it repeats; it looks like a hostile or damaged page and the file was not read");
     public static string PdfTimeBudget(double seconds, int page, int pages) =>
         F($"reading the PDF took longer than the time budget of {seconds:0.#} s (stopped at page {page} of {pages}); raise it with --time-limit, or extract the calculation's pages");
     public static string PdfScanned(int pages) =>

@@ -44,20 +44,24 @@ public sealed class SubmissionBuilder
     private readonly List<InputProblem> _problems = [];
     private readonly string _source;
     private readonly Dictionary<string, RawTable> _tables;
+    private readonly InputLimits _limits;
 
-    private SubmissionBuilder(string source, Dictionary<string, RawTable> tables)
+    private SubmissionBuilder(string source, Dictionary<string, RawTable> tables, InputLimits limits)
     {
         _source = source;
         _tables = tables;
+        _limits = limits;
     }
 
     /// <summary>Builds a submission from raw tables keyed by their format name (see <see cref="TableSchema"/>).</summary>
     /// <param name="source">Path of the submission as given, for the memo.</param>
     /// <param name="tables">Tables found in the input.</param>
     /// <param name="earlier">Problems already found while reading the files.</param>
-    public static ImportResult Build(string source, IEnumerable<RawTable> tables, IEnumerable<InputProblem>? earlier = null)
+    /// <param name="limits">Bounds on rows, members, joints, load cases and magnitudes (defaults when null).</param>
+    public static ImportResult Build(string source, IEnumerable<RawTable> tables, IEnumerable<InputProblem>? earlier = null, InputLimits? limits = null)
     {
         ArgumentNullException.ThrowIfNull(tables);
+        limits ??= InputLimits.Default;
         var problems = new List<InputProblem>(earlier ?? []);
         var byName = new Dictionary<string, RawTable>(StringComparer.Ordinal);
         foreach (var t in tables)
@@ -67,13 +71,66 @@ public sealed class SubmissionBuilder
             if (spec is null) { problems.Add(new InputProblem(where, Messages.UnknownTable(t.Name), ProblemSeverity.Warning)); continue; }
             if (!byName.TryAdd(spec.Name, t)) problems.Add(new InputProblem(where, Messages.DuplicateTable(spec.Name)));
         }
-        var b = new SubmissionBuilder(source, byName);
+        // Over a limit, nothing else is read: the other messages would only follow from the table left out.
+        if (OverLimits(byName, limits) is { } over) return new ImportResult(null, [.. problems, over]);
+        // Nothing could be read at all: the reader said why; "no joints table, no loads table, ..." would add nothing.
+        if (byName.Count == 0 && problems.Any(p => p.IsError)) return new ImportResult(null, problems);
+        var b = new SubmissionBuilder(source, byName, limits);
         b._problems.AddRange(problems);
         var submission = b.Run();
         return new ImportResult(b._problems.Any(p => p.IsError) ? null : submission, b._problems);
     }
 
+    /// <summary>The first limit of <see cref="InputLimits"/> the tables go over (rows, members, joints, load cases), at the table's header.</summary>
+    private static InputProblem? OverLimits(Dictionary<string, RawTable> tables, InputLimits limits)
+    {
+        static SourceRef At(RawTable t) => new(t.File, t.Name, t.Header.Line, null, t.Header.Page);
+        static int Rows(RawTable t) => t.Rows.Count(r => !r.IsBlank);
+        foreach (var t in tables.Values)
+            if (Rows(t) > limits.MaxRows) return new InputProblem(At(t), Messages.TooManyRows(t.Name, Rows(t), limits.MaxRows));
+        foreach (var name in new[] { "members", "spans" })
+            if (tables.TryGetValue(name, out var m) && Rows(m) > limits.MaxMembers) return new InputProblem(At(m), Messages.TooManyMembers(Rows(m), limits.MaxMembers));
+        foreach (var name in new[] { "joints", "supports" })
+            if (tables.TryGetValue(name, out var j) && Rows(j) > limits.MaxJoints) return new InputProblem(At(j), Messages.TooManyJoints(Rows(j), limits.MaxJoints));
+        if (tables.TryGetValue("loads", out var loads))
+        {
+            int caseColumn = -1;
+            for (int i = 0; i < loads.Header.Cells.Count; i++)
+                if (TableSchema.ResolveColumn(TableSchema.Loads, TableSchema.SplitHeader(loads.Header.Cells[i]).Name)?.Name == "case") { caseColumn = i; break; }
+            int cases = caseColumn < 0 ? 1 : loads.Rows.Where(r => !r.IsBlank).Select(r => r.Cell(caseColumn).Trim()).Distinct(StringComparer.Ordinal).Count();
+            if (cases > limits.MaxLoadCases) return new InputProblem(At(loads), Messages.TooManyCases(cases, limits.MaxLoadCases));
+        }
+        return null;
+    }
+
     private void Error(SourceRef where, string message) => _problems.Add(new InputProblem(where, message));
+
+    /// <summary>Reports a missing table, unless its file is there but could not be read (already reported).</summary>
+    private void MissingTable(string name, string? hint = null)
+    {
+        if (!_problems.Any(p => p.IsError && p.Where.Row is null && string.Equals(p.Where.File, name + ".csv", StringComparison.OrdinalIgnoreCase)))
+            Error(Whole, Messages.MissingTable(name, hint));
+    }
+
+    // Ids of rows left out because of an error already reported: a later reference to one of them is not reported again
+    // (a joint whose x is "six" must not also be "not in the joints table", nor its case "without loads").
+    private readonly HashSet<string> _rejectedJoints = new(StringComparer.Ordinal);
+    private readonly HashSet<string> _rejectedMembers = new(StringComparer.Ordinal);
+    private readonly HashSet<string> _rejectedCases = new(StringComparer.Ordinal);
+    private readonly HashSet<string> _jointsOfRejectedMembers = new(StringComparer.Ordinal);
+
+    /// <summary>
+    /// The ids (from <paramref name="idColumn"/>) of the rows of a table that carry an error, or of every row when the
+    /// error is in the table's header (a missing column, a unit that cannot be read).
+    /// </summary>
+    private List<(string Id, RawRow Row)> RowsWithErrors(TableView v, string idColumn, string fallback = "")
+    {
+        var lines = _problems.Where(p => p.IsError && p.Where.Table == v.Spec.Name && p.Where.File == v.Raw.File && p.Where.Row is not null)
+            .Select(p => (p.Where.Row!.Value, p.Where.Page)).ToHashSet();
+        bool header = lines.Contains((v.Raw.Header.Line, v.Raw.Header.Page));
+        return v.Rows.Where(r => header || lines.Contains((r.Line, r.Page))).Select(r => (Id: v.Text(r, idColumn) is { Length: > 0 } id ? id : fallback, Row: r))
+            .Where(x => x.Id.Length > 0).ToList();
+    }
     private void Warn(SourceRef where, string message) => _problems.Add(new InputProblem(where, message, ProblemSeverity.Warning));
 
     private SourceRef Whole => new(Path.GetFileName(_source.TrimEnd('/', '\\')));
@@ -113,7 +170,7 @@ public sealed class SubmissionBuilder
         var sign = SignConvention.Clockwise;
         if (_tables.TryGetValue("info", out var t))
         {
-            var view = new TableView(t, TableSchema.Info, new UnitDefaults(null, null), _problems);
+            var view = new TableView(t, TableSchema.Info, new UnitDefaults(null, null), _problems, limits: _limits);
             foreach (var row in view.Rows)
             {
                 string printedKey = view.Text(row, "key");
@@ -121,16 +178,23 @@ public sealed class SubmissionBuilder
                 string value = view.Text(row, "value");
                 if (key.Length == 0) continue;
                 var where = view.CellRef(row, "value");
-                raw.TryAdd(key, (value, where));
+                if (raw.TryGetValue(key, out var first))
+                {
+                    // A setting given twice with different values contradicts itself; a free-text key keeps its first value.
+                    if (TableSchema.InfoKeys.ContainsKey(key) && !string.Equals(TableSchema.Normalize(first.Item1), TableSchema.Normalize(value), StringComparison.Ordinal))
+                        Error(where, Messages.InfoKeyTwice(printedKey, first.Item1, first.Item2.RowCompact, value));
+                    continue;
+                }
+                raw.Add(key, (value, where));
                 switch (key)
                 {
                     case "force unit":
                         force = UnitReader.TryRead(value, QuantityKind.Force);
-                        if (force is null) Error(where, $"'{value}' is not a force unit");
+                        if (force is null) Error(where, Messages.NotAForceUnit(value));
                         break;
                     case "length unit":
                         length = UnitReader.TryRead(value, QuantityKind.Length);
-                        if (length is null) Error(where, $"'{value}' is not a length unit");
+                        if (length is null) Error(where, Messages.NotALengthUnit(value));
                         break;
                     case "sign convention":
                         if (ParseSign(value) is SignConvention sc) sign = sc;
@@ -187,8 +251,8 @@ public sealed class SubmissionBuilder
         if (frame && beam) Error(Whole, Messages.BothGeometries);
         if (beam && !frame) return ReadBeam(defaults, hasE);
         if (!frame) { Error(Whole, Messages.NoGeometry); _geometryIncomplete = true; return ([], []); }
-        if (!_tables.ContainsKey("joints")) { Error(Whole, Messages.MissingTable("joints")); _geometryIncomplete = true; }
-        if (!_tables.ContainsKey("members")) { Error(Whole, Messages.MissingTable("members")); _geometryIncomplete = true; }
+        if (!_tables.ContainsKey("joints")) { MissingTable("joints"); _geometryIncomplete = true; }
+        if (!_tables.ContainsKey("members")) { MissingTable("members"); _geometryIncomplete = true; }
         var joints = _tables.ContainsKey("joints") ? ReadJoints(defaults) : [];
         var members = _tables.ContainsKey("members") ? ReadMembers(defaults, hasE, joints) : [];
         return (joints, members);
@@ -196,15 +260,15 @@ public sealed class SubmissionBuilder
 
     private List<Joint> ReadJoints(UnitDefaults defaults)
     {
-        var jv = new TableView(_tables["joints"], TableSchema.Joints, defaults, _problems);
+        var jv = new TableView(_tables["joints"], TableSchema.Joints, defaults, _problems, limits: _limits);
         Remember(jv, "x", QuantityKind.Length);
         var joints = new List<Joint>();
         var firstSeen = new Dictionary<string, SourceRef>(StringComparer.Ordinal);
         foreach (var row in jv.Rows)
         {
             string? id = jv.Id(row, "joint");
-            double? x = jv.Number(row, "x", required: true);
-            double? y = jv.Number(row, "y", required: true);
+            double? x = jv.Length(row, "x", required: true);
+            double? y = jv.Length(row, "y", required: true);
             var restraint = ParseRestraint(jv, row, "restraint", Restraint.Free);
             double sx = jv.Number(row, "settle x") ?? 0, sy = jv.Number(row, "settle y") ?? 0, sr = jv.Number(row, "settle rotation") ?? 0;
             if (id is null || x is null || y is null) continue;
@@ -212,12 +276,13 @@ public sealed class SubmissionBuilder
             CheckMovement(jv, row, restraint, id, sx, sy, sr, "settle x");
             joints.Add(new Joint(id, x.Value, y.Value, restraint, new SupportMovement(sx, sy, sr), jv.RowRef(row)));
         }
+        foreach (var (id, _) in RowsWithErrors(jv, "joint")) _rejectedJoints.Add(id);
         return joints;
     }
 
     private List<Member> ReadMembers(UnitDefaults defaults, bool hasE, List<Joint> joints)
     {
-        var mv = new TableView(_tables["members"], TableSchema.Members, defaults, _problems, relativeStiffness: !hasE);
+        var mv = new TableView(_tables["members"], TableSchema.Members, defaults, _problems, relativeStiffness: !hasE, limits: _limits);
         var members = new List<Member>();
         var memberSeen = new Dictionary<string, SourceRef>(StringComparer.Ordinal);
         var jointIds = joints.Select(j => j.Id).ToHashSet(StringComparer.Ordinal);
@@ -232,8 +297,9 @@ public sealed class SubmissionBuilder
             if (!memberSeen.TryAdd(id, mv.RowRef(row))) { Error(mv.CellRef(row, "member"), Messages.DuplicateId("member", id, memberSeen[id].Compact)); continue; }
             // Without a joints table there is nothing to check the joint ids against (already reported).
             bool ok = !_geometryIncomplete;
-            if (ok && !jointIds.Contains(s)) { Error(mv.CellRef(row, "start"), Messages.UnknownJoint(s)); ok = false; }
-            if (!_geometryIncomplete && !jointIds.Contains(e)) { Error(mv.CellRef(row, "end"), Messages.UnknownJoint(e)); ok = false; }
+            if (ok && !jointIds.Contains(s)) { if (!_rejectedJoints.Contains(s)) Error(mv.CellRef(row, "start"), Messages.UnknownJoint(s)); ok = false; }
+            if (!_geometryIncomplete && !jointIds.Contains(e)) { if (!_rejectedJoints.Contains(e)) Error(mv.CellRef(row, "end"), Messages.UnknownJoint(e)); ok = false; }
+            if (!ok) { _rejectedMembers.Add(id); _jointsOfRejectedMembers.Add(s); _jointsOfRejectedMembers.Add(e); }
             if (s == e) { Error(mv.CellRef(row, "end"), Messages.SameJoint(id)); ok = false; }
             else if (ok)
             {
@@ -242,20 +308,27 @@ public sealed class SubmissionBuilder
                 double len = Math.Sqrt(((b.X - a.X) * (b.X - a.X)) + ((b.Y - a.Y) * (b.Y - a.Y)));
                 double scale = Math.Max(1, Math.Max(Math.Abs(a.X) + Math.Abs(a.Y), Math.Abs(b.X) + Math.Abs(b.Y)));
                 if (!(len > 1e-9 * scale)) { Error(mv.RowRef(row), Messages.ZeroLength(id)); ok = false; }
+                else if (len > _limits.MaxLength) { Error(mv.RowRef(row), Messages.MemberTooLong(id, len, _limits.MaxLength)); ok = false; }
             }
             if (!ok || E is null || I is null) continue;
             members.Add(new Member(id, s, e, E.Value, I.Value, A, hinge, mv.RowRef(row)));
+        }
+        foreach (var (id, row) in RowsWithErrors(mv, "member"))
+        {
+            _rejectedMembers.Add(id);
+            _jointsOfRejectedMembers.Add(mv.Text(row, "start"));
+            _jointsOfRejectedMembers.Add(mv.Text(row, "end"));
         }
         return members;
     }
 
     private (List<Joint> Joints, List<Member> Members) ReadBeam(UnitDefaults defaults, bool hasE)
     {
-        if (!_tables.ContainsKey("supports")) Error(Whole, Messages.MissingTable("supports", "a continuous beam given by spans needs its supports listed left to right"));
-        if (!_tables.ContainsKey("spans")) Error(Whole, Messages.MissingTable("spans"));
+        if (!_tables.ContainsKey("supports")) MissingTable("supports", "a continuous beam given by spans needs its supports listed left to right");
+        if (!_tables.ContainsKey("spans")) MissingTable("spans");
         if (!_tables.ContainsKey("supports") || !_tables.ContainsKey("spans")) { _geometryIncomplete = true; return ([], []); }
-        var sv = new TableView(_tables["supports"], TableSchema.Supports, defaults, _problems);
-        var pv = new TableView(_tables["spans"], TableSchema.Spans, defaults, _problems, relativeStiffness: !hasE);
+        var sv = new TableView(_tables["supports"], TableSchema.Supports, defaults, _problems, limits: _limits);
+        var pv = new TableView(_tables["spans"], TableSchema.Spans, defaults, _problems, relativeStiffness: !hasE, limits: _limits);
         Remember(pv, "length", QuantityKind.Length);
         var supports = new List<(string Id, Restraint R, double Sy, double Sr, RawRow Row)>();
         var seen = new Dictionary<string, SourceRef>(StringComparer.Ordinal);
@@ -274,13 +347,14 @@ public sealed class SubmissionBuilder
         foreach (var row in pv.Rows)
         {
             string? id = pv.Id(row, "span");
-            double? len = pv.Number(row, "length", required: true);
+            double? len = pv.Length(row, "length", required: true);
             if (len is <= 0) Error(pv.CellRef(row, "length"), Messages.NotPositive("length", pv.Text(row, "length")));
             var (E, I, A) = Section(pv, row, hasE);
             var h = ParseHinge(pv, row);
-            if (id is null || len is null) continue;
+            if (id is null) continue;
             if (!spanSeen.TryAdd(id, pv.RowRef(row))) { Error(pv.CellRef(row, "span"), Messages.DuplicateId("span", id, spanSeen[id].Compact)); continue; }
-            spans.Add((id, len.Value, E, I, A, h, row));
+            // A span whose length could not be read keeps its place, so that the supports still line up (its error is reported).
+            spans.Add((id, len ?? double.NaN, E, I, A, h, row));
         }
         if (spans.Count > 0 && supports.Count != spans.Count + 1)
         {
@@ -294,13 +368,19 @@ public sealed class SubmissionBuilder
         {
             var s = supports[i];
             joints.Add(new Joint(s.Id, x, 0, s.R, new SupportMovement(0, s.Sy, s.Sr), sv.RowRef(s.Row)));
-            if (i < spans.Count) x += spans[i].L;
+            if (i < spans.Count && spans[i].L > 0) x += spans[i].L;
         }
         var members = new List<Member>();
         for (int i = 0; i < spans.Count; i++)
         {
             var p = spans[i];
-            if (p.E is null || p.I is null || !(p.L > 0)) continue;
+            if (p.E is null || p.I is null || !(p.L > 0))
+            {
+                _rejectedMembers.Add(p.Id);
+                _jointsOfRejectedMembers.Add(supports[i].Id);
+                _jointsOfRejectedMembers.Add(supports[i + 1].Id);
+                continue;
+            }
             members.Add(new Member(p.Id, supports[i].Id, supports[i + 1].Id, p.E.Value, p.I.Value, p.A, p.H, pv.RowRef(p.Row)));
         }
         return (joints, members);
@@ -354,8 +434,11 @@ public sealed class SubmissionBuilder
     private void ValidateModel(StructureModel model, bool hasE, AxialBehaviour axial)
     {
         var touched = model.Members.SelectMany(m => new[] { m.Start, m.End }).ToHashSet(StringComparer.Ordinal);
-        foreach (var j in model.Joints.Where(j => !touched.Contains(j.Id)))
+        foreach (var j in model.Joints.Where(j => !_geometryIncomplete && !touched.Contains(j.Id) && !_jointsOfRejectedMembers.Contains(j.Id)))
             Error(j.Source, Messages.NoJointsConnected(j.Id));
+        var parts = Parts(model);
+        if (parts.Count > 1)
+            Warn(Whole, Messages.SeparateParts(parts.Count, parts.Take(4).Select(p => p.Count <= 4 ? $"joints {string.Join(", ", p)}" : $"joints {string.Join(", ", p.Take(3))} and {p.Count - 3} more")));
         if (!hasE)
         {
             foreach (var j in model.Joints.Where(j => !j.Movement.IsZero))
@@ -368,12 +451,30 @@ public sealed class SubmissionBuilder
         }
     }
 
+    /// <summary>The joints of each separate structure the members form (joints without members left out), in submission order.</summary>
+    private static List<List<string>> Parts(StructureModel model)
+    {
+        var parent = new Dictionary<string, string>(StringComparer.Ordinal);
+        string Root(string j)
+        {
+            while (parent[j] != j) j = parent[j] = parent[parent[j]];
+            return j;
+        }
+        foreach (var m in model.Members) { parent.TryAdd(m.Start, m.Start); parent.TryAdd(m.End, m.End); }
+        foreach (var m in model.Members)
+        {
+            string a = Root(m.Start), b = Root(m.End);
+            if (a != b) parent[b] = a;
+        }
+        return model.Joints.Where(j => parent.ContainsKey(j.Id)).GroupBy(j => Root(j.Id)).Select(g => g.Select(j => j.Id).ToList()).ToList();
+    }
+
     // ---- loads -----------------------------------------------------------------------------------
 
     private List<LoadCase> ReadLoads(UnitDefaults defaults, StructureModel model)
     {
-        if (!_tables.TryGetValue("loads", out var t)) { Error(Whole, Messages.MissingTable("loads")); return []; }
-        var v = new TableView(t, TableSchema.Loads, defaults, _problems);
+        if (!_tables.TryGetValue("loads", out var t)) { MissingTable("loads"); return []; }
+        var v = new TableView(t, TableSchema.Loads, defaults, _problems, limits: _limits);
         Remember(v, "P", QuantityKind.Force);
         var loads = new List<Load>();
         var order = new List<string>();
@@ -391,7 +492,7 @@ public sealed class SubmissionBuilder
             }
             bool isMember = model.TryGetMember(on, out var member);
             bool isJoint = model.TryGetJoint(on, out _);
-            if (_geometryIncomplete && !isMember && !isJoint) continue;
+            if ((_geometryIncomplete || _rejectedMembers.Contains(on) || _rejectedJoints.Contains(on)) && !isMember && !isJoint) { _rejectedCases.Add(c); continue; }
             bool onMember;
             switch (kind)
             {
@@ -478,6 +579,7 @@ public sealed class SubmissionBuilder
             if (!order.Contains(c)) order.Add(c);
         }
         if (!v.Rows.Any()) Error(new SourceRef(t.File, "loads", t.Header.Line, null, t.Header.Page), Messages.NoLoads);
+        foreach (var (id, _) in RowsWithErrors(v, "case", "1")) _rejectedCases.Add(id);
         return order.Select(id => new LoadCase(id, loads.Where(l => l.Case == id).ToList())).ToList();
     }
 
@@ -508,8 +610,8 @@ public sealed class SubmissionBuilder
 
     private Claims ReadClaims(UnitDefaults defaults, StructureModel model, SignConvention sign, List<LoadCase> cases)
     {
-        if (!_tables.TryGetValue("end-moments", out var t)) { Error(Whole, Messages.MissingTable("end-moments", "it holds the moments under review")); return Claims.None; }
-        var v = new TableView(t, TableSchema.EndMoments, defaults, _problems);
+        if (!_tables.TryGetValue("end-moments", out var t)) { MissingTable("end-moments", "it holds the moments under review"); return Claims.None; }
+        var v = new TableView(t, TableSchema.EndMoments, defaults, _problems, limits: _limits);
         Remember(v, "moment", QuantityKind.Moment);
         var caseIds = cases.Select(c => c.Id).ToHashSet(StringComparer.Ordinal);
         bool movements = model.HasSupportMovements;
@@ -522,7 +624,12 @@ public sealed class SubmissionBuilder
             string? at = v.Id(row, "at");
             double? value = v.Number(row, "moment", required: true);
             if (memberId is null || at is null || value is null) continue;
-            if (!caseIds.Contains(c) && !movements) { Error(v.CellRef(row, "case"), Messages.CaseWithoutLoads(c)); continue; }
+            if (!caseIds.Contains(c) && !movements)
+            {
+                // A case whose loads were all left out for errors of their own is not reported again.
+                if (!_rejectedCases.Contains(c) && _tables.ContainsKey("loads")) Error(v.CellRef(row, "case"), Messages.CaseWithoutLoads(c));
+                continue;
+            }
             MemberEnd? end = null;
             if (model.TryGetMember(memberId, out var member))
             {
@@ -544,7 +651,7 @@ public sealed class SubmissionBuilder
         var reactions = new List<ClaimedReaction>();
         if (_tables.TryGetValue("reactions", out var rt))
         {
-            var rv = new TableView(rt, TableSchema.Reactions, defaults, _problems);
+            var rv = new TableView(rt, TableSchema.Reactions, defaults, _problems, limits: _limits);
             foreach (var row in rv.Rows)
             {
                 string c = rv.Id(row, "case", required: false) ?? "1";
@@ -557,7 +664,7 @@ public sealed class SubmissionBuilder
         var displacements = new List<ClaimedDisplacement>();
         if (_tables.TryGetValue("displacements", out var dt))
         {
-            var dv = new TableView(dt, TableSchema.Displacements, defaults, _problems);
+            var dv = new TableView(dt, TableSchema.Displacements, defaults, _problems, limits: _limits);
             Remember(dv, "ux", QuantityKind.Length, "displacement");
             Remember(dv, "uy", QuantityKind.Length, "displacement");
             foreach (var row in dv.Rows)

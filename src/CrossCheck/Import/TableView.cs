@@ -13,12 +13,14 @@ internal sealed class TableView
     private readonly Dictionary<string, UnitChoice?> _units = new(StringComparer.Ordinal);
     private readonly Dictionary<string, string> _headerText = new(StringComparer.Ordinal);
     private readonly List<InputProblem> _problems;
+    private readonly InputLimits _limits;
 
-    public TableView(RawTable raw, TableSpec spec, UnitDefaults defaults, List<InputProblem> problems, bool relativeStiffness = false)
+    public TableView(RawTable raw, TableSpec spec, UnitDefaults defaults, List<InputProblem> problems, bool relativeStiffness = false, InputLimits? limits = null)
     {
         Raw = raw;
         Spec = spec;
         _problems = problems;
+        _limits = limits ?? InputLimits.Default;
         var seen = new HashSet<string>(StringComparer.Ordinal);
         for (int i = 0; i < raw.Header.Cells.Count; i++)
         {
@@ -78,6 +80,21 @@ internal sealed class TableView
     /// <summary>Trimmed cell text; empty when the column is absent.</summary>
     public string Text(RawRow row, string column) => _index.TryGetValue(column, out int i) ? row.Cell(i).Trim() : "";
 
+    /// <summary>
+    /// A length or coordinate cell (see <see cref="Number"/>) that must lie within <see cref="InputLimits.MaxLength"/>;
+    /// null (with the problem reported) when it does not.
+    /// </summary>
+    public double? Length(RawRow row, string column, bool required = false)
+    {
+        double? v = Number(row, column, required);
+        if (v is double x && Math.Abs(x) > _limits.MaxLength)
+        {
+            _problems.Add(new InputProblem(CellRef(row, column), Messages.TooLong(column, Text(row, column), Math.Abs(x), _limits.MaxLength)));
+            return null;
+        }
+        return v;
+    }
+
     /// <summary>An id cell; reports a problem when a required id is empty.</summary>
     public string? Id(RawRow row, string column, bool required = true)
     {
@@ -93,7 +110,8 @@ internal sealed class TableView
         string s = Text(row, column);
         if (s.Length == 0)
         {
-            if (required)
+            // A required column that is missing altogether was reported once, at the header.
+            if (required && (Has(column) || !Spec.Columns.Any(c => c.Required && c.Name == column)))
                 _problems.Add(new InputProblem(CellRef(row, column), Has(column)
                     ? Messages.MissingValue(column, requiredBecause)
                     : Messages.MissingColumnForRow(column, requiredBecause)));
@@ -107,7 +125,7 @@ internal sealed class TableView
         if (!_units.TryGetValue(column, out var unit)) return v; // unit problem already reported at the header
         if (unit is null) return null;
         double si = v * unit.ToSi;
-        if (!double.IsFinite(si) || (si != 0 && Math.Abs(si) < 1e-280))
+        if (!double.IsFinite(si) || Math.Abs(si) > _limits.MaxMagnitude || (v != 0 && Math.Abs(si) < _limits.MinMagnitude))
         {
             _problems.Add(new InputProblem(CellRef(row, column), Messages.OutOfRange(column, s)));
             return null;

@@ -1,3 +1,4 @@
+using CrossCheck.Analysis;
 using System.Globalization;
 using CrossCheck.Memo.Diagrams;
 using CrossCheck.Model;
@@ -54,6 +55,11 @@ public sealed class MemoModel
         Stiffness = s.Model.RelativeStiffness
             ? "No elastic modulus is given: the I values are used as relative stiffnesses, which fixes the moments of load cases but not displacements."
             : "Absolute stiffness from the E and I given.";
+        Verification = review.Analysis?.Numerics is { } n
+            ? $"Every recomputed result was verified by equilibrium before it was used: the largest out-of-balance force or moment at any joint, " +
+              $"and of the structure as a whole, is {NumericalReport.Words(n.WorstResidual)} of the applied loads." +
+              (n.IllConditioned ? $" The stiffness matrix is ill-conditioned (condition estimate {NumericalReport.Scientific(n.ConditionEstimate)}; see the notes in section 6)." : "")
+            : "";
         HasMovements = s.Model.HasSupportMovements;
         HasHinges = s.Model.Members.Any(m => m.Hinge != Hinge.None);
 
@@ -107,6 +113,9 @@ public sealed class MemoModel
     public string MinorTolerancePercent { get; }
     public string Axial { get; }
     public string Stiffness { get; }
+
+    /// <summary>The equilibrium check every result passed (empty when the review carries no analysis).</summary>
+    public string Verification { get; }
     public bool HasMovements { get; }
     public bool HasHinges { get; }
     public IReadOnlyList<MemoCase> Cases { get; }

@@ -21,8 +21,10 @@ public sealed class MemoTemplateException : Exception
 
 /// <summary>
 /// Renders memos from Scriban templates: the shipped ones (embedded from <c>templates/</c>) or a firm's own.
-/// Strict variables (a typo is an error, not a blank), no includes, no file access, only public properties
-/// of the model are visible.
+/// Strict variables (a typo is an error, not a blank), no includes, no file access, and only the public properties of
+/// CrossCheck's own report types are visible: a template cannot call a method or walk from a value into .NET's types
+/// (reflection, files, processes). Loops, recursion, output size and time are bounded, so a template cannot hang a
+/// batch or fill the disk.
 /// </summary>
 public static class MemoRenderer
 {
@@ -78,16 +80,20 @@ public static class MemoRenderer
         ArgumentNullException.ThrowIfNull(model);
         ArgumentNullException.ThrowIfNull(templateText);
         var template = Parsed(templateText, templateName);
+        using var deadline = new CancellationTokenSource(RenderTimeLimit);
         var context = new TemplateContext
         {
             StrictVariables = true,
             EnableRelaxedMemberAccess = false,
             MemberRenamer = m => m.Name,
-            MemberFilter = m => m is PropertyInfo,
+            MemberFilter = Visible,
             TemplateLoader = null,
             LoopLimit = 500_000,
             RecursiveLimit = 50,
             RegexTimeOut = TimeSpan.FromSeconds(2),
+            OutputLimit = MaxOutputChars,
+            OnOutputLimit = ScriptLimitBehavior.Throw,
+            CancellationToken = deadline.Token,
         };
         var globals = new ScriptObject { ["model"] = model };
         context.PushGlobal(globals);
@@ -99,5 +105,19 @@ public static class MemoRenderer
         {
             throw new MemoTemplateException($"{templateName}: {ex.Message}", ex);
         }
+        catch (OperationCanceledException ex)
+        {
+            throw new MemoTemplateException($"{templateName}: rendering took longer than {RenderTimeLimit.TotalSeconds:0} s and was stopped", ex);
+        }
     }
+
+    /// <summary>Longest a memo may take to render (a shipped memo takes milliseconds).</summary>
+    public static TimeSpan RenderTimeLimit { get; } = TimeSpan.FromSeconds(60);
+
+    /// <summary>Largest memo a template may write, in characters (a shipped memo is a few hundred kilobytes).</summary>
+    public const int MaxOutputChars = 64 * 1024 * 1024;
+
+    /// <summary>Only properties (no indexers) declared by CrossCheck's own types: the report models and what they hold.</summary>
+    private static bool Visible(MemberInfo member) =>
+        member is PropertyInfo p && p.GetIndexParameters().Length == 0 && p.DeclaringType?.Assembly == typeof(MemoRenderer).Assembly;
 }

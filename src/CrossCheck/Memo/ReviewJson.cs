@@ -55,6 +55,11 @@ public static class ReviewJson
                 .Num("absolute", review.Options.AbsoluteTolerance).Num("relative", review.Options.RelativeTolerance).Num("minorRelative", review.Options.MinorRelativeTolerance)
             .EndObj()
             .Str("verdict", review.Verdict.Json())
+            .Maybe("analysis", review.Analysis?.Numerics, (o, n) => o
+                .Bool("verified", n.Trusted).Num("equilibriumResidual", n.WorstResidual).Num("conditionEstimate", n.ConditionEstimate)
+                .Bool("illConditioned", n.IllConditioned)
+                .Maybe("stiffnessContrast", n.Contrast, (o, k) => o
+                    .Num("ratio", k.Ratio).Str("stiffer", k.Stiffer).Str("softer", k.Softer).Str("joint", k.Joint).Str("measure", k.Measure)))
             .Each("cases", review.Cases, (o, c) => o
                 .Str("case", c.Case)
                 .Num("peakMoment", Mom(c.PeakMoment))

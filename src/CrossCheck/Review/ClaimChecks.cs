@@ -278,7 +278,9 @@ internal sealed class ClaimChecks
         // the rotations) is largest, so that one wrong claim is pinned on itself and not smeared over its neighbours.
         var active = Enumerable.Range(0, rows.Count).ToList();
         var culprits = new List<(int Row, double Error)>();
-        while (active.Count > 0)
+        // Each step is a full least-squares fit; past a few dozen wrong claims the author has a general problem, which the
+        // flags already raised and the comparison show, and more steps would only make a large frame's review slow.
+        while (active.Count > 0 && culprits.Count < MaxCompatibilityFlags)
         {
             var fit = Fit(rows, active, unknowns.Count, col);
             if (fit is null) break;
@@ -309,6 +311,9 @@ internal sealed class ClaimChecks
                 [row.Claim.Source]));
         }
     }
+
+    /// <summary>Most claims the compatibility check sets aside (and flags) in one case.</summary>
+    private const int MaxCompatibilityFlags = 25;
 
     private sealed record Equation(Dictionary<int, double> Coef, double Rhs, Member Member, MemberEnd End, ClaimedEndMoment Claim);
 

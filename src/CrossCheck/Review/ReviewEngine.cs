@@ -20,6 +20,7 @@ public static partial class ReviewEngine
         ArgumentNullException.ThrowIfNull(analysis);
         options ??= ReviewOptions.Default;
         var checks = new ClaimChecks(submission, options);
+        var conditioning = ConditioningFlag(submission, analysis);
         var cases = new List<CaseReview>();
         var caseIds = analysis.Cases.Select(c => c.Case).ToList();
         foreach (var id in submission.Claims.EndMoments.Select(c => c.Case).Distinct())
@@ -36,11 +37,38 @@ public static partial class ReviewEngine
             }
             if (options.Diagnose && result is not null && review.EndMoments.Any(e => e.Status is EndStatus.Discrepant or EndStatus.Minor))
                 review = review with { Causes = new Diagnosis.Diagnoser(submission, analysis, options).Diagnose(review) };
+            if (conditioning is not null && result is not null)
+            {
+                review = review with { Flags = [.. review.Flags, conditioning] };
+                conditioning = null;
+            }
             cases.Add(review with { Flags = [.. review.Flags.OrderByDescending(f => f.Severity)] });
         }
         var verdict = VerdictOf(cases);
         var comments = Comments(submission, cases);
         return new ReviewResult(submission, options, verdict, cases, comments, analysis.Notes, inputWarnings?.ToList() ?? []) { Analysis = analysis };
+    }
+
+    /// <summary>
+    /// The numerical sanity layer's finding for the reviewer: members whose stiffnesses differ by a factor of a million
+    /// or more, or an ill-conditioned matrix. The results passed the equilibrium check (an analysis that fails it is
+    /// never returned), but such a contrast is usually a typing or unit slip in E, I or A, so the author is asked to
+    /// confirm. One flag for the model, on the first case reviewed.
+    /// </summary>
+    private static Flag? ConditioningFlag(Submission s, AnalysisResult analysis)
+    {
+        var n = analysis.Numerics;
+        if (!n.IllConditioned) return null;
+        var sources = new List<SourceRef>();
+        string where = "stiffness matrix";
+        if (n.Contrast is { } k && k.Ratio >= NumericalLimits.StiffnessContrast)
+        {
+            where = $"member {k.Stiffer}";
+            foreach (var id in new[] { k.Stiffer, k.Softer })
+                if (s.Model.TryGetMember(id, out var m)) sources.Add(m.Source);
+        }
+        string all = s.Cases.Count > 1 ? " This applies to every load case." : "";
+        return new Flag(FlagKind.Conditioning, Severity.Minor, where, null, $"{n.Describe()} Please confirm the section properties.{all}", sources);
     }
 
     /// <summary>Per REVIEW-JSON.md: concur when every end agrees and no flag is above info; revise on any discrepant end or major flag.</summary>
@@ -219,6 +247,7 @@ public static partial class ReviewEngine
         FlagKind.Displacement => "DX",
         FlagKind.Symmetry => "SY",
         FlagKind.DistributionTable => "MD",
+        FlagKind.Conditioning => "ST",
         _ => "CP",
     };
 

@@ -54,6 +54,8 @@ public enum FlagKind
     Compatibility,
     /// <summary>The author's moment-distribution working table.</summary>
     DistributionTable,
+    /// <summary>The model's stiffnesses are so different that the analysis is ill-conditioned (a typing or unit error?).</summary>
+    Conditioning,
 }
 
 /// <summary>What a flag's value measures, so it can be shown in the submission's units.</summary>
@@ -167,6 +169,7 @@ public static class ReviewWords
         FlagKind.Displacement => "displacement",
         FlagKind.Symmetry => "symmetry",
         FlagKind.DistributionTable => "distribution-table",
+        FlagKind.Conditioning => "conditioning",
         _ => "compatibility",
     };
 

@@ -34,16 +34,23 @@ public enum ReviewFailure
 public static class ReviewPipeline
 {
     /// <summary>Reviews the submission at <paramref name="path"/>. Bad input is returned as errors, never thrown.</summary>
-    public static ReviewOutcome Run(string path, ReviewOptions options) => Run(path, options, null);
+    public static ReviewOutcome Run(string path, ReviewOptions options) => Run(path, options, InputLimits.Default);
 
     /// <param name="path">The submission.</param>
     /// <param name="options">Tolerances and sign-off details.</param>
     /// <param name="pdfLimits">Page and time limits for PDF input (defaults when null).</param>
-    public static ReviewOutcome Run(string path, ReviewOptions options, Import.Pdf.PdfLimits? pdfLimits)
+    public static ReviewOutcome Run(string path, ReviewOptions options, Import.Pdf.PdfLimits? pdfLimits) =>
+        Run(path, options, pdfLimits is null ? InputLimits.Default : InputLimits.Default with { Pdf = pdfLimits });
+
+    /// <param name="path">The submission.</param>
+    /// <param name="options">Tolerances and sign-off details.</param>
+    /// <param name="limits">Bounds on what is read (see <see cref="InputLimits"/>).</param>
+    public static ReviewOutcome Run(string path, ReviewOptions options, InputLimits limits)
     {
         ArgumentNullException.ThrowIfNull(path);
         ArgumentNullException.ThrowIfNull(options);
-        var imported = SubmissionReader.Read(path, pdfLimits);
+        ArgumentNullException.ThrowIfNull(limits);
+        var imported = SubmissionReader.Read(path, limits);
         var warnings = imported.Warnings.ToList();
         if (!imported.Succeeded) return new ReviewOutcome(path, null, imported.Errors.ToList(), warnings, ReviewFailure.Unreadable);
         var s = imported.Submission!;

@@ -126,7 +126,11 @@ public sealed record ScreenOptions(
     MemoFormat Format = MemoFormat.Html,
     int Parallelism = 0,
     string? RegisterPath = null,
-    (string Text, string Name)? MemoTemplate = null);
+    (string Text, string Name)? MemoTemplate = null)
+{
+    /// <summary>Bounds on reading each submission (defaults when null).</summary>
+    public InputLimits? Limits { get; init; }
+}
 
 /// <summary>Groups submissions by their most likely cause when the diagnosis found one, otherwise by their main finding's kind.</summary>
 public static class ScreenGrouping

@@ -62,7 +62,7 @@ public static class Screener
         var parallel = new ParallelOptions { MaxDegreeOfParallelism = parallelism, CancellationToken = cancel };
         Parallel.For(0, items.Count, parallel, i =>
         {
-            reviews[i] = ReviewOne(items[i], options.Review);
+            reviews[i] = ReviewOne(items[i], options.Review, options.Limits);
             lock (gate) progress?.Reviewed(items[i], reviews[i].Outcome, ++reviewed);
         });
 
@@ -126,11 +126,11 @@ public static class Screener
             : r.Verdict switch { Verdict.Concur => ScreenOutcome.Concur, Verdict.ConcurWithComments => ScreenOutcome.Comments, _ => ScreenOutcome.Revise };
     }
 
-    private static Reviewed ReviewOne(ScreenItem item, ReviewOptions options)
+    private static Reviewed ReviewOne(ScreenItem item, ReviewOptions options, InputLimits? limits)
     {
         try
         {
-            var outcome = ReviewPipeline.Run(item.Path, options);
+            var outcome = ReviewPipeline.Run(item.Path, options, limits ?? InputLimits.Default);
             return new Reviewed(outcome, outcome.Succeeded ? InputHash.Compute(item.Path) : null, null);
         }
         catch (Exception ex) when (ex is not OutOfMemoryException)

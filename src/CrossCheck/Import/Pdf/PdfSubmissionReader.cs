@@ -39,11 +39,16 @@ public sealed record PdfExtraction(
 public static class PdfSubmissionReader
 {
     /// <summary>Reads and builds the submission. Never throws for bad input.</summary>
-    public static ImportResult Read(string path, PdfLimits? limits = null)
+    public static ImportResult Read(string path, PdfLimits? limits = null) =>
+        Read(path, limits is null ? InputLimits.Default : InputLimits.Default with { Pdf = limits });
+
+    /// <summary>Reads and builds the submission within <paramref name="limits"/>. Never throws for bad input.</summary>
+    public static ImportResult Read(string path, InputLimits limits)
     {
-        var x = Extract(path, limits);
+        ArgumentNullException.ThrowIfNull(limits);
+        var x = Extract(path, limits.Pdf);
         if (x.Tables.Count == 0) return new ImportResult(null, x.Problems);
-        return SubmissionBuilder.Build(path, x.Tables, x.Problems);
+        return SubmissionBuilder.Build(path, x.Tables, x.Problems, limits);
     }
 
     /// <summary>Reads the tables of a PDF without building the submission (for <c>crosscheck extract</c>).</summary>

@@ -34,6 +34,7 @@ internal static class PdfTextReader
             return null;
         }
         if (!StartsLikePdf(bytes)) { problems.Add(new InputProblem(whole, Messages.PdfNotPdf)); return null; }
+        if (PdfCost.Nesting(bytes, limits.MaxNesting) > limits.MaxNesting) { problems.Add(new InputProblem(whole, Messages.PdfNestedTooDeep(limits.MaxNesting))); return null; }
 
         var progress = new Progress();
         using var cts = new CancellationTokenSource();
@@ -69,13 +70,20 @@ internal static class PdfTextReader
         var problems = new List<InputProblem>();
         var whole = new SourceRef(display);
         var clock = Stopwatch.StartNew();
+        var budget = new DecodeBudget(limits, token);
         try
         {
-            using var pdf = PdfDocument.Open(bytes, new ParsingOptions { UseLenientParsing = true, SkipMissingFonts = true, ClipPaths = false });
+            using var pdf = PdfDocument.Open(bytes, new ParsingOptions
+            {
+                UseLenientParsing = true, SkipMissingFonts = true, ClipPaths = false,
+                FilterProvider = new GuardedFilterProvider(budget), MaxStackDepth = limits.MaxNesting,
+            });
             int n = pdf.NumberOfPages;
             progress.Pages = n;
+            if (budget.Refusal is { } early) { problems.Add(new InputProblem(whole, early)); return (null, problems); }
             if (n == 0) { problems.Add(new InputProblem(whole, Messages.PdfNoPages)); return (null, problems); }
             if (n > limits.MaxPages) { problems.Add(new InputProblem(whole, Messages.PdfTooManyPages(n, limits.MaxPages))); return (null, problems); }
+            var tree = PdfCost.Pages(pdf, n);
             var pages = new List<TextPage>();
             int imagePages = 0, textPages = 0, invisiblePages = 0;
             for (int i = 1; i <= n; i++)
@@ -87,9 +95,20 @@ internal static class PdfTextReader
                     problems.Add(new InputProblem(whole, Messages.PdfTimeBudget(limits.TimeBudget.TotalSeconds, i, n)));
                     return (null, problems);
                 }
+                var pageRef = new SourceRef(display, null, null, null, i);
+                if (tree.Count == n)
+                {
+                    // What the page would make the parser build, forms counted as often as they are painted: refused before it is built.
+                    var cost = PdfCost.OfPage(pdf, tree[i - 1].Page, tree[i - 1].Resources, 2L * limits.MaxLettersPerPage, limits.MaxOperationsPerPage);
+                    if (cost.Letters > 2L * limits.MaxLettersPerPage || cost.Operations > limits.MaxOperationsPerPage)
+                    {
+                        problems.Add(new InputProblem(pageRef, Messages.PdfPageTooCostly(cost.Letters, cost.Operations, limits.MaxLettersPerPage, limits.MaxOperationsPerPage)));
+                        return (null, problems);
+                    }
+                }
                 var page = pdf.GetPage(i);
                 var letters = page.Letters;
-                var pageRef = new SourceRef(display, null, null, null, i);
+                if (budget.Refusal is { } refused) { problems.Add(new InputProblem(whole, refused)); return (null, problems); }
                 if (letters.Count > limits.MaxLettersPerPage)
                 {
                     problems.Add(new InputProblem(pageRef, Messages.PdfTooManyLetters(letters.Count, limits.MaxLettersPerPage)));
@@ -117,6 +136,14 @@ internal static class PdfTextReader
         {
             problems.Add(new InputProblem(whole, Messages.PdfEncrypted));
         }
+        catch (PdfLimitException ex)
+        {
+            problems.Add(new InputProblem(whole, ex.Message));
+        }
+        catch (PdfDocumentStackDepthException)
+        {
+            problems.Add(new InputProblem(whole, Messages.PdfNestedTooDeep(limits.MaxNesting)));
+        }
         catch (OperationCanceledException)
         {
             // Abandoned after the time budget; the caller has reported it.
@@ -125,7 +152,9 @@ internal static class PdfTextReader
         catch (Exception ex)
 #pragma warning restore CA1031
         {
-            if (ex.Message.Contains("encrypt", StringComparison.OrdinalIgnoreCase) || ex.Message.Contains("password", StringComparison.OrdinalIgnoreCase))
+            if (budget.Refusal is { } refused)
+                problems.Add(new InputProblem(whole, refused));
+            else if (ex.Message.Contains("encrypt", StringComparison.OrdinalIgnoreCase) || ex.Message.Contains("password", StringComparison.OrdinalIgnoreCase))
                 problems.Add(new InputProblem(whole, Messages.PdfEncrypted));
             else
                 problems.Add(new InputProblem(whole, Messages.PdfDamaged(OneLine(ex.Message))));

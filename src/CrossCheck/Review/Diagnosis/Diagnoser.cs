@@ -449,13 +449,17 @@ public sealed class Diagnoser
         var loads = x.Case.Loads.ToList();
         var cases = new List<LoadCase>();
         for (int i = 0; i < loads.Count; i++) cases.Add(new LoadCase($"alone|{i}", [loads[i]]));
-        // The same member load on another member of the same length.
+        // The same member load on another member of the same length: the nearest few, so that the work stays linear in
+        // the size of a large frame (where every bay has the same span) instead of growing with its square.
         var moved = new List<(int Load, string To)>();
         for (int i = 0; i < loads.Count; i++)
         {
             if (loads[i] is not MemberLoad ml) continue;
-            double L = _s.Model.Length(_s.Model.Member(ml.Member));
-            foreach (var other in _s.Model.Members.Where(o => o.Id != ml.Member && Math.Abs(_s.Model.Length(o) - L) <= 1e-6 * L))
+            var from = _s.Model.Member(ml.Member);
+            double L = _s.Model.Length(from);
+            var candidates = _s.Model.Members.Where(o => o.Id != ml.Member && Math.Abs(_s.Model.Length(o) - L) <= 1e-6 * L)
+                .OrderBy(o => Distance(from, o)).Take(MaxMovesPerLoad);
+            foreach (var other in candidates)
             {
                 moved.Add((i, other.Id));
                 cases.Add(new LoadCase($"moved|{i}|{other.Id}", [ml with { Member = other.Id }]));
@@ -487,6 +491,24 @@ public sealed class Diagnoser
         foreach (var other in _analysis.Cases.Where(c => c.Case != x.Case.Id))
             yield return new Hypothesis("load-misplaced", 3, x.From(other),
                 $"The claims for case {x.Case.Id} are the moments of case {other.Case}: the load cases appear to be mixed up.");
+    }
+
+    /// <summary>Most members a misplaced member load is tried on (the nearest of the same length).</summary>
+    private const int MaxMovesPerLoad = 8;
+
+    /// <summary>Distance between the mid-points of two members (m).</summary>
+    private double Distance(Member a, Member b)
+    {
+        var (ax, ay) = Mid(a);
+        var (bx, by) = Mid(b);
+        return Math.Sqrt(((ax - bx) * (ax - bx)) + ((ay - by) * (ay - by)));
+    }
+
+    private (double X, double Y) Mid(Member m)
+    {
+        var s = _s.Model.Joint(m.Start);
+        var e = _s.Model.Joint(m.End);
+        return ((s.X + e.X) / 2, (s.Y + e.Y) / 2);
     }
 
     private string LoadWords(Load l) => l switch

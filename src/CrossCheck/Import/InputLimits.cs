@@ -1,0 +1,56 @@
+using CrossCheck.Import.Pdf;
+
+namespace CrossCheck.Import;
+
+/// <summary>
+/// Every bound on what CrossCheck reads, in one place: a file from anywhere must not hang the tool, exhaust its memory
+/// or produce numbers too large to compute with. Going over a bound is an input error (exit code 2) whose message
+/// names the bound and, where the command line can change it, the option that raises it.
+/// </summary>
+/// <remarks>
+/// The defaults are far above any hand or spreadsheet calculation (a calc package has tens of members, not
+/// thousands) and well inside what the solver and the diagnosis handle in seconds. The command line sets
+/// <see cref="MaxRows"/>, <see cref="MaxMembers"/>, <see cref="MaxFileBytes"/> and the PDF limits (<c>--max-rows</c>,
+/// <c>--max-members</c>, <c>--max-file-mb</c>, <c>--max-pages</c>, <c>--time-limit</c>).
+/// </remarks>
+public sealed record InputLimits
+{
+    /// <summary>The defaults.</summary>
+    public static InputLimits Default { get; } = new();
+
+    /// <summary>Largest CSV file read (bytes). A PDF has its own bound, <see cref="PdfLimits.MaxFileBytes"/>.</summary>
+    public long MaxFileBytes { get; init; } = 20L * 1024 * 1024;
+
+    /// <summary>Longest line of a CSV file (characters): a table row is a few hundred.</summary>
+    public int MaxLineChars { get; init; } = 100_000;
+
+    /// <summary>Longest cell (characters): ids, words and numbers are short; a title is a sentence.</summary>
+    public int MaxCellChars { get; init; } = 2_000;
+
+    /// <summary>Most rows in one table.</summary>
+    public int MaxRows { get; init; } = 20_000;
+
+    /// <summary>Most members (or spans).</summary>
+    public int MaxMembers { get; init; } = 300;
+
+    /// <summary>Most joints (or supports): twice <see cref="MaxMembers"/>, enough for any structure of that many members.</summary>
+    public int MaxJoints { get; init; } = 600;
+
+    /// <summary>Most load cases: each is analysed, compared and diagnosed on its own.</summary>
+    public int MaxLoadCases { get; init; } = 50;
+
+    /// <summary>
+    /// Largest coordinate or member length, in metres. The longest spans built are about 2 km; a member of 100 km is a
+    /// unit slip (millimetres read as metres), and far larger numbers would overflow the arithmetic.
+    /// </summary>
+    public double MaxLength { get; init; } = 100_000;
+
+    /// <summary>Largest magnitude of any number once converted to SI units; beyond it products and squares lose meaning.</summary>
+    public double MaxMagnitude { get; init; } = 1e30;
+
+    /// <summary>Smallest non-zero magnitude in SI units; below it lie denormal numbers, which lose precision in every operation.</summary>
+    public double MinMagnitude { get; init; } = 1e-280;
+
+    /// <summary>Bounds on reading a PDF (pages, time, size, letters, decoded streams, nesting).</summary>
+    public PdfLimits Pdf { get; init; } = PdfLimits.Default;
+}
