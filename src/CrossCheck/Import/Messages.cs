@@ -79,7 +79,7 @@ internal static class Messages
     public static string StrayByteOrderMark =>
         "this line holds an invisible byte-order mark (were two files joined?); it was removed before the line was read";
     public static string CsvTooLarge(long bytes, long max) =>
-        F($"the file is {Megabytes(bytes)} MB; CSV files larger than {Megabytes(max)} MB are not read (raise the limit with --max-file-mb)");
+        F($"the file is {Size(bytes)}; CSV files larger than {Size(max)} are not read (raise the limit with --max-file-mb)");
     public static string LineTooLong(int chars, int max) =>
         F($"this line is {chars} characters long; lines longer than {max} characters are not read (a table row is a few hundred; is the file a table?)");
     public static string CellTooLong(int column, int chars, int max) =>
@@ -104,7 +104,9 @@ internal static class Messages
         "the folder holds no CSV tables (expected joints.csv, members.csv, loads.csv, end-moments.csv, ...)";
     public static string SeparateParts(int parts, IEnumerable<string> examples) =>
         F($"the members form {parts} separate structures that share no joint ({string.Join("; ", examples)}); each is analysed with its own supports. Check the member joints if the structure should be one");
-    private static string Megabytes(long bytes) => (bytes / (1024.0 * 1024)).ToString(bytes < 10 * 1024 * 1024 ? "0.#" : "0", CultureInfo.InvariantCulture);
+    private static string Size(long bytes) => bytes < 1024 * 1024
+        ? F($"{Math.Ceiling(bytes / 1024.0):0} KB")
+        : F($"{bytes / (1024.0 * 1024):0.#} MB");
     public static string NoSections => "the file has no tables: a single-file submission introduces each table with a line such as [members]";
     public static string EmptyTable(string name) => F($"table '{name}' has no header row");
     public static string NotFound(string path) => F($"'{path}' does not exist");
@@ -126,9 +128,9 @@ internal static class Messages
     public static string PdfTooManyLetters(int letters, int max) =>
         F($"the page holds {letters} letters, more than the {max} a page of tables can have; it looks like a drawing or a damaged page");
     public static string PdfStreamTooLarge(long max) =>
-        F($"a compressed stream in the PDF expands to more than {max / (1024 * 1024)} MB, far more than a calculation needs: the file looks like a compression bomb and was not read");
+        F($"a compressed stream in the PDF expands to more than {Size(max)}, far more than a calculation needs: the file looks like a compression bomb and was not read");
     public static string PdfDecodedTooMuch(long max) =>
-        F($"the PDF's compressed streams expand to more than {max / (1024 * 1024)} MB in all; the file was not read (a compression bomb, or a document of drawings rather than tables?)");
+        F($"the PDF's compressed streams expand to more than {Size(max)} in all; the file was not read (a compression bomb, or a document of drawings rather than tables?)");
     public static string PdfNestedTooDeep(int max) =>
         F($"the PDF nests arrays or dictionaries more than {max} deep; no calculation needs that (a hostile or damaged file?), so it was not read");
     public static string PdfPageTooCostly(long letters, long operations, int maxLetters, long maxOperations) =>
@@ -167,6 +169,16 @@ internal static class Messages
     public static string PdfSideBySide(string read, string beside) =>
         F($"two tables stand side by side in this line ('{beside}' and '{read}'); CrossCheck reads tables set one under another, so the '{beside}' table was not read. Give the tables as CSV (or print them one under the other)");
     public static string PdfUnlabelledColumn(string sample) => F($"a column without a header (values such as \"{sample}\") was ignored");
+
+    // ---- the distribution (working) table -----------------------------------------------------------
+
+    public static string WorkingColumnNotAnEnd(string cell) =>
+        F($"column '{cell}' does not name a member end: write it as member@joint (e.g. AB@A) or with a double subscript (M_AB) of joints joined by a member");
+    public static string NotAMomentUnit(string unit) => F($"'{unit}' is not a moment unit");
+    public static string WorkingColumnNoUnit(string cell, string name) =>
+        F($"column '{cell}' has no unit: write it in the header (e.g. '{name} [kN·m]') or give 'force unit' and 'length unit' in the info table");
+    public static string WorkingNeedsStep => "table 'distribution' needs a column 'step' (DF, FEM, balance, carry-over, final)";
+    public static string WorkingStepUnknown(string label) => F($"step \"{label}\" is not recognised (use DF, FEM, balance, carry-over or final)");
 
     public static string NoJointsConnected(string id) => F($"joint '{id}' is not connected to any member");
 }

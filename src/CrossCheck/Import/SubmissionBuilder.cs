@@ -148,7 +148,7 @@ public sealed class SubmissionBuilder
         var units = DisplayUnitsFor(defaults);
         info = info with { Units = units };
         var working = _tables.TryGetValue("distribution", out var dt) && !_geometryIncomplete
-            ? WorkingTableReader.Read(dt, model, defaults.For(QuantityKind.Moment) ?? _seenUnits.GetValueOrDefault(nameof(QuantityKind.Moment)), _problems)
+            ? WorkingTableReader.Read(dt, model, defaults.For(QuantityKind.Moment) ?? _seenUnits.GetValueOrDefault(nameof(QuantityKind.Moment)), _problems, _limits)
             : [];
         if (_problems.Any(p => p.IsError)) return null;
         return new Submission(_source, info, model, cases, claims) { WorkingTables = working };

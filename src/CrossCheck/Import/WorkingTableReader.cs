@@ -21,8 +21,9 @@ internal static partial class WorkingTableReader
         ("total", WorkingStep.Final), ("σ", WorkingStep.Final), ("final moment", WorkingStep.Final), ("final moments", WorkingStep.Final),
     ];
 
-    public static List<WorkingTable> Read(RawTable t, StructureModel model, UnitChoice? momentUnit, List<InputProblem> problems)
+    public static List<WorkingTable> Read(RawTable t, StructureModel model, UnitChoice? momentUnit, List<InputProblem> problems, InputLimits? limits = null)
     {
+        limits ??= InputLimits.Default;
         var header = t.Header;
         int caseCol = -1, stepCol = -1;
         var columns = new List<(int Index, WorkingColumn Column, UnitChoice? Unit)>();
@@ -41,25 +42,25 @@ internal static partial class WorkingTableReader
             var end = ResolveEnd(name, model);
             if (end is null)
             {
-                problems.Add(new InputProblem(where, $"column '{cell}' does not name a member end: write it as member@joint (e.g. AB@A) or with a double subscript (M_AB) of joints joined by a member"));
+                problems.Add(new InputProblem(where, Messages.WorkingColumnNotAnEnd(cell)));
                 continue;
             }
             UnitChoice? unit = momentUnit;
             if (unitText is { Length: > 0 })
             {
                 unit = UnitReader.TryRead(unitText, QuantityKind.Moment);
-                if (unit is null) { problems.Add(new InputProblem(where, $"'{unitText}' is not a moment unit")); continue; }
+                if (unit is null) { problems.Add(new InputProblem(where, Messages.NotAMomentUnit(unitText))); continue; }
             }
             if (unit is null)
             {
-                problems.Add(new InputProblem(where, $"column '{cell}' has no unit: write it in the header (e.g. '{name} [kN·m]') or give 'force unit' and 'length unit' in the info table"));
+                problems.Add(new InputProblem(where, Messages.WorkingColumnNoUnit(cell, name)));
                 continue;
             }
             columns.Add((i, new WorkingColumn(end.Value.Member, end.Value.End, cell, where, unit), unit));
         }
         if (stepCol < 0)
         {
-            problems.Add(new InputProblem(new SourceRef(t.File, "distribution", header.Line, "step", header.Page), "table 'distribution' needs a column 'step' (DF, FEM, balance, carry-over, final)"));
+            problems.Add(new InputProblem(new SourceRef(t.File, "distribution", header.Line, "step", header.Page), Messages.WorkingNeedsStep));
             return [];
         }
         var byCase = new Dictionary<string, List<WorkingRow>>(StringComparer.Ordinal);
@@ -73,7 +74,7 @@ internal static partial class WorkingTableReader
             if (step is null)
             {
                 problems.Add(new InputProblem(rowRef with { Column = header.Cell(stepCol), Text = label },
-                    $"step \"{label}\" is not recognised (use DF, FEM, balance, carry-over or final)"));
+                    Messages.WorkingStepUnknown(label)));
                 continue;
             }
             var values = new double?[columns.Count];
@@ -86,11 +87,18 @@ internal static partial class WorkingTableReader
                 if (text.Length == 0 || text is "-" or "—" or "–") continue;
                 if (!NumberText.TryParse(text, t.DecimalComma, out double v))
                 {
-                    problems.Add(new InputProblem(rowRef with { Column = columns[k].Column.Header, Text = text }, $"'{columns[k].Column.Header}' must be a number, got \"{text}\""));
+                    problems.Add(new InputProblem(rowRef with { Column = columns[k].Column.Header, Text = text }, Messages.NotANumber(columns[k].Column.Header, text, t.DecimalComma)));
                     ok = false;
                     continue;
                 }
-                values[k] = step == WorkingStep.DistributionFactor ? v : v * columns[k].Unit!.ToSi;
+                double si = step == WorkingStep.DistributionFactor ? v : v * columns[k].Unit!.ToSi;
+                if (!double.IsFinite(si) || Math.Abs(si) > limits.MaxMagnitude || (v != 0 && Math.Abs(si) < limits.MinMagnitude))
+                {
+                    problems.Add(new InputProblem(rowRef with { Column = columns[k].Column.Header, Text = text }, Messages.OutOfRange(columns[k].Column.Header, text)));
+                    ok = false;
+                    continue;
+                }
+                values[k] = si;
             }
             if (!ok) continue;
             if (!byCase.TryGetValue(caseId, out var list)) { byCase[caseId] = list = []; order.Add(caseId); }

@@ -81,6 +81,35 @@ public class MemoSafetyTests
         Should.Throw<MemoTemplateException>(() => MemoRenderer.Render(model, "{{ include '/etc/passwd' }}", "sneaky.sbn"));
     }
 
+    [Theory]
+    [InlineData("{{ object.eval_template \"{{ include '/etc/hostname' }}\" }}")] // no template loader, even from inside the language
+    [InlineData("{{ model.Title.Length }}")]                                    // a .NET member of a string
+    [InlineData("{{ model.Cases.Capacity }}")]                                  // a .NET member of a list
+    [InlineData("{{ model.Cases[0].Rows.GetType }}")]                           // a .NET method
+    [InlineData("{{ while true }}x{{ end }}")]                                  // loops are bounded
+    [InlineData("{{ func f; ret f; end; f }}")]                                 // recursion is bounded
+    public void Template_CannotReachFilesOrDotNet_OrRunWithoutBound(string template)
+    {
+        var model = MemoExtensions.Build(Reviewed(), MemoFormat.Markdown);
+        Should.Throw<MemoTemplateException>(() => MemoRenderer.Render(model, template, "hostile.sbn")).Message.ShouldStartWith("hostile.sbn");
+    }
+
+    [Fact]
+    public void Template_OutputIsBounded()
+    {
+        var model = MemoExtensions.Build(Reviewed(), MemoFormat.Markdown);
+        string line = new('x', 1000);
+        string template = "{{ for i in 1..100000 }}" + line + "{{ end }}"; // 100 MB of text
+        Should.Throw<MemoTemplateException>(() => MemoRenderer.Render(model, template, "flood.sbn"));
+    }
+
+    [Fact]
+    public void Template_SeesTheModelsOwnProperties()
+    {
+        var model = MemoExtensions.Build(Reviewed(), MemoFormat.Markdown);
+        MemoRenderer.Render(model, "{{ model.Cases.size }} {{ model.Cases[0].Id }} {{ model.Title | string.size }}", "fine.sbn").ShouldBe("2 DL 40");
+    }
+
     private static ReviewResult Reviewed()
     {
         var s = SubmissionReader.Read(CliRunner.Demo("footbridge.csv")).Submission!;

@@ -10,10 +10,13 @@ public static class ChildProcess
     /// <summary>The CLI (<c>crosscheck.dll</c>) copied beside the test assembly.</summary>
     public static Process Cli(params string[] args) => Start("crosscheck.dll", args);
 
+    /// <summary>The CLI run in <paramref name="workingDirectory"/> (where default output paths land).</summary>
+    public static Process CliIn(string workingDirectory, params string[] args) => Start("crosscheck.dll", args, workingDirectory);
+
     /// <summary>The test tools (<c>CrossCheck.TestTools.dll</c>): generator, register probe, timing harness.</summary>
     public static Process Tools(params string[] args) => Start("CrossCheck.TestTools.dll", args);
 
-    private static Process Start(string dll, string[] args)
+    private static Process Start(string dll, string[] args, string? workingDirectory = null)
     {
         var psi = new ProcessStartInfo(Dotnet)
         {
@@ -21,6 +24,7 @@ public static class ChildProcess
             RedirectStandardError = true,
             UseShellExecute = false,
         };
+        if (workingDirectory is not null) psi.WorkingDirectory = workingDirectory;
         psi.ArgumentList.Add("exec");
         psi.ArgumentList.Add(Path.Combine(AppContext.BaseDirectory, dll));
         foreach (var a in args) psi.ArgumentList.Add(a);
