@@ -55,7 +55,7 @@ internal static partial class WorkingTableReader
                 problems.Add(new InputProblem(where, $"column '{cell}' has no unit: write it in the header (e.g. '{name} [kN·m]') or give 'force unit' and 'length unit' in the info table"));
                 continue;
             }
-            columns.Add((i, new WorkingColumn(end.Value.Member, end.Value.End, cell, where, unit), unit));
+            columns.Add((i, new WorkingColumn(end.Value.Member, end.Value.End, name.Trim(), where, unit), unit));
         }
         if (stepCol < 0)
         {
@@ -99,7 +99,7 @@ internal static partial class WorkingTableReader
         return order.Select(c => new WorkingTable(c, columns.Select(x => x.Column).ToList(), byCase[c])).ToList();
     }
 
-    private static WorkingStep? ParseStep(string label)
+    internal static WorkingStep? ParseStep(string label)
     {
         // "balance 2", "CO-3", "Bal." and the like: drop the numbering and trailing dots.
         string s = TableSchema.Normalize(StepNumber().Replace(label, "")).TrimEnd('.', ' ');
