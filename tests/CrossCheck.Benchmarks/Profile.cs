@@ -20,3 +20,20 @@ public static class Profile
         }
     }
 }
+
+/// <summary>Reads one PDF repeatedly, stage by stage (<c>-- profile-pdf FILE</c>).</summary>
+public static class ProfilePdf
+{
+    public static void Run(string path)
+    {
+        for (int i = 0; i < 4; i++)
+        {
+            var sw = Stopwatch.StartNew();
+            var problems = new List<CrossCheck.Import.InputProblem>();
+            CrossCheck.Import.Pdf.PdfTextReader.Read(path, "calc.pdf", CrossCheck.Import.Pdf.PdfLimits.Default, problems);
+            long read = sw.ElapsedMilliseconds; sw.Restart();
+            var r = CrossCheck.Import.SubmissionReader.Read(path);
+            Console.WriteLine($"text lines {read} ms; whole import {sw.ElapsedMilliseconds} ms; ok {r.Succeeded}; problems {problems.Count}");
+        }
+    }
+}
