@@ -1,8 +1,9 @@
 #!/usr/bin/env bash
 # PDF import against poppler's `pdftotext -layout` on the same multi-page calc package (whole processes, same
 # machine, alternating runs). Builds an invented 20-storey x 5-bay frame calc (HTML printed by headless chromium),
-# then prints the median of each and the ratio (target: CrossCheck within 3x).
-# Needs: chromium, poppler-utils. Usage (repository root): tests/CrossCheck.Benchmarks/scripts/pdf-import.sh [runs]
+# then prints the median of each and the ratios (target: CrossCheck within 3x), for CrossCheck built framework-dependent
+# (JIT, the `dotnet publish` default) and native ahead-of-time compiled (`-p:PublishAot=true`).
+# Needs: chromium, poppler-utils, clang (for the native build). Usage (repository root): tests/CrossCheck.Benchmarks/scripts/pdf-import.sh [runs]
 set -euo pipefail
 runs="${1:-7}"
 root="$(cd "$(dirname "$0")/../../.." && pwd)"
@@ -39,17 +40,24 @@ PY
 chromium --headless --no-sandbox --disable-gpu --no-pdf-header-footer --disable-background-networking --disable-component-update \
   --disable-sync --no-first-run --user-data-dir="$work/profile" --print-to-pdf="$work/calc.pdf" "$work/calc.html" 2>/dev/null
 pages=$(pdfinfo "$work/calc.pdf" 2>/dev/null | awk '/^Pages:/ {print $2}')
+rid="linux-$(uname -m | sed 's/x86_64/x64/; s/aarch64/arm64/')"
 dotnet publish "$root/src/CrossCheck.Cli" -c Release -o "$work/cc" >/dev/null
+dotnet publish "$root/src/CrossCheck.Cli" -c Release -r "$rid" -p:PublishAot=true -o "$work/cc-native" >/dev/null
 
 ms() { local s e; s=$(date +%s%N); "$@" >/dev/null 2>&1 || true; e=$(date +%s%N); echo $(( (e - s) / 1000000 )); }
-cc=(); pt=()
+cc=(); cn=(); pt=()
 for i in $(seq 1 "$runs"); do
   pt+=("$(ms pdftotext -layout "$work/calc.pdf" "$work/out.txt")")
   cc+=("$(ms "$work/cc/crosscheck" extract "$work/calc.pdf" --out "$work/tables-$i")")
+  cn+=("$(ms "$work/cc-native/crosscheck" extract "$work/calc.pdf" --out "$work/tables-native-$i")")
 done
+diff -r "$work/tables-1" "$work/tables-native-1" >/dev/null || { echo "the native and JIT builds read different tables" >&2; exit 1; }
 median() { printf '%s\n' "$@" | sort -n | awk '{a[NR]=$1} END {print a[int((NR+1)/2)]}'; }
-p=$(median "${pt[@]}"); c=$(median "${cc[@]}")
-echo "calc package: $pages pages"
-echo "pdftotext -layout: median ${p} ms"
-echo "crosscheck extract: median ${c} ms"
-awk -v c="$c" -v p="$p" 'BEGIN { printf "ratio crosscheck / pdftotext: %.2f\n", c / p }'
+p=$(median "${pt[@]}"); c=$(median "${cc[@]}"); n=$(median "${cn[@]}")
+echo "calc package: $pages pages; runs: $runs; machine: $(nproc) cores, load $(cut -d' ' -f1-3 /proc/loadavg)"
+echo "pdftotext -layout:                        median ${p} ms"
+echo "crosscheck extract, framework-dependent:  median ${c} ms"
+echo "crosscheck extract, native AOT:           median ${n} ms"
+awk -v c="$c" -v n="$n" -v p="$p" 'BEGIN {
+  printf "ratio crosscheck (framework-dependent) / pdftotext: %.2f\n", c / p
+  printf "ratio crosscheck (native AOT) / pdftotext:          %.2f\n", n / p }'
