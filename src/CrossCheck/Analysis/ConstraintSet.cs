@@ -23,10 +23,10 @@ internal sealed class ConstraintSet
     /// <summary>Adds Σ coef·d = rhs. Returns false when it contradicts earlier constraints.</summary>
     public bool Add(IReadOnlyDictionary<int, double> coefficients, double rhs, object tag, out bool redundant)
     {
-        var row = new Row(coefficients.ToDictionary(), rhs, tag);
+        var row = new Row(coefficients as Dictionary<int, double> ?? coefficients.ToDictionary(), rhs, tag);
         _rows.Add(row);
         // Substitute existing slave expressions.
-        var terms = new Dictionary<int, double>();
+        var terms = new Dictionary<int, double>(coefficients.Count + 4);
         double constant = rhs;
         double scale = 0;
         foreach (var (dof, coef) in coefficients)

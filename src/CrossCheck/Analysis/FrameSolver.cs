@@ -189,17 +189,30 @@ public sealed class FrameSolver
                     throw new StructureException($"Joint {j.Id} is not connected to any member.", j.Id, null);
         }
 
-        private Dictionary<string, List<LocalAction>> LocalActions(LoadCase loadCase)
+        /// <summary>A case's member loads in local axes by element, with their fixed-end actions (computed once).</summary>
+        private sealed record CaseLoads(LocalAction[][] Actions, double[]?[] Fixed);
+
+        private static readonly LocalAction[] NoActions = [];
+
+        private CaseLoads LocalActions(LoadCase loadCase)
         {
-            var map = _elements.ToDictionary(e => e.Member.Id, _ => new List<LocalAction>(), StringComparer.Ordinal);
+            var lists = new List<LocalAction>?[_elements.Length];
             foreach (var load in loadCase.MemberLoads)
             {
-                if (!map.TryGetValue(load.Member, out var list))
+                if (!_elementIndex.TryGetValue(load.Member, out int i))
                     throw new StructureException($"A load of case {loadCase.Id} acts on member {load.Member}, which does not exist.");
-                var e = _elements[_elementIndex[load.Member]];
-                list.Add(LocalLoads.Resolve(load, e.Cos, e.Sin));
+                var e = _elements[i];
+                (lists[i] ??= []).Add(LocalLoads.Resolve(load, e.Cos, e.Sin));
             }
-            return map;
+            var actions = new LocalAction[_elements.Length][];
+            var fixedActions = new double[]?[_elements.Length];
+            for (int i = 0; i < _elements.Length; i++)
+            {
+                if (lists[i] is not { } list) { actions[i] = NoActions; continue; }
+                actions[i] = [.. list];
+                fixedActions[i] = FixedEndActions.Compute(list, _elements[i].Length);
+            }
+            return new CaseLoads(actions, fixedActions);
         }
 
         private ConstraintSet BuildConstraints(List<(int Dof, string Note)> extra, HashSet<int> held)
@@ -251,7 +264,7 @@ public sealed class FrameSolver
         }
 
         /// <summary>Full load vector F − Σ Tᵀ·f_fixed and its reduction Tᵀ(F − K·d0).</summary>
-        private (double[] Full, double[] Reduced) ReducedLoad(Transformation t, LoadCase loadCase, Dictionary<string, List<LocalAction>> local)
+        private (double[] Full, double[] Reduced) ReducedLoad(Transformation t, LoadCase loadCase, CaseLoads local)
         {
             var f = new double[_n];
             foreach (var jl in loadCase.JointLoads)
@@ -270,11 +283,10 @@ public sealed class FrameSolver
                         break;
                 }
             }
-            foreach (var e in _elements)
+            for (int i = 0; i < _elements.Length; i++)
             {
-                var actions = local[e.Member.Id];
-                if (actions.Count == 0) continue;
-                var fixedLocal = FixedEndActions.Compute(actions, e.Length);
+                var e = _elements[i];
+                if (local.Fixed[i] is not { } fixedLocal) continue;
                 var (_, condensed) = ElementMatrices.Condense(e.LocalK, fixedLocal, e.Released);
                 var g = ElementMatrices.ToGlobal(condensed, e.Cos, e.Sin);
                 for (int a = 0; a < 6; a++) f[e.Dofs[a]] -= g[a];
@@ -421,7 +433,7 @@ public sealed class FrameSolver
             return (joint, DirectionNames[best % 3], others);
         }
 
-        private (CaseResult Result, CaseEquilibrium Equilibrium) Recover(LoadCase loadCase, Dictionary<string, List<LocalAction>> local, double[] d,
+        private (CaseResult Result, CaseEquilibrium Equilibrium) Recover(LoadCase loadCase, CaseLoads local, double[] d,
             ConstraintSet constraints, HashSet<int> held)
         {
             var endForces = new double[_elements.Length][];
@@ -430,10 +442,10 @@ public sealed class FrameSolver
             for (int i = 0; i < _elements.Length; i++)
             {
                 var e = _elements[i];
-                var dg = e.Dofs.Select(x => d[x]).ToArray();
+                var dofs = e.Dofs;
+                double[] dg = [d[dofs[0]], d[dofs[1]], d[dofs[2]], d[dofs[3]], d[dofs[4]], d[dofs[5]]];
                 var dl = ElementMatrices.ToLocal(dg, e.Cos, e.Sin);
-                var actions = local[e.Member.Id];
-                var fixedLocal = actions.Count == 0 ? new double[6] : FixedEndActions.Compute(actions, e.Length);
+                var fixedLocal = local.Fixed[i] ?? new double[6];
                 ElementMatrices.RecoverReleased(e.LocalK, fixedLocal, e.Released, dl);
                 var f = new double[6];
                 for (int a = 0; a < 6; a++)
@@ -470,7 +482,7 @@ public sealed class FrameSolver
             for (int i = 0; i < _elements.Length; i++)
             {
                 var e = _elements[i];
-                members[e.Member.Id] = new MemberResult(e.Member, e.Length, e.Cos, e.Sin, endForces[i], localDisp[i], [.. local[e.Member.Id]]);
+                members[e.Member.Id] = new MemberResult(e.Member, e.Length, e.Cos, e.Sin, endForces[i], localDisp[i], local.Actions[i]);
                 var g = ElementMatrices.ToGlobal(endForces[i], e.Cos, e.Sin);
                 for (int a = 0; a < 6; a++) reactionVec[e.Dofs[a]] += g[a];
             }
@@ -621,18 +633,20 @@ public sealed class FrameSolver
             var rows = constraints.Rows;
             int m = rows.Count;
             if (m == 0) return;
-            var byDof = new Dictionary<int, List<(int Row, double Coef)>>();
+            // Constraint rows by DOF (compressed), then C·Cᵀ from the rows that share a DOF.
+            var perDof = new int[_n + 1];
+            foreach (var row in rows) foreach (var dof in row.Coefficients.Keys) perDof[dof + 1]++;
+            for (int i = 0; i < _n; i++) perDof[i + 1] += perDof[i];
+            var entryRow = new int[perDof[_n]];
+            var entryCoef = new double[perDof[_n]];
+            var next = (int[])perDof.Clone();
             for (int r = 0; r < m; r++)
-                foreach (var (dof, c) in rows[r].Coefficients)
-                {
-                    if (!byDof.TryGetValue(dof, out var list)) byDof[dof] = list = [];
-                    list.Add((r, c));
-                }
+                foreach (var (dof, c) in rows[r].Coefficients) { entryRow[next[dof]] = r; entryCoef[next[dof]++] = c; }
             var cct = new SparseSymmetricMatrix(m);
-            foreach (var list in byDof.Values)
-                foreach (var (r1, c1) in list)
-                    foreach (var (r2, c2) in list)
-                        if (r1 >= r2) cct.Add(r1, r2, c1 * c2);
+            for (int dof = 0; dof < _n; dof++)
+                for (int p1 = perDof[dof]; p1 < perDof[dof + 1]; p1++)
+                    for (int p2 = perDof[dof]; p2 < perDof[dof + 1]; p2++)
+                        if (entryRow[p1] >= entryRow[p2]) cct.Add(entryRow[p1], entryRow[p2], entryCoef[p1] * entryCoef[p2]);
             double maxDiag = Enumerable.Range(0, m).Max(cct.Diagonal);
             double delta = 1e-10 * maxDiag;
             for (int r = 0; r < m; r++) cct.Add(r, r, delta);
@@ -643,7 +657,7 @@ public sealed class FrameSolver
             try { factor = _linear.Factor(cct); }
             catch (SingularMatrixException) { return; }
             var lambda = new double[m];
-            for (int iter = 0; iter < 3; iter++)
+            for (int iter = 0; iter < 2; iter++)
             {
                 // r_k = b − (C·Cᵀ)·λ, without the regularisation term.
                 var mv = cct.Multiply(lambda);
@@ -664,17 +678,17 @@ public sealed class FrameSolver
     }
 
     private sealed record Element(Member Member, int StartJoint, int EndJoint, double Length, double Cos, double Sin,
-        double[,] LocalK, int[] Released, double[,] GlobalK, bool Elastic)
+        Mat6 LocalK, int[] Released, Mat6 GlobalK, bool Elastic)
     {
-        private double[,]? _unit;
+        private Mat6? _unit;
 
         /// <summary>
         /// The same member with stiffness of unit size (4EI/L = 1, EA/L = 1): its null space is the structure's
         /// mechanisms, free of the conditioning that very different real stiffnesses bring. Built when first needed.
         /// </summary>
-        public double[,] UnitGlobalK => _unit ??= Unit();
+        public Mat6 UnitGlobalK => _unit ??= Unit();
 
-        private double[,] Unit()
+        private Mat6 Unit()
         {
             var ku = ElementMatrices.LocalStiffness(Length / 4, Elastic ? Length : 0, Length);
             var (kuc, _) = ElementMatrices.Condense(ku, new double[6], Released);

@@ -142,49 +142,70 @@ internal static class Ordering
     public static int[] ReverseCuthillMcKee(SparseSymmetricMatrix a)
     {
         int n = a.Size;
-        var adj = new List<int>[n];
-        for (int i = 0; i < n; i++) adj[i] = [];
+        if (n == 0) return [];
+        // Adjacency in compressed rows (two passes: count, then fill).
+        var degree = new int[n];
         for (int i = 0; i < n; i++)
             foreach (var (j, _) in a.LowerRow(i))
-                if (j != i) { adj[i].Add(j); adj[j].Add(i); }
-        var degree = adj.Select(l => l.Count).ToArray();
-        if (n == 0) return [];
-        var sorted = degree.Order().ToArray();
+                if (j != i) { degree[i]++; degree[j]++; }
+        var start = new int[n + 1];
+        for (int i = 0; i < n; i++) start[i + 1] = start[i] + degree[i];
+        var adj = new int[start[n]];
+        var fill = (int[])start.Clone();
+        for (int i = 0; i < n; i++)
+            foreach (var (j, _) in a.LowerRow(i))
+                if (j != i) { adj[fill[i]++] = j; adj[fill[j]++] = i; }
+        // Neighbours by increasing degree (insertion sort: the lists are short).
+        for (int i = 0; i < n; i++)
+            for (int k = start[i] + 1; k < start[i + 1]; k++)
+            {
+                int v = adj[k], dv = degree[v], m = k - 1;
+                while (m >= start[i] && degree[adj[m]] > dv) { adj[m + 1] = adj[m]; m--; }
+                adj[m + 1] = v;
+            }
+
+        var sorted = (int[])degree.Clone();
+        Array.Sort(sorted);
         int median = sorted[n / 2];
         // Only nodes far denser than the rest (the sway unknown of a very wide storey) are worth setting aside.
         int denseLimit = Math.Max(Math.Max(64, 10 * Math.Max(median, 1)), (int)(4 * Math.Sqrt(n)));
         var dense = new bool[n];
         for (int i = 0; i < n; i++) dense[i] = degree[i] > denseLimit;
-        foreach (var l in adj) l.Sort((x, y) => degree[x].CompareTo(degree[y]));
 
-        var order = new List<int>(n);
+        var order = new int[n];
+        int count = 0;
         var visited = (bool[])dense.Clone();
+        var level = new int[n];
+        var queue = new int[n];
         for (int seed = 0; seed < n; seed++)
         {
             if (visited[seed]) continue;
-            int startNode = PseudoPeripheral(seed, adj, dense);
-            var queue = new Queue<int>();
-            queue.Enqueue(startNode);
+            int startNode = PseudoPeripheral(seed, start, adj, dense, level, queue);
+            int head = 0, tail = 0;
+            queue[tail++] = startNode;
             visited[startNode] = true;
-            while (queue.Count > 0)
+            while (head < tail)
             {
-                int u = queue.Dequeue();
-                order.Add(u);
-                foreach (int w in adj[u])
-                    if (!visited[w]) { visited[w] = true; queue.Enqueue(w); }
+                int u = queue[head++];
+                order[count++] = u;
+                for (int k = start[u]; k < start[u + 1]; k++)
+                {
+                    int w = adj[k];
+                    if (!visited[w]) { visited[w] = true; queue[tail++] = w; }
+                }
             }
         }
-        order.Reverse();
-        for (int i = 0; i < n; i++) if (dense[i]) order.Add(i);
-        return [.. order];
+        Array.Reverse(order, 0, count);
+        for (int i = 0; i < n; i++) if (dense[i]) order[count++] = i;
+        return order;
     }
 
-    private static int PseudoPeripheral(int seed, List<int>[] adj, bool[] dense)
+    private static int PseudoPeripheral(int seed, int[] start, int[] adj, bool[] dense, int[] level, int[] queue)
     {
         int node = seed, lastDepth = -1;
         for (int pass = 0; pass < 4; pass++)
         {
-            var (far, depth) = Farthest(node, adj, dense);
+            var (far, depth) = Farthest(node, start, adj, dense, level, queue);
             if (depth <= lastDepth) break;
             lastDepth = depth;
             node = far;
@@ -192,19 +213,27 @@ internal static class Ordering
         return node;
     }
 
-    private static (int Node, int Depth) Farthest(int start, List<int>[] adj, bool[] dense)
+    /// <summary>Breadth-first from <paramref name="origin"/>: the last node reached and its depth.</summary>
+    private static (int Node, int Depth) Farthest(int origin, int[] start, int[] adj, bool[] dense, int[] level, int[] queue)
     {
-        var level = new Dictionary<int, int> { [start] = 0 };
-        var queue = new Queue<int>();
-        queue.Enqueue(start);
-        int far = start;
-        while (queue.Count > 0)
+        int head = 0, tail = 0;
+        queue[tail++] = origin;
+        level[origin] = 1; // 0 = not reached; depth + 1 otherwise
+        int far = origin;
+        while (head < tail)
         {
-            int u = queue.Dequeue();
+            int u = queue[head++];
             far = u;
-            foreach (int w in adj[u])
-                if (!dense[w] && level.TryAdd(w, level[u] + 1)) queue.Enqueue(w);
+            for (int k = start[u]; k < start[u + 1]; k++)
+            {
+                int w = adj[k];
+                if (dense[w] || level[w] != 0) continue;
+                level[w] = level[u] + 1;
+                queue[tail++] = w;
+            }
         }
-        return (far, level[far]);
+        int depth = level[far] - 1;
+        for (int q = 0; q < tail; q++) level[queue[q]] = 0; // reset only what was touched
+        return (far, depth);
     }
 }

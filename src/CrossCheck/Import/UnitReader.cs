@@ -15,6 +15,9 @@ public static partial class UnitReader
 {
     private static readonly Dictionary<string, (QuantityKind Kind, double ToSi)> Aliases = BuildAliases();
     // Building UnitsNet's full abbreviation table takes a large share of a second: only for spellings not in Aliases.
+    private static readonly Dictionary<string, (QuantityKind Kind, double ToSi)[]> AliasesAnyCase = Aliases
+        .GroupBy(kv => kv.Key, StringComparer.OrdinalIgnoreCase)
+        .ToDictionary(g => g.Key, g => g.Select(kv => kv.Value).ToArray(), StringComparer.OrdinalIgnoreCase);
     private static readonly Lazy<UnitParser> Parser = new(() => new UnitParser(UnitAbbreviationsCache.CreateDefault()));
 
     private static readonly Dictionary<QuantityKind, (Type UnitType, Enum Si)> Kinds = new()
@@ -60,13 +63,19 @@ public static partial class UnitReader
         }
         string norm = Normalize(raw);
         double factor;
-        if (Aliases.TryGetValue(norm, out var alias) && alias.Kind == kind) factor = alias.ToSi;
+        bool known = Aliases.TryGetValue(norm, out var alias);
+        if (known && alias.Kind == kind) factor = alias.ToSi;
+        else if (known) return null; // a known spelling of another quantity
         else
         {
             // Spellings of our own, case-insensitively when only one unit of this kind matches.
-            var matches = Aliases.Where(kv => kv.Value.Kind == kind && string.Equals(kv.Key, norm, StringComparison.OrdinalIgnoreCase))
-                .Select(kv => kv.Value.ToSi).Distinct().ToList();
+            var matches = AliasesAnyCase.TryGetValue(norm, out var folded)
+                ? folded.Where(a => a.Kind == kind).Select(a => a.ToSi).Distinct().ToList()
+                : [];
             if (matches.Count == 1) factor = matches[0];
+            else if (folded is not null) return null;
+            // A known unit followed by words ("m unless noted otherwise") is prose, not a unit.
+            else if (norm.IndexOf(' ') is int sp and > 0 && Aliases.ContainsKey(norm[..sp])) return null;
             else
             {
                 var (unitType, si) = Kinds[kind];

@@ -56,7 +56,7 @@ internal static partial class WorkingTableReader
                 problems.Add(new InputProblem(where, Messages.WorkingColumnNoUnit(cell, name)));
                 continue;
             }
-            columns.Add((i, new WorkingColumn(end.Value.Member, end.Value.End, cell, where, unit), unit));
+            columns.Add((i, new WorkingColumn(end.Value.Member, end.Value.End, name.Trim(), where, unit), unit));
         }
         if (stepCol < 0)
         {
@@ -107,7 +107,7 @@ internal static partial class WorkingTableReader
         return order.Select(c => new WorkingTable(c, columns.Select(x => x.Column).ToList(), byCase[c])).ToList();
     }
 
-    private static WorkingStep? ParseStep(string label)
+    internal static WorkingStep? ParseStep(string label)
     {
         // "balance 2", "CO-3", "Bal." and the like: drop the numbering and trailing dots.
         string s = TableSchema.Normalize(StepNumber().Replace(label, "")).TrimEnd('.', ' ');

@@ -15,6 +15,7 @@ public class MemoGoldenTests
     [Theory]
     [InlineData("footbridge.csv", "footbridge.md")]
     [InlineData("shed-frame", "shed-frame.md")]
+    [InlineData("school-hall.csv", "school-hall.md")]
     public void DemoMemo_MatchesTheGoldenFile(string demo, string golden)
     {
         string memo = RenderDemo(demo, MemoFormat.Markdown);

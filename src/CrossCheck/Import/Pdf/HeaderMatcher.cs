@@ -240,7 +240,20 @@ internal static partial class HeaderMatcher
     /// <summary>What one header cell's text stands for in a table of the format.</summary>
     internal sealed record CellMatch(ColumnSpec? Column, string Name, string? Unit, string? Subscript);
 
+    // Every line not yet in a table is tried as a header against every table of the format, and the same texts recur
+    // (member names, "udl", "fixed"): what a text stands for is remembered. Bounded, for long screening runs.
+    private static readonly System.Collections.Concurrent.ConcurrentDictionary<(TableSpec, string), CellMatch?> Matched = new();
+
     internal static CellMatch? MatchCell(TableSpec spec, string text)
+    {
+        if (Matched.TryGetValue((spec, text), out var known)) return known;
+        var m = MatchCellUncached(spec, text);
+        if (Matched.Count > 100_000) Matched.Clear();
+        Matched[(spec, text)] = m;
+        return m;
+    }
+
+    private static CellMatch? MatchCellUncached(TableSpec spec, string text)
     {
         string t = Geometry.Collapse(text).TrimEnd(':', '*', '†').Trim();
         if (t.Length == 0) return null;

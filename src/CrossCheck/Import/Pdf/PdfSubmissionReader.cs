@@ -347,6 +347,17 @@ public static class PdfSubmissionReader
         /// <summary>A wide end-moment table (one column per member end) in the long form: case, member, at, moment.</summary>
         private Segment? Wide(FoundTable t, List<MemberEnds>? geometry)
         {
+            // A table of member-end columns whose rows are steps (DF, FEM, balance, carry-over, final) is the author's
+            // moment-distribution working, not a table of results.
+            int stepK = -1;
+            for (int k = 0; k < t.Columns.Count; k++)
+            {
+                var h = t.Columns[k].Header!;
+                if (h.Subscript is null && TableSchema.Distribution.Column("step").Matches(TableSchema.Normalize(h.Printed))) stepK = k;
+            }
+            var labels = t.Placed.Select(p => stepK >= 0 ? p.Cells[stepK] ?? "" : p.Leading ?? "").ToList();
+            if (stepK >= 0 || (labels.Count >= 3 && labels.Count(l => WorkingTableReader.ParseStep(l) is not null) * 2 > labels.Count))
+                return Working(t, geometry, stepK, labels);
             var seg = new Segment(t.Spec, t);
             var caseCol = TableSchema.EndMoments.Column("case");
             var ends = new List<(int K, string Member, string At, string Printed)>();
@@ -414,6 +425,52 @@ public static class PdfSubmissionReader
                     string value = Cell(seg.Columns[3].Column, raw, style, t, line, printed);
                     seg.Rows.Add(new SegmentRow(line, [caseId, member, at, value], [casePrinted, printed, printed, raw]));
                 }
+            }
+            return seg;
+        }
+
+        /// <summary>A moment-distribution working table: case, step, and one column per member end named <c>member@joint</c>.</summary>
+        private Segment? Working(FoundTable t, List<MemberEnds>? geometry, int stepK, List<string> labels)
+        {
+            var seg = new Segment(TableSchema.Distribution, t);
+            var ends = new List<(int K, ColumnSpec Column)>();
+            string? unit = null;
+            for (int k = 0; k < t.Columns.Count; k++)
+            {
+                if (k == stepK) continue;
+                var h = t.Columns[k].Header!;
+                var where = new SourceRef(_file, "distribution", t.First.Number, h.Printed, t.First.Page);
+                if (h.Subscript is null || geometry is null) continue;
+                var readings = Resolve(h.Subscript, geometry);
+                if (readings.Count != 1)
+                {
+                    problems.Add(new InputProblem(where, readings.Count > 1
+                        ? Messages.PdfWideAmbiguous(h.Printed, readings.Select(r => $"member {r.Member} at {r.At}"))
+                        : Messages.PdfWideUnresolved(h.Printed, h.Subscript)));
+                    return null;
+                }
+                unit ??= h.Unit ?? t.UnitsRow?.GetValueOrDefault(k) ?? ExternalUnit(t, t.Columns[k], QuantityKind.Moment, false);
+                ends.Add((k, new ColumnSpec($"{readings[0].Member}@{readings[0].At}", ColumnType.Number, QuantityKind.Moment, false)));
+            }
+            if (ends.Count == 0) return null;
+            seg.Columns.Add(new SegmentColumn(TableSchema.Distribution.Column("case"), "case", null, null, "case"));
+            seg.Columns.Add(new SegmentColumn(TableSchema.Distribution.Column("step"), "step", null, null, "step"));
+            foreach (var (k, column) in ends) seg.Columns.Add(new SegmentColumn(column, column.Name, unit, null, t.Columns[k].Header!.Printed));
+            seg.WideFrom = ends.Select(e => t.Columns[e.K].Header!.Printed).ToList();
+            string caseId = CaptionCase(t) ?? "1";
+            for (int r = 0; r < t.Placed.Count; r++)
+            {
+                var line = t.RowLines[r];
+                var p = t.Placed[r];
+                var cells = new List<string> { caseId, Geometry.Collapse(labels[r]) };
+                var printed = new List<string> { caseId, labels[r] };
+                foreach (var (k, column) in ends)
+                {
+                    string raw = p.Cells[k] ?? "";
+                    cells.Add(Cell(column, raw, _style, t, line, column.Name));
+                    printed.Add(raw);
+                }
+                seg.Rows.Add(new SegmentRow(line, cells, printed));
             }
             return seg;
         }
@@ -527,9 +584,13 @@ public static class PdfSubmissionReader
                     : string.Create(CultureInfo.InvariantCulture, $"p.{g.Key} lines {first}-{last}");
             }));
             var columns = new List<string>();
-            if (s.WideFrom is { } wide)
+            if (s.WideFrom is { } wide && s.Spec == TableSchema.Distribution)
             {
-                columns.Add($"{string.Join(", ", wide)} → case, member, at, moment{(s.Columns[3].EffectiveUnit is { } u ? $" [{u}]" : "")}");
+                columns.Add($"{string.Join(", ", wide)} → {string.Join(", ", s.Columns.Skip(2).Select(c => c.Header))}{(s.Columns.Count > 2 && s.Columns[2].EffectiveUnit is { } du ? $" [{du}]" : "")}");
+            }
+            else if (s.WideFrom is { } wide2)
+            {
+                columns.Add($"{string.Join(", ", wide2)} → case, member, at, moment{(s.Columns[3].EffectiveUnit is { } u ? $" [{u}]" : "")}");
             }
             else
             {
@@ -541,7 +602,8 @@ public static class PdfSubmissionReader
                     columns.Add($"{c.Printed} → {c.Column.Name}{unit}{from}");
                 }
             }
-            string? note = s.WideFrom is not null ? "one column per member end, turned into one row per member end"
+            string? note = s.Spec == TableSchema.Distribution ? "a moment-distribution working table, one column per member end"
+                : s.WideFrom is not null ? "one column per member end, turned into one row per member end"
                 : s.Source.RowCase.Count > 0 ? "load case taken from the labels between rows" : null;
             return new PdfTableReport(s.Spec.Name, where, s.Rows.Count, columns, note);
         }

@@ -86,6 +86,23 @@ internal static class PdfTextReader
             var tree = PdfCost.Pages(pdf, n);
             var pages = new List<TextPage>();
             int imagePages = 0, textPages = 0, invisiblePages = 0;
+            // The library reads page i on this thread while page i - 1's letters become lines on another core.
+            (Page Page, Task<(List<TextLine> Lines, int Invisible, int Rotated, bool Sideways)> Lines)? pending = null;
+            void Finish((Page Page, Task<(List<TextLine> Lines, int Invisible, int Rotated, bool Sideways)> Lines) p)
+            {
+                var page = p.Page;
+                int i = page.Number;
+                var (lines, invisible, rotated, sideways) = p.Lines.GetAwaiter().GetResult();
+                var pageRef = new SourceRef(display, null, null, null, i);
+                int images = lines.Count == 0 ? SafeImageCount(page) : 0;
+                int visible = lines.Sum(l => l.Text.Count(c => !char.IsWhiteSpace(c)));
+                // A page whose text is mostly invisible is an OCR layer over a scan, even with a printed page number.
+                if (invisible > 0 && invisible > 4 * visible) { invisiblePages++; problems.Add(new InputProblem(pageRef, Messages.PdfPageInvisibleText, ProblemSeverity.Warning)); }
+                else if (lines.Count > 0) textPages++;
+                else if (images > 0) { imagePages++; problems.Add(new InputProblem(pageRef, Messages.PdfPageImageOnly, ProblemSeverity.Warning)); }
+                if (rotated > 0 && lines.Count > 0) problems.Add(new InputProblem(pageRef, Messages.PdfRotatedText(rotated), ProblemSeverity.Warning));
+                pages.Add(sideways ? new TextPage(i, page.Height, page.Width, lines, images) : new TextPage(i, page.Width, page.Height, lines, images));
+            }
             for (int i = 1; i <= n; i++)
             {
                 progress.Page = i;
@@ -114,16 +131,13 @@ internal static class PdfTextReader
                     problems.Add(new InputProblem(pageRef, Messages.PdfTooManyLetters(letters.Count, limits.MaxLettersPerPage)));
                     return (null, problems);
                 }
-                var (lines, invisible, rotated, sideways) = BuildLines(letters, i, page.Width, page.Height);
-                int images = lines.Count == 0 ? SafeImageCount(page) : 0;
-                int visible = lines.Sum(l => l.Text.Count(c => !char.IsWhiteSpace(c)));
-                // A page whose text is mostly invisible is an OCR layer over a scan, even with a printed page number.
-                if (invisible > 0 && invisible > 4 * visible) { invisiblePages++; problems.Add(new InputProblem(pageRef, Messages.PdfPageInvisibleText, ProblemSeverity.Warning)); }
-                else if (lines.Count > 0) textPages++;
-                else if (images > 0) { imagePages++; problems.Add(new InputProblem(pageRef, Messages.PdfPageImageOnly, ProblemSeverity.Warning)); }
-                if (rotated > 0 && lines.Count > 0) problems.Add(new InputProblem(pageRef, Messages.PdfRotatedText(rotated), ProblemSeverity.Warning));
-                pages.Add(sideways ? new TextPage(i, page.Height, page.Width, lines, images) : new TextPage(i, page.Width, page.Height, lines, images));
+                double width = page.Width, height = page.Height;
+                int number = i;
+                var building = Task.Run(() => BuildLines(letters, number, width, height), CancellationToken.None);
+                if (pending is { } previous) Finish(previous);
+                pending = (page, building);
             }
+            if (pending is { } last) Finish(last);
             if (textPages == 0)
             {
                 problems.RemoveAll(p => p.Where.Page is not null && !p.IsError);

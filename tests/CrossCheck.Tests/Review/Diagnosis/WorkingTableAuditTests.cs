@@ -114,3 +114,25 @@ public class WorkingTableAuditTests
         result.Errors.ShouldContain(e => e.Where.Column == "S9@J3" && e.Where.Table == "distribution");
     }
 }
+
+/// <summary>The school-hall demo: a student's table with a carry-over written with the wrong sign, as CSV and as a PDF.</summary>
+public class WorkingTableDemoTests
+{
+    [Theory]
+    [InlineData("school-hall.csv", "carry-over 2", "school-hall.csv line 49")]
+    [InlineData("school-hall.pdf", "C.O. 2", "school-hall.pdf p.2 line 11")]
+    public void StudentTable_FirstWrongCellAndCause(string demo, string row, string citation)
+    {
+        var outcome = ReviewPipeline.Run(CliRunner.Demo(demo), new ReviewOptions(Date: new DateOnly(2026, 12, 1)));
+        var review = outcome.Review.ShouldNotBeNull(string.Join("\n", outcome.Errors));
+        var c = review.Cases.ShouldHaveSingleItem();
+        var first = c.Audit.ShouldNotBeNull().First.ShouldNotBeNull();
+        first.Row.ShouldBe(row);
+        first.Column.ShouldBe("BC@C");
+        first.Source.Citation.ShouldBe(citation);
+        // Carry-over = ½ × the balance at B of member BC in the row before (4.45 kN·m): +2.23, written −2.23 (common practice).
+        first.Found.ShouldBe(-2230, 1e-6);
+        first.Expected.ShouldBe(0.5 * 4450, 1e-6);
+        c.Causes[0].Code.ShouldBe("distribution-arithmetic");
+    }
+}
