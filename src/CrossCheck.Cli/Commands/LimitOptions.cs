@@ -5,32 +5,33 @@ namespace CrossCheck.Cli.Commands;
 
 /// <summary>
 /// The options that set <see cref="InputLimits"/>: the commands that read submissions all take them, with the library's
-/// defaults as their defaults.
+/// defaults (the library's, unless the command has its own) as their defaults.
 /// </summary>
 internal sealed class LimitOptions
 {
-    private static readonly InputLimits Defaults = InputLimits.Default;
+    private readonly InputLimits _defaults;
+    private readonly Option<int> _maxPages;
+    private readonly Option<double> _timeLimit;
+    private readonly Option<int> _maxRows;
+    private readonly Option<int> _maxMembers;
+    private readonly Option<double> _maxFileMb;
 
-    private readonly Option<int> _maxPages = new("--max-pages")
+    public LimitOptions(InputLimits? defaults = null)
     {
-        Description = "Read PDFs of at most this many pages.", DefaultValueFactory = _ => Defaults.Pdf.MaxPages,
-    };
-    private readonly Option<double> _timeLimit = new("--time-limit")
-    {
-        Description = "Give up reading a PDF after this many seconds.", DefaultValueFactory = _ => Defaults.Pdf.TimeBudget.TotalSeconds,
-    };
-    private readonly Option<int> _maxRows = new("--max-rows")
-    {
-        Description = "Read tables of at most this many rows.", DefaultValueFactory = _ => Defaults.MaxRows,
-    };
-    private readonly Option<int> _maxMembers = new("--max-members")
-    {
-        Description = "Analyse structures of at most this many members (and twice as many joints).", DefaultValueFactory = _ => Defaults.MaxMembers,
-    };
-    private readonly Option<double> _maxFileMb = new("--max-file-mb")
-    {
-        Description = "Read CSV files of at most this many megabytes (PDFs: five times as many).", DefaultValueFactory = _ => Defaults.MaxFileBytes / (1024.0 * 1024),
-    };
+        _defaults = defaults ?? InputLimits.Default;
+        var d = _defaults;
+        _maxPages = new("--max-pages") { Description = "Read PDFs of at most this many pages.", DefaultValueFactory = _ => d.Pdf.MaxPages };
+        _timeLimit = new("--time-limit") { Description = "Give up reading a PDF after this many seconds.", DefaultValueFactory = _ => d.Pdf.TimeBudget.TotalSeconds };
+        _maxRows = new("--max-rows") { Description = "Read tables of at most this many rows.", DefaultValueFactory = _ => d.MaxRows };
+        _maxMembers = new("--max-members")
+        {
+            Description = "Analyse structures of at most this many members (and twice as many joints).", DefaultValueFactory = _ => d.MaxMembers,
+        };
+        _maxFileMb = new("--max-file-mb")
+        {
+            Description = "Read CSV files of at most this many megabytes (PDFs: five times as many).", DefaultValueFactory = _ => d.MaxFileBytes / (1024.0 * 1024),
+        };
+    }
 
     public void AddTo(Command command)
     {
@@ -57,17 +58,17 @@ internal sealed class LimitOptions
             return null;
         }
         long bytes = (long)(megabytes * 1024 * 1024);
-        return Defaults with
+        return _defaults with
         {
             MaxRows = rows,
             MaxMembers = members,
             MaxJoints = 2 * members,
             MaxFileBytes = bytes,
-            Pdf = Defaults.Pdf with
+            Pdf = _defaults.Pdf with
             {
                 MaxPages = pages,
                 TimeBudget = TimeSpan.FromSeconds(seconds),
-                MaxFileBytes = Math.Max(Defaults.Pdf.MaxFileBytes * bytes / Defaults.MaxFileBytes, 1),
+                MaxFileBytes = Math.Max(_defaults.Pdf.MaxFileBytes * bytes / _defaults.MaxFileBytes, 1),
             },
         };
     }

@@ -8,13 +8,22 @@ namespace CrossCheck.Cli.Commands;
 /// <summary><c>crosscheck solve SUBMISSION</c>: prints the recomputed end moments.</summary>
 internal static class SolveCommand
 {
+    /// <summary>
+    /// Recomputing a model needs no claims, and without a diagnosis to run a large frame costs little (the skyline
+    /// solver handles 100,000 unknowns in about a second), so solve reads far bigger structures than review.
+    /// </summary>
+    private static readonly Import.InputLimits SolveLimits = Import.InputLimits.Default with
+    {
+        ClaimsRequired = false, MaxMembers = 50_000, MaxJoints = 100_000, MaxRows = 200_000,
+    };
+
     public static Command Create(CliIo io)
     {
         var submission = new Argument<string>("submission") { Description = "A folder of CSV tables, a single CSV file with [table] sections, or a text PDF." };
         var format = new Option<string>("--format", "-f") { Description = "Output format.", DefaultValueFactory = _ => "table" };
         format.AcceptOnlyFromAmong("table", "csv", "json");
         var output = new Option<string?>("--out", "-o") { Description = "Write to this file instead of standard output." };
-        var limitOptions = new LimitOptions();
+        var limitOptions = new LimitOptions(SolveLimits);
         var cmd = new Command("solve", "Recompute every member end moment of a submission with the independent stiffness solver.")
         {
             submission, format, output,

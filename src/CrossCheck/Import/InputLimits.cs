@@ -53,4 +53,10 @@ public sealed record InputLimits
 
     /// <summary>Bounds on reading a PDF (pages, time, size, letters, decoded streams, nesting).</summary>
     public PdfLimits Pdf { get; init; } = PdfLimits.Default;
+
+    /// <summary>
+    /// Whether a submission must hold the claims (the <c>end-moments</c> table). A review has nothing to judge without
+    /// them; recomputing the end moments of a model (<c>crosscheck solve</c>) needs none.
+    /// </summary>
+    public bool ClaimsRequired { get; init; } = true;
 }

@@ -610,7 +610,11 @@ public sealed class SubmissionBuilder
 
     private Claims ReadClaims(UnitDefaults defaults, StructureModel model, SignConvention sign, List<LoadCase> cases)
     {
-        if (!_tables.TryGetValue("end-moments", out var t)) { MissingTable("end-moments", "it holds the moments under review"); return Claims.None; }
+        if (!_tables.TryGetValue("end-moments", out var t))
+        {
+            if (_limits.ClaimsRequired) MissingTable("end-moments", "it holds the moments under review");
+            return Claims.None;
+        }
         var v = new TableView(t, TableSchema.EndMoments, defaults, _problems, limits: _limits);
         Remember(v, "moment", QuantityKind.Moment);
         var caseIds = cases.Select(c => c.Id).ToHashSet(StringComparer.Ordinal);

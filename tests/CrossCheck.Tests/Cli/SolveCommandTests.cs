@@ -89,6 +89,23 @@ public class SolveCommandTests
         version.Out.Trim().ShouldStartWith("0.1.0");
     }
 
+    [Fact]
+    public void Solve_NeedsNoClaims_ButReviewDoes()
+    {
+        var dir = Directory.CreateTempSubdirectory("crosscheck-cli-").FullName;
+        foreach (var f in Directory.GetFiles(CliRunner.Demo("shed-frame"), "*.csv"))
+            if (Path.GetFileName(f) is not ("end-moments.csv" or "distribution.csv")) File.Copy(f, Path.Combine(dir, Path.GetFileName(f)));
+
+        var solve = CliRunner.Run("solve", dir, "--format", "csv");
+        solve.ExitCode.ShouldBe(ExitCodes.Concur, solve.Err);
+        // Hand moment distribution at B of the symmetric shed frame (see Solve_Json_IsValidAndInTheSubmissionsUnits): 57.81 kN·m.
+        solve.Out.ShouldContain("G,AB,B,57.81");
+
+        var review = CliRunner.Run("review", dir, "--quiet");
+        review.ExitCode.ShouldBe(ExitCodes.InputError);
+        review.Err.ShouldContain("no 'end-moments' table");
+    }
+
     private static string TempFile(string text)
     {
         var dir = Directory.CreateTempSubdirectory("crosscheck-cli-").FullName;
