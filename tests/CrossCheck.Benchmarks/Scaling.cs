@@ -29,21 +29,37 @@ public static class Scaling
 /// <summary>Review time of one submission in a warm process, stage by stage (to separate start-up from work).</summary>
 public static class WarmReview
 {
-    public static void Run(string path)
+    /// <summary>
+    /// Stage times of one review repeated in a warm process (least of the rounds after 3 warm-ups; default 20): where a
+    /// batch spends its time. Many rounds make a steady load for a profiler.
+    /// </summary>
+    public static void Run(string path, int rounds = 20)
     {
-        for (int round = 0; round < 4; round++)
+        var best = new Dictionary<string, double>();
+        for (int round = 0; round < rounds + 3; round++)
         {
+            var times = new List<(string Stage, double Ms)>();
             var sw = Stopwatch.StartNew();
+            void Lap(string stage) { times.Add((stage, sw.Elapsed.TotalMilliseconds)); sw.Restart(); }
             var imported = CrossCheck.Import.SubmissionReader.Read(path);
-            long read = sw.ElapsedMilliseconds; sw.Restart();
-            var s = imported.Submission!;
+            Lap("read");
+            var s = imported.Submission ?? throw new InvalidOperationException("the submission does not read");
             var a = new FrameSolver().Solve(s.Model, s.Cases);
-            long solve = sw.ElapsedMilliseconds; sw.Restart();
+            Lap("solve");
             var r = CrossCheck.Review.ReviewEngine.Review(s, a);
-            long review = sw.ElapsedMilliseconds; sw.Restart();
-            var json = CrossCheck.Memo.ReviewJson.Write(r);
-            long render = sw.ElapsedMilliseconds;
-            Console.WriteLine($"round {round}: read {read} ms, solve {solve} ms, review {review} ms, json {render} ms ({json.Length} chars)");
+            Lap("review + diagnosis");
+            CrossCheck.Memo.ReviewJson.Write(r);
+            Lap("json");
+            CrossCheck.Memo.MemoRenderer.Render(new CrossCheck.Memo.MemoModel(r, null), CrossCheck.Memo.MemoFormat.Markdown);
+            Lap("markdown memo");
+            var diagrams = CrossCheck.Memo.Diagrams.MemoDiagrams.For(r);
+            Lap("diagrams");
+            CrossCheck.Memo.MemoRenderer.Render(new CrossCheck.Memo.MemoModel(r, diagrams), CrossCheck.Memo.MemoFormat.Html);
+            Lap("html memo");
+            if (round < 3) continue;
+            foreach (var (stage, ms) in times)
+                best[stage] = best.TryGetValue(stage, out double b) ? Math.Min(b, ms) : ms;
         }
+        foreach (var (stage, ms) in best) Console.WriteLine($"{stage,-30} {ms,8:0.00} ms");
     }
 }
