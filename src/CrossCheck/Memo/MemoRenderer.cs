@@ -81,7 +81,7 @@ public static class MemoRenderer
         ArgumentNullException.ThrowIfNull(templateText);
         var template = Parsed(templateText, templateName);
         using var deadline = new CancellationTokenSource(RenderTimeLimit);
-        var context = new TemplateContext
+        var context = new SharedAccessorContext
         {
             StrictVariables = true,
             EnableRelaxedMemberAccess = false,
@@ -108,6 +108,26 @@ public static class MemoRenderer
         catch (OperationCanceledException ex)
         {
             throw new MemoTemplateException($"{templateName}: rendering took longer than {RenderTimeLimit.TotalSeconds:0} s and was stopped", ex);
+        }
+    }
+
+    /// <summary>
+    /// A context that keeps what it learns about a .NET type's visible properties for every later render: building
+    /// that by reflection cost more than the rest of rendering a memo, and a batch renders hundreds. Safe to share
+    /// because every context here uses the same <see cref="Visible"/> filter and member names.
+    /// </summary>
+    private sealed class SharedAccessorContext : TemplateContext
+    {
+        private static readonly System.Collections.Concurrent.ConcurrentDictionary<Type, IObjectAccessor> Accessors = new();
+
+        protected override IObjectAccessor GetMemberAccessorImpl(object target)
+        {
+            // Scriban itself keeps accessors per type (for one context); this keeps them for all.
+            var type = target.GetType();
+            if (Accessors.TryGetValue(type, out var known)) return known;
+            var accessor = base.GetMemberAccessorImpl(target);
+            if (accessor is not null) Accessors.TryAdd(type, accessor);
+            return accessor!;
         }
     }
 
