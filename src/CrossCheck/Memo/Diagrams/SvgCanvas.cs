@@ -19,6 +19,7 @@ internal sealed class SvgCanvas
     public static string Escape(string text)
     {
         ArgumentNullException.ThrowIfNull(text);
+        if (!NeedsEscape(text)) return text;
         var sb = new StringBuilder(text.Length + 8);
         foreach (char c in text)
         {
@@ -39,11 +40,23 @@ internal sealed class SvgCanvas
         return sb.ToString();
     }
 
+    /// <summary>Most of a drawing's text (numbers, colours, class names) has nothing to escape.</summary>
+    private static bool NeedsEscape(string text)
+    {
+        foreach (char c in text)
+            if (c is '&' or '<' or '>' or '"' or '\'' || (c < ' ' && c != '\t' && c != '\n' && c != '\r')) return true;
+        return false;
+    }
+
     /// <summary>A coordinate with at most two decimals, invariant culture, no "-0".</summary>
     public static string N(double v)
     {
-        string s = Math.Round(v, 2).ToString("0.##", CultureInfo.InvariantCulture);
-        return s == "-0" ? "0" : s;
+        double r = Math.Round(v, 2);
+        if (r == 0) return "0";
+        // The shortest round-trip text of a value rounded to hundredths has at most two decimals: the same text as the
+        // format "0.##", at a fraction of its cost (a drawing writes thousands of coordinates).
+        if (Math.Abs(r) < 1e14) return r.ToString(CultureInfo.InvariantCulture);
+        return r.ToString("0.##", CultureInfo.InvariantCulture);
     }
 
     public void Extend(Pt p) => _bounds = _bounds.Include(p);
