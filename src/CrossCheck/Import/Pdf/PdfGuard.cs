@@ -89,7 +89,7 @@ internal static class StreamSizes
             ? new MemoryStream(segment.Array!, segment.Offset + 2, segment.Count - 2, writable: false)
             : new MemoryStream(input[2..].ToArray(), writable: false);
         long total = 0;
-        var buffer = new byte[64 * 1024];
+        var buffer = System.Buffers.ArrayPool<byte>.Shared.Rent(64 * 1024);
         try
         {
             using var inflate = new DeflateStream(source, CompressionMode.Decompress);
@@ -103,6 +103,10 @@ internal static class StreamSizes
         catch (InvalidDataException)
         {
             // Damaged data: what inflated before the damage is what the parser will get at most.
+        }
+        finally
+        {
+            System.Buffers.ArrayPool<byte>.Shared.Return(buffer);
         }
         return total;
     }

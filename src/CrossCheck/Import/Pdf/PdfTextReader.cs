@@ -19,6 +19,7 @@ internal static class PdfTextReader
 {
     public static TextDocument? Read(string path, string display, PdfLimits limits, List<InputProblem> problems)
     {
+        PreloadFontMetrics();
         var whole = new SourceRef(display);
         var info = new FileInfo(path);
         if (info.Length == 0) { problems.Add(new InputProblem(whole, Messages.PdfEmptyFile)); return null; }
@@ -49,6 +50,30 @@ internal static class PdfTextReader
         var (doc, found) = task.Result;
         problems.AddRange(found);
         return doc;
+    }
+
+    private static int _fontMetricsStarted;
+
+    /// <summary>
+    /// The PDF library parses the metrics of all standard 14 fonts (text files, tens of milliseconds) the first time a
+    /// document is opened in the process, whether the document uses them or not. Started here on another core, that
+    /// work overlaps reading the file and its cross-reference table; opening the document waits for it as before.
+    /// </summary>
+    private static void PreloadFontMetrics()
+    {
+        if (Interlocked.Exchange(ref _fontMetricsStarted, 1) != 0) return;
+        _ = Task.Run(static () =>
+        {
+            try
+            {
+                _ = UglyToad.PdfPig.Fonts.Standard14Fonts.Standard14.IsFontInStandard14("Helvetica");
+            }
+#pragma warning disable CA1031 // A failure here recurs, and is reported, when the document is opened.
+            catch (Exception)
+#pragma warning restore CA1031
+            {
+            }
+        });
     }
 
     private sealed class Progress

@@ -52,8 +52,13 @@ internal static class TableLayout
     {
         var placed = new List<Placed>();
         int firstBad = lines.Count;
+        bool moved = true;
         for (int pass = 0; pass < 3; pass++)
         {
+            // A line's placement depends only on the columns' extents: when the second pass left them as it found
+            // them, the third would repeat it exactly.
+            if (pass == 2 && !moved) break;
+            moved = false;
             placed.Clear();
             var edges = columns.Select(_ => (Lefts: new List<double>(), Rights: new List<double>())).ToList();
             firstBad = lines.Count;
@@ -70,7 +75,9 @@ internal static class TableLayout
                 if (ls.Count == 0) continue;
                 ls.Sort();
                 rs.Sort();
-                columns[k].Data = (ls[ls.Count / 2], rs[rs.Count / 2]);
+                var data = (ls[ls.Count / 2], rs[rs.Count / 2]);
+                if (columns[k].Data != data) moved = true;
+                columns[k].Data = data;
             }
         }
         return (placed, firstBad);
