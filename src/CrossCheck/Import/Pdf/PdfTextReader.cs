@@ -334,7 +334,12 @@ internal static class PdfTextReader
         }
         made.Sort((a, b) => b.Baseline.CompareTo(a.Baseline));
         var lines = new List<TextLine>(made.Count);
-        for (int i = 0; i < made.Count; i++) lines.Add(new TextLine(pageNumber, i + 1, made[i].Words, made[i].Baseline, made[i].Size, made[i].Space));
+        for (int i = 0; i < made.Count; i++)
+        {
+            var line = new TextLine(pageNumber, i + 1, made[i].Words, made[i].Baseline, made[i].Size, made[i].Space);
+            _ = line.Chunks(); // cut here, on this core, rather than while the tables are looked for
+            lines.Add(line);
+        }
         return (lines, invisible, rotated, sideways);
     }
 
