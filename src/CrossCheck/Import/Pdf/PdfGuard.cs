@@ -74,7 +74,8 @@ internal sealed class GuardedFilterProvider(DecodeBudget budget) : IFilterProvid
             {
                 foreach (var e in _entries)
                 {
-                    if (ReferenceEquals(e.Dictionary, dictionary) && e.Index == index && input.SequenceEqual(e.Input))
+                    // The parser reads the page's stream anew: the same dictionary and bytes, not the same objects.
+                    if (e.Index == index && input.SequenceEqual(e.Input) && (ReferenceEquals(e.Dictionary, dictionary) || e.Dictionary.Equals((IToken)dictionary)))
                     {
                         output = e.Output.ToArray();
                         expected = e.Expected;
