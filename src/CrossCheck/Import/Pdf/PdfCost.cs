@@ -116,7 +116,7 @@ internal static class PdfCost
         {
             long letters = 0, operations = 0;
             var total = default(Cost);
-            string? lastName = null;
+            int nameStart = -1, nameEnd = -1; // the last name operand, made a string only when a form is painted
             for (int i = 0; i < content.Length; i++)
             {
                 byte c = content[i];
@@ -136,8 +136,12 @@ internal static class PdfCost
                         continue;
                     case (byte)'<':
                     {
+                        int close = content[(i + 1)..].IndexOf((byte)'>');
+                        var hex = close < 0 ? content[(i + 1)..] : content.Slice(i + 1, close);
                         int digits = 0;
-                        for (i++; i < content.Length && content[i] != '>'; i++) if (Uri.IsHexDigit((char)content[i])) digits++;
+                        if (!hex.ContainsAnyExcept(HexDigits)) digits = hex.Length;
+                        else foreach (byte b in hex) if (Uri.IsHexDigit((char)b)) digits++;
+                        i += 1 + hex.Length;
                         letters += digits / 2;
                         continue;
                     }
@@ -146,14 +150,14 @@ internal static class PdfCost
                     case (byte)'/':
                     {
                         int start = ++i;
-                        while (i < content.Length && !IsWhite(content[i]) && !IsDelimiter(content[i])) i++;
-                        lastName = System.Text.Encoding.Latin1.GetString(content[start..i]);
+                        i = EndOfWord(content, i);
+                        (nameStart, nameEnd) = (start, i);
                         i--;
                         continue;
                     }
                 }
                 int from = i;
-                while (i < content.Length && !IsWhite(content[i]) && !IsDelimiter(content[i])) i++;
+                i = EndOfWord(content, i);
                 var word = content[from..i];
                 i--;
                 if (word.Length == 0 || !(char.IsAsciiLetter((char)word[0]) || word[0] is (byte)'\'' or (byte)'"')) continue; // a number
@@ -164,9 +168,9 @@ internal static class PdfCost
                     int end = content[(i + 1)..].IndexOf("EI"u8);
                     i = end < 0 ? content.Length : i + 1 + end + 1;
                 }
-                else if (word.SequenceEqual("Do"u8) && lastName is not null)
+                else if (word.SequenceEqual("Do"u8) && nameStart >= 0)
                 {
-                    total += Form(resources, lastName, depth);
+                    total += Form(resources, System.Text.Encoding.Latin1.GetString(content[nameStart..nameEnd]), depth);
                     if (Over(total + new Cost(letters, operations))) break;
                 }
             }
@@ -220,6 +224,18 @@ internal static class PdfCost
         s[i..].StartsWith(word) && (i == 0 || IsWhite(s[i - 1]) || s[i - 1] == '>') && i + word.Length < s.Length && IsWhite(s[i + word.Length]);
 
     private static bool IsWhite(byte c) => c is 0 or 9 or 10 or 12 or 13 or 32;
+
+    private static readonly System.Buffers.SearchValues<byte> HexDigits = System.Buffers.SearchValues.Create("0123456789ABCDEFabcdef"u8);
+
+    /// <summary>White space and delimiters: where a word (a number, an operator, a name) ends.</summary>
+    private static readonly System.Buffers.SearchValues<byte> WordEnds = System.Buffers.SearchValues.Create([0, 9, 10, 12, 13, 32, .. "()<>[]{}/%"u8]);
+
+    /// <summary>The index of the first white space or delimiter at or after <paramref name="i"/> (the length when none).</summary>
+    private static int EndOfWord(ReadOnlySpan<byte> s, int i)
+    {
+        int n = s[i..].IndexOfAny(WordEnds);
+        return n < 0 ? s.Length : i + n;
+    }
 
     private static bool IsDelimiter(byte c) => c is (byte)'(' or (byte)')' or (byte)'<' or (byte)'>' or (byte)'[' or (byte)']' or (byte)'{' or (byte)'}' or (byte)'/' or (byte)'%';
 }

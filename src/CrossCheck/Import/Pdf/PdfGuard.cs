@@ -54,16 +54,72 @@ internal sealed class GuardedFilterProvider(DecodeBudget budget) : IFilterProvid
 
     public IReadOnlyList<IFilter> GetAllFilters() => Wrap(_inner.GetAllFilters());
 
-    private IReadOnlyList<IFilter> Wrap(IReadOnlyList<IFilter> filters) => filters.Select(f => (IFilter)new GuardedFilter(f, budget)).ToList();
+    private readonly RecentlyDecoded _recent = new();
 
-    private sealed class GuardedFilter(IFilter inner, DecodeBudget budget) : IFilter
+    private IReadOnlyList<IFilter> Wrap(IReadOnlyList<IFilter> filters) => filters.Select(f => (IFilter)new GuardedFilter(f, budget, _recent)).ToList();
+
+    /// <summary>
+    /// The last few compressed streams decoded, with their output: a page's content is decoded once to measure its
+    /// cost (<see cref="PdfCost"/>) and again by the parser. A repeat is charged to the budget as before, but not inflated twice.
+    /// </summary>
+    private sealed class RecentlyDecoded
+    {
+        private const int Entries = 4;
+        private const int MaxOutputBytes = 4 * 1024 * 1024;
+        private readonly List<(DictionaryToken Dictionary, int Index, byte[] Input, byte[] Output, long Expected)> _entries = [];
+
+        public bool TryGet(DictionaryToken dictionary, int index, ReadOnlySpan<byte> input, out byte[] output, out long expected)
+        {
+            lock (_entries)
+            {
+                foreach (var e in _entries)
+                {
+                    // The parser reads the page's stream anew: the same dictionary and bytes, not the same objects.
+                    if (e.Index == index && input.SequenceEqual(e.Input) && (ReferenceEquals(e.Dictionary, dictionary) || e.Dictionary.Equals((IToken)dictionary)))
+                    {
+                        output = e.Output.ToArray();
+                        expected = e.Expected;
+                        return true;
+                    }
+                }
+            }
+            output = [];
+            expected = 0;
+            return false;
+        }
+
+        public void Add(DictionaryToken dictionary, int index, ReadOnlySpan<byte> input, ReadOnlySpan<byte> output, long expected)
+        {
+            if (output.Length > MaxOutputBytes) return;
+            lock (_entries)
+            {
+                if (_entries.Count == Entries) _entries.RemoveAt(0);
+                _entries.Add((dictionary, index, input.ToArray(), output.ToArray(), expected));
+            }
+        }
+    }
+
+    private sealed class GuardedFilter(IFilter inner, DecodeBudget budget, RecentlyDecoded recent) : IFilter
     {
         public bool IsSupported => inner.IsSupported;
 
         public Memory<byte> Decode(Memory<byte> input, DictionaryToken streamDictionary, IFilterProvider filterProvider, int filterIndex)
         {
+            if (inner is FlateFilter && recent.TryGet(streamDictionary, filterIndex, input.Span, out var known, out long charged))
+            {
+                budget.Take(charged);
+                if (charged == 0) budget.Take(known.Length);
+                return known;
+            }
+            var output = DecodeMeasured(input, streamDictionary, filterProvider, filterIndex, out long expected);
+            if (inner is FlateFilter) recent.Add(streamDictionary, filterIndex, input.Span, output.Span, expected);
+            return output;
+        }
+
+        private Memory<byte> DecodeMeasured(Memory<byte> input, DictionaryToken streamDictionary, IFilterProvider filterProvider, int filterIndex, out long expected)
+        {
             long cap = budget.Limits.MaxStreamBytes + 1;
-            long expected = inner switch
+            expected = inner switch
             {
                 FlateFilter => StreamSizes.Inflated(input, cap),
                 LzwFilter => StreamSizes.Lzw(input.Span, cap),
@@ -89,7 +145,7 @@ internal static class StreamSizes
             ? new MemoryStream(segment.Array!, segment.Offset + 2, segment.Count - 2, writable: false)
             : new MemoryStream(input[2..].ToArray(), writable: false);
         long total = 0;
-        var buffer = new byte[64 * 1024];
+        var buffer = System.Buffers.ArrayPool<byte>.Shared.Rent(64 * 1024);
         try
         {
             using var inflate = new DeflateStream(source, CompressionMode.Decompress);
@@ -103,6 +159,10 @@ internal static class StreamSizes
         catch (InvalidDataException)
         {
             // Damaged data: what inflated before the damage is what the parser will get at most.
+        }
+        finally
+        {
+            System.Buffers.ArrayPool<byte>.Shared.Return(buffer);
         }
         return total;
     }

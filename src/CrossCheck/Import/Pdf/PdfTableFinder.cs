@@ -140,7 +140,7 @@ internal sealed partial class PdfTableFinder
         double size = t.First.Size;
         bool hasCase = t.Spec.Columns.Any(c => c.Name == "case") && !t.Header.Cells.Any(c => c.Column?.Name == "case") && !t.Header.IsWide;
         var entries = new List<(int Index, TextLine Line, string? Label)>();
-        var pitches = new List<double>();
+        var pitches = new List<double>(); // kept sorted
         bool toFoot = true;
         double? last = lastBaseline;
         while (j < _lines.Count && _lines[j].Page == page)
@@ -148,7 +148,7 @@ internal sealed partial class PdfTableFinder
             var line = _lines[j];
             if (Furniture.Contains(line)) { j++; continue; }
             double gap = last is double b ? b - line.Baseline : 0;
-            double limit = pitches.Count == 0 ? 3.5 * size : Math.Max(2.2 * Median(pitches), 1.9 * size);
+            double limit = pitches.Count == 0 ? 3.5 * size : Math.Max(2.2 * pitches[pitches.Count / 2], 1.9 * size);
             string? label = hasCase && line.Chunks().Count == 1 ? PdfStatements.CaseLabel(line.Text) : null;
             bool stop = gap > limit
                         || line.Size > 1.25 * size || line.Size < 0.7 * size
@@ -175,7 +175,11 @@ internal sealed partial class PdfTableFinder
                 continue;
             }
             entries.Add((j, line, label));
-            if (last is not null) pitches.Add(gap);
+            if (last is not null)
+            {
+                int at = pitches.BinarySearch(gap);
+                pitches.Insert(at < 0 ? ~at : at, gap);
+            }
             last = line.Baseline;
             j++;
         }
@@ -258,12 +262,6 @@ internal sealed partial class PdfTableFinder
         if (chunks.Any(c => c.Words.Count >= 6)) return true;
         string text = line.Text.TrimEnd();
         return chunks.Count == 1 && chunks[0].Words.Count >= 4 && (text.EndsWith('.') || text.EndsWith(':'));
-    }
-
-    private static double Median(List<double> xs)
-    {
-        var s = xs.Order().ToList();
-        return s[s.Count / 2];
     }
 
     /// <summary>Units lines, notes about parentheses and title-block lines end a table.</summary>

@@ -83,8 +83,8 @@ internal sealed class Chunk(IReadOnlyList<TextWord> words)
     public const double DefaultGapEm = 0.6;
 
     public IReadOnlyList<TextWord> Words { get; } = words;
-    public double Left => Words[0].Left;
-    public double Right => Words[^1].Right;
+    public double Left { get; } = words[0].Left;
+    public double Right { get; } = words[^1].Right;
     public string Text { get; } = string.Join(" ", words.Select(w => w.Text));
 }
 

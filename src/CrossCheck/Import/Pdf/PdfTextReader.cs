@@ -19,6 +19,7 @@ internal static class PdfTextReader
 {
     public static TextDocument? Read(string path, string display, PdfLimits limits, List<InputProblem> problems)
     {
+        PreloadFontMetrics();
         var whole = new SourceRef(display);
         var info = new FileInfo(path);
         if (info.Length == 0) { problems.Add(new InputProblem(whole, Messages.PdfEmptyFile)); return null; }
@@ -49,6 +50,30 @@ internal static class PdfTextReader
         var (doc, found) = task.Result;
         problems.AddRange(found);
         return doc;
+    }
+
+    private static int _fontMetricsStarted;
+
+    /// <summary>
+    /// The PDF library parses the metrics of all standard 14 fonts (text files, tens of milliseconds) the first time a
+    /// document is opened in the process, whether the document uses them or not. Started here on another core, that
+    /// work overlaps reading the file and its cross-reference table; opening the document waits for it as before.
+    /// </summary>
+    private static void PreloadFontMetrics()
+    {
+        if (Interlocked.Exchange(ref _fontMetricsStarted, 1) != 0) return;
+        _ = Task.Run(static () =>
+        {
+            try
+            {
+                _ = UglyToad.PdfPig.Fonts.Standard14Fonts.Standard14.IsFontInStandard14("Helvetica");
+            }
+#pragma warning disable CA1031 // A failure here recurs, and is reported, when the document is opened.
+            catch (Exception)
+#pragma warning restore CA1031
+            {
+            }
+        });
     }
 
     private sealed class Progress
@@ -210,7 +235,7 @@ internal static class PdfTextReader
         public double Bottom => Base - (0.25 * Size);
         public double Top => Base + (0.75 * Size);
         public double Centre => Base + (0.25 * Size);
-        public bool IsSpace => Text.All(char.IsWhiteSpace);
+        public bool IsSpace { get; } = text.All(char.IsWhiteSpace);
         public Script Script { get; set; }
     }
 
@@ -238,9 +263,7 @@ internal static class PdfTextReader
     {
         var glyphs = new List<Glyph>(letters.Count);
         int invisible = 0, rotated = 0;
-        var direction = letters.Where(l => !string.IsNullOrWhiteSpace(l.Value) && l.TextOrientation != TextOrientation.Other
-                                           && l.RenderingMode is not (TextRenderingMode.Neither or TextRenderingMode.NeitherClip))
-            .GroupBy(l => l.TextOrientation).OrderByDescending(g => g.Count()).Select(g => g.Key).DefaultIfEmpty(TextOrientation.Horizontal).First();
+        var direction = MainDirection(letters);
         // Coordinates in the page turned so that the text reads left to right, bottom up.
         Func<double, double, (double X, double Y)> turn = direction switch
         {
@@ -283,25 +306,40 @@ internal static class PdfTextReader
 
         Reattach(builders);
         var made = new List<(double Baseline, double Size, List<TextWord> Words, double? Space)>();
+        var visible = new List<Glyph>();
+        var normal = new List<Glyph>();
+        var main = new List<double>();
+        var spaces = new List<double>();
         foreach (var b in builders)
         {
             if (b.Glyphs.Count == 0) continue;
-            var visible = b.Glyphs.Where(g => !g.IsSpace).ToList();
+            visible.Clear();
+            foreach (var g in b.Glyphs) if (!g.IsSpace) visible.Add(g);
             if (visible.Count == 0) continue;
             MarkScripts(visible);
-            var normal = visible.Where(g => g.Script == Script.None).ToList();
+            normal.Clear();
+            foreach (var g in visible) if (g.Script == Script.None) normal.Add(g);
             double size = DominantSize(normal);
-            var main = normal.Where(g => g.Size >= 0.9 * size).Select(g => g.Base).Order().ToList();
+            main.Clear();
+            foreach (var g in normal) if (g.Size >= 0.9 * size) main.Add(g.Base);
+            main.Sort();
             double baseline = main[main.Count / 2];
             var words = Words(b.Glyphs, size);
-            var spaces = b.Glyphs.Where(g => g.IsSpace && g.Size >= 0.9 * size && g.X1 - g.X0 > 0.05 * size && g.X1 - g.X0 < 1.2 * size)
-                .Select(g => g.X1 - g.X0).Order().ToList();
+            spaces.Clear();
+            foreach (var g in b.Glyphs)
+                if (g.IsSpace && g.Size >= 0.9 * size && g.X1 - g.X0 > 0.05 * size && g.X1 - g.X0 < 1.2 * size) spaces.Add(g.X1 - g.X0);
+            spaces.Sort();
             double? space = spaces.Count == 0 ? null : spaces[spaces.Count / 2];
             if (words.Count > 0) made.Add((baseline, size, words, space));
         }
         made.Sort((a, b) => b.Baseline.CompareTo(a.Baseline));
         var lines = new List<TextLine>(made.Count);
-        for (int i = 0; i < made.Count; i++) lines.Add(new TextLine(pageNumber, i + 1, made[i].Words, made[i].Baseline, made[i].Size, made[i].Space));
+        for (int i = 0; i < made.Count; i++)
+        {
+            var line = new TextLine(pageNumber, i + 1, made[i].Words, made[i].Baseline, made[i].Size, made[i].Space);
+            _ = line.Chunks(); // cut here, on this core, rather than while the tables are looked for
+            lines.Add(line);
+        }
         return (lines, invisible, rotated, sideways);
     }
 
@@ -312,12 +350,14 @@ internal static class PdfTextReader
     /// </summary>
     private static void Reattach(List<LineBuilder> builders)
     {
-        var info = builders.Select(b =>
+        var info = new List<(LineBuilder Builder, double Size)>(builders.Count);
+        var visible = new List<Glyph>();
+        foreach (var b in builders)
         {
-            var visible = b.Glyphs.Where(g => !g.IsSpace).ToList();
-            double size = visible.Count == 0 ? 0 : DominantSize(visible);
-            return (Builder: b, Size: size);
-        }).ToList();
+            visible.Clear();
+            foreach (var g in b.Glyphs) if (!g.IsSpace) visible.Add(g);
+            info.Add((b, visible.Count == 0 ? 0 : DominantSize(visible)));
+        }
         var moves = new List<(Glyph G, LineBuilder From, LineBuilder To)>();
         foreach (var (b, size) in info)
         {
@@ -354,7 +394,7 @@ internal static class PdfTextReader
     /// </summary>
     private static void MarkScripts(List<Glyph> glyphs)
     {
-        var sorted = glyphs.OrderBy(g => g.X0).ToList();
+        var sorted = StableSorted(glyphs, static (a, b) => a.X0.CompareTo(b.X0));
         Glyph? basis = null, prev = null;
         foreach (var g in sorted)
         {
@@ -378,12 +418,84 @@ internal static class PdfTextReader
     }
 
     /// <summary>The font size most of the line's letters use.</summary>
-    private static double DominantSize(List<Glyph> glyphs) =>
-        glyphs.GroupBy(g => Math.Round(g.Size * 2) / 2).OrderByDescending(g => g.Count()).ThenByDescending(g => g.Key).First().Max(g => g.Size);
+    /// <remarks>Sizes are grouped by the half point; the largest group wins (on a tie, the larger sizes), and its largest size is returned.</remarks>
+    private static double DominantSize(List<Glyph> glyphs)
+    {
+        if (glyphs.Count == 0) throw new InvalidOperationException("A line without letters has no size.");
+        Span<(double Key, int Count, double Max)> small = stackalloc (double, int, double)[8];
+        var groups = new List<(double Key, int Count, double Max)>();
+        int n = 0;
+        foreach (var g in glyphs)
+        {
+            double key = Math.Round(g.Size * 2) / 2;
+            int at = -1;
+            for (int i = 0; i < n; i++)
+            {
+                var k = i < small.Length ? small[i].Key : groups[i - small.Length].Key;
+                if (k.Equals(key)) { at = i; break; }
+            }
+            if (at < 0)
+            {
+                if (n < small.Length) small[n] = (key, 1, g.Size); else groups.Add((key, 1, g.Size));
+                n++;
+                continue;
+            }
+            var e = at < small.Length ? small[at] : groups[at - small.Length];
+            e = (e.Key, e.Count + 1, Math.Max(e.Max, g.Size));
+            if (at < small.Length) small[at] = e; else groups[at - small.Length] = e;
+        }
+        var best = small[0];
+        for (int i = 1; i < n; i++)
+        {
+            var e = i < small.Length ? small[i] : groups[i - small.Length];
+            if (e.Count > best.Count || (e.Count == best.Count && e.Key.CompareTo(best.Key) > 0)) best = e;
+        }
+        return best.Max;
+    }
+
+    /// <summary>The glyphs sorted by <paramref name="compare"/>, glyphs that compare equal kept in their order (a stable sort).</summary>
+    private static List<Glyph> StableSorted(List<Glyph> glyphs, Comparison<Glyph> compare)
+    {
+        var order = new int[glyphs.Count];
+        for (int i = 0; i < order.Length; i++) order[i] = i;
+        Array.Sort(order, (a, b) =>
+        {
+            int c = compare(glyphs[a], glyphs[b]);
+            return c != 0 ? c : a.CompareTo(b);
+        });
+        var sorted = new List<Glyph>(order.Length);
+        foreach (int i in order) sorted.Add(glyphs[i]);
+        return sorted;
+    }
+
+    /// <summary>
+    /// The direction most of the page's visible letters run (on a tie, the direction met first); horizontal when none.
+    /// </summary>
+    private static TextOrientation MainDirection(IReadOnlyList<Letter> letters)
+    {
+        var seen = new List<(TextOrientation Direction, int Count)>(4);
+        foreach (var l in letters)
+        {
+            if (string.IsNullOrWhiteSpace(l.Value) || l.TextOrientation == TextOrientation.Other
+                || l.RenderingMode is TextRenderingMode.Neither or TextRenderingMode.NeitherClip) continue;
+            int at = -1;
+            for (int i = 0; i < seen.Count; i++) if (seen[i].Direction == l.TextOrientation) { at = i; break; }
+            if (at < 0) seen.Add((l.TextOrientation, 1));
+            else seen[at] = (l.TextOrientation, seen[at].Count + 1);
+        }
+        if (seen.Count == 0) return TextOrientation.Horizontal;
+        var best = seen[0];
+        foreach (var e in seen) if (e.Count > best.Count) best = e;
+        return best.Direction;
+    }
 
     private static List<TextWord> Words(List<Glyph> glyphs, double lineSize)
     {
-        var sorted = glyphs.OrderBy(g => g.X0).ThenByDescending(g => g.Base).ToList();
+        var sorted = StableSorted(glyphs, static (a, b) =>
+        {
+            int c = a.X0.CompareTo(b.X0);
+            return c != 0 ? c : b.Base.CompareTo(a.Base);
+        });
         var words = new List<TextWord>();
         var sb = new StringBuilder();
         double left = 0, right = 0, wordSize = 0;
@@ -451,6 +563,16 @@ internal static class PdfTextReader
 
     private static string CleanText(string value)
     {
+        bool plain = true;
+        foreach (char c in value)
+        {
+            if (c is (>= '\uFB00' and <= '\uFB04') or '\u00A0' or '\u2007' or '\u2009' or '\u202F' or '\t' or '\u00AD' or '\uFFFD' || char.IsControl(c))
+            {
+                plain = false;
+                break;
+            }
+        }
+        if (plain) return value;
         var sb = new StringBuilder(value.Length);
         foreach (char c in value)
         {

@@ -52,8 +52,13 @@ internal static class TableLayout
     {
         var placed = new List<Placed>();
         int firstBad = lines.Count;
+        bool moved = true;
         for (int pass = 0; pass < 3; pass++)
         {
+            // A line's placement depends only on the columns' extents: when the second pass left them as it found
+            // them, the third would repeat it exactly.
+            if (pass == 2 && !moved) break;
+            moved = false;
             placed.Clear();
             var edges = columns.Select(_ => (Lefts: new List<double>(), Rights: new List<double>())).ToList();
             firstBad = lines.Count;
@@ -70,7 +75,9 @@ internal static class TableLayout
                 if (ls.Count == 0) continue;
                 ls.Sort();
                 rs.Sort();
-                columns[k].Data = (ls[ls.Count / 2], rs[rs.Count / 2]);
+                var data = (ls[ls.Count / 2], rs[rs.Count / 2]);
+                if (columns[k].Data != data) moved = true;
+                columns[k].Data = data;
             }
         }
         return (placed, firstBad);
@@ -86,49 +93,61 @@ internal static class TableLayout
         int n = columns.Count, m = pieces.Count;
 
         // dp[i, k+1]: least cost with the first i pieces placed and the last used column k (−1: none, or the leading column).
-        var dp = new double[m + 1, n + 1];
-        var from = new (int K, int Choice)[m + 1, n + 1]; // Choice: column index, −1 leading, −2 drop, −3 join previous
-        for (int i = 0; i <= m; i++) for (int k = 0; k <= n; k++) dp[i, k] = double.PositiveInfinity;
-        dp[0, 0] = 0;
+        // Flat arrays (row i at i * (n + 1)); each piece's distance to each column is computed once.
+        int width = n + 1, size = (m + 1) * width;
+        Span<double> dp = size <= 256 ? stackalloc double[size] : new double[size];
+        Span<int> fromK = size <= 256 ? stackalloc int[size] : new int[size];
+        Span<int> fromChoice = size <= 256 ? stackalloc int[size] : new int[size]; // column index, −1 leading, −2 drop, −3 join previous
+        Span<double> dist = m * n <= 256 ? stackalloc double[m * n] : new double[m * n];
+        dp.Fill(double.PositiveInfinity);
+        fromK.Clear();
+        fromChoice.Clear();
+        for (int i = 0; i < m; i++)
+            for (int j = 0; j < n; j++)
+                dist[(i * n) + j] = columns[j].Distance(pieces[i].Left, pieces[i].Right);
+        dp[0] = 0;
+        double leadLimit = Math.Min(columns[0].HeadLeft, columns[0].Data?.Left ?? double.MaxValue) - (0.3 * em);
+        double dropCost = (lenient ? 5 * DropEm : DropEm) * em;
         for (int i = 0; i < m; i++)
         {
             var p = pieces[i];
+            int row = i * width, next = row + width;
             for (int k = 0; k <= n; k++)
             {
-                double c0 = dp[i, k];
+                double c0 = dp[row + k];
                 if (double.IsPositiveInfinity(c0)) continue;
                 int last = k - 1;
                 for (int j = last + 1; j < n; j++)
                 {
-                    double c = c0 + columns[j].Distance(p.Left, p.Right);
-                    if (c < dp[i + 1, j + 1]) { dp[i + 1, j + 1] = c; from[i + 1, j + 1] = (k, j); }
+                    double c = c0 + dist[(i * n) + j];
+                    if (c < dp[next + j + 1]) { dp[next + j + 1] = c; fromK[next + j + 1] = k; fromChoice[next + j + 1] = j; }
                 }
-                if (i == 0 && p.Right < Math.Min(columns[0].HeadLeft, columns[0].Data?.Left ?? double.MaxValue) - (0.3 * em))
+                if (i == 0 && p.Right < leadLimit)
                 {
                     double c = c0 + (LeadingEm * em);
-                    if (c < dp[1, 0]) { dp[1, 0] = c; from[1, 0] = (k, -1); }
+                    if (c < dp[width]) { dp[width] = c; fromK[width] = k; fromChoice[width] = -1; }
                 }
                 if (last >= 0 && i > 0)
                 {
                     double gap = p.Left - pieces[i - 1].Right;
                     double c = c0 + Math.Max(0, gap) + (0.3 * em);
-                    if (gap < 3 * em && c < dp[i + 1, k]) { dp[i + 1, k] = c; from[i + 1, k] = (k, -3); }
+                    if (gap < 3 * em && c < dp[next + k]) { dp[next + k] = c; fromK[next + k] = k; fromChoice[next + k] = -3; }
                 }
                 {
-                    double c = c0 + ((lenient ? 5 * DropEm : DropEm) * em);
-                    if (c < dp[i + 1, k]) { dp[i + 1, k] = c; from[i + 1, k] = (k, -2); }
+                    double c = c0 + dropCost;
+                    if (c < dp[next + k]) { dp[next + k] = c; fromK[next + k] = k; fromChoice[next + k] = -2; }
                 }
             }
         }
-        int bestK = 0;
-        for (int k = 1; k <= n; k++) if (dp[m, k] < dp[m, bestK]) bestK = k;
-        if (double.IsPositiveInfinity(dp[m, bestK])) return null;
+        int bestK = 0, end = m * width;
+        for (int k = 1; k <= n; k++) if (dp[end + k] < dp[end + bestK]) bestK = k;
+        if (double.IsPositiveInfinity(dp[end + bestK])) return null;
 
-        var choice = new int[m];
+        Span<int> choice = m <= 64 ? stackalloc int[m] : new int[m];
         int kk = bestK;
         for (int i = m; i > 0; i--)
         {
-            var (prevK, ch) = from[i, kk];
+            int prevK = fromK[(i * width) + kk], ch = fromChoice[(i * width) + kk];
             choice[i - 1] = ch == -3 ? kk - 1 : ch;
             if (ch == -2) choice[i - 1] = -2;
             kk = prevK;
@@ -146,7 +165,7 @@ internal static class TableLayout
                 return null; // a piece that belongs to no column: not a row of this table
             }
             if (c == -1) { leading = p.Text; continue; }
-            double d = columns[c].Distance(p.Left, p.Right) / em;
+            double d = dist[(i * n) + c] / em;
             worst = Math.Max(worst, d);
             if (d > MaxDistanceEm && !lenient) return null;
             // A value that reaches under two headers is prose or another table, not a cell.
@@ -159,7 +178,8 @@ internal static class TableLayout
         }
         // Text left of the first column belongs to it unless the first column has a value of its own in this row.
         if (leading is not null && cells.Length > 0 && cells[0] is null) { cells[0] = leading; leading = null; }
-        int filled = cells.Count(c => c is not null) + (leading is null ? 0 : 1);
+        int filled = leading is null ? 0 : 1;
+        foreach (var cell in cells) if (cell is not null) filled++;
         if (filled < Math.Min(2, n)) return null;
         return new Placed(cells, leading, worst);
     }
@@ -175,8 +195,9 @@ internal static class TableLayout
         double em = Math.Max(1, line.Size);
         foreach (var chunk in line.Chunks())
         {
-            var zones = columns.Where(c => Overlaps(c, chunk.Left, chunk.Right, em)).ToList();
-            if (zones.Count <= 1 || chunk.Words.Count == 1)
+            int zones = 0;
+            foreach (var c in columns) if (Overlaps(c, chunk.Left, chunk.Right, em)) zones++;
+            if (zones <= 1 || chunk.Words.Count == 1)
             {
                 pieces.Add(new RowPiece(chunk.Left, chunk.Right, chunk.Text, line.Size));
                 continue;
