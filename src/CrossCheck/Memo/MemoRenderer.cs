@@ -98,7 +98,7 @@ public static class MemoRenderer
         var globals = new ScriptObject { ["model"] = model };
         // `e` escapes a value for HTML (as `value | html.escape` does). Built in, because a memo calls it hundreds of times
         // and a function written in the template costs a scope per call; a template may still define its own.
-        globals.Import("e", EscapeFunction);
+        globals["e"] = EscapeFunction;
         context.PushGlobal(globals);
         try
         {
@@ -114,8 +114,25 @@ public static class MemoRenderer
         }
     }
 
-    private static readonly Func<TemplateContext, object?, string> EscapeFunction =
-        (context, value) => Scriban.Functions.HtmlFunctions.Escape(context.ObjectToString(value)) ?? "";
+    private static readonly EscapeHtml EscapeFunction = new();
+
+    /// <summary><c>e value</c>: the value as text, escaped for HTML (what <c>value | html.escape</c> gives).</summary>
+    private sealed class EscapeHtml : IScriptCustomFunction
+    {
+        public int RequiredParameterCount => 1;
+        public int ParameterCount => 1;
+        public ScriptVarParamKind VarParamKind => ScriptVarParamKind.None;
+        public Type ReturnType => typeof(string);
+        public ScriptParameterInfo GetParameterInfo(int index) => new(typeof(object), "value");
+
+        public object? Invoke(TemplateContext context, ScriptNode? callerContext, ScriptArray arguments, ScriptBlockStatement? blockStatement) =>
+            arguments.Count == 1
+                ? Scriban.Functions.HtmlFunctions.Escape(context.ObjectToString(arguments[0])) ?? ""
+                : throw new ScriptRuntimeException(callerContext?.Span ?? context.CurrentSpan, $"e takes one value, got {arguments.Count}");
+
+        public ValueTask<object?> InvokeAsync(TemplateContext context, ScriptNode? callerContext, ScriptArray arguments, ScriptBlockStatement? blockStatement) =>
+            new(Invoke(context, callerContext, arguments, blockStatement));
+    }
 
     /// <summary>
     /// A context that keeps what it learns about a .NET type's visible properties for every later render: building
