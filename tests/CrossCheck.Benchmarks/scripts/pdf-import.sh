@@ -41,8 +41,8 @@ chromium --headless --no-sandbox --disable-gpu --no-pdf-header-footer --disable-
   --disable-sync --no-first-run --user-data-dir="$work/profile" --print-to-pdf="$work/calc.pdf" "$work/calc.html" 2>/dev/null
 pages=$(pdfinfo "$work/calc.pdf" 2>/dev/null | awk '/^Pages:/ {print $2}')
 rid="linux-$(uname -m | sed 's/x86_64/x64/; s/aarch64/arm64/')"
-dotnet publish "$root/src/CrossCheck.Cli" -c Release -o "$work/cc" >/dev/null
-dotnet publish "$root/src/CrossCheck.Cli" -c Release -r "$rid" -p:PublishAot=true -o "$work/cc-native" >/dev/null
+dotnet publish "$root/src/CrossCheck.Cli" -c Release -o "$work/cc" > "$work/publish.log" || { cat "$work/publish.log" >&2; echo "publish failed" >&2; exit 1; }
+dotnet publish "$root/src/CrossCheck.Cli" -c Release -r "$rid" -p:PublishAot=true -o "$work/cc-native" > "$work/publish.log" || { cat "$work/publish.log" >&2; echo "publish failed" >&2; exit 1; }
 
 ms() { local s e; s=$(date +%s%N); "$@" >/dev/null 2>&1 || true; e=$(date +%s%N); echo $(( (e - s) / 1000000 )); }
 cc=(); cn=(); pt=()

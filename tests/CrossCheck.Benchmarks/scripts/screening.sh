@@ -12,8 +12,8 @@ work="$(mktemp -d)"
 trap 'rm -rf "$work"' EXIT
 rid="linux-$(uname -m | sed 's/x86_64/x64/; s/aarch64/arm64/')"
 
-dotnet publish "$root/src/CrossCheck.Cli" -c Release -o "$work/jit" >/dev/null
-dotnet publish "$root/src/CrossCheck.Cli" -c Release -r "$rid" -p:PublishAot=true -o "$work/native" >/dev/null
+dotnet publish "$root/src/CrossCheck.Cli" -c Release -o "$work/jit" > "$work/publish.log" || { cat "$work/publish.log" >&2; echo "publish failed" >&2; exit 1; }
+dotnet publish "$root/src/CrossCheck.Cli" -c Release -r "$rid" -p:PublishAot=true -o "$work/native" > "$work/publish.log" || { cat "$work/publish.log" >&2; echo "publish failed" >&2; exit 1; }
 dotnet run -c Release --project "$root/tests/CrossCheck.TestTools" -- generate "$work/subs" "$n" 1 >/dev/null
 mapfile -t subs < <(find "$work/subs" -mindepth 1 -maxdepth 1 | sort | head -n "$sample")
 total=$(find "$work/subs" -mindepth 1 -maxdepth 1 | wc -l)

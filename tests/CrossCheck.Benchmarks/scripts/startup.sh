@@ -12,8 +12,8 @@ work="$(mktemp -d)"
 trap 'rm -rf "$work"' EXIT
 rid="linux-$(uname -m | sed 's/x86_64/x64/; s/aarch64/arm64/')"
 
-dotnet publish "$root/src/CrossCheck.Cli" -c Release -o "$work/cc" >/dev/null
-dotnet publish "$root/src/CrossCheck.Cli" -c Release -r "$rid" -p:PublishAot=true -o "$work/cc-native" >/dev/null
+dotnet publish "$root/src/CrossCheck.Cli" -c Release -o "$work/cc" > "$work/publish.log" || { cat "$work/publish.log" >&2; echo "publish failed" >&2; exit 1; }
+dotnet publish "$root/src/CrossCheck.Cli" -c Release -r "$rid" -p:PublishAot=true -o "$work/cc-native" > "$work/publish.log" || { cat "$work/publish.log" >&2; echo "publish failed" >&2; exit 1; }
 mkdir -p "$work/hello-src"
 cat > "$work/hello-src/hello.csproj" <<'PROJ'
 <Project Sdk="Microsoft.NET.Sdk">
