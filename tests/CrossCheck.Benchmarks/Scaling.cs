@@ -63,3 +63,31 @@ public static class WarmReview
         foreach (var (stage, ms) in best) Console.WriteLine($"{stage,-30} {ms,8:0.00} ms");
     }
 }
+
+/// <summary>
+/// A screening run's stages (<c>-- screen-stages FOLDER [ROUNDS]</c>): review, register, memos, summary, for each
+/// round (the first pays for compilation). Shows which stage leaves a core idle.
+/// </summary>
+public static class ScreenStagesRun
+{
+    public static void Run(string folder, int rounds = 3)
+    {
+        for (int round = 0; round < rounds; round++)
+        {
+            string work = Directory.CreateTempSubdirectory("crosscheck-screen-stages-").FullName;
+            try
+            {
+                var options = new CrossCheck.Screening.ScreenOptions(new CrossCheck.Review.ReviewOptions(Date: new DateOnly(2026, 12, 1)),
+                    Path.Combine(work, "out"), RegisterPath: Path.Combine(work, "register.db"));
+                var r = CrossCheck.Screening.Screener.Run(folder, options);
+                var s = r.Stages;
+                Console.WriteLine($"round {round}: {r.Rows.Count} submissions in {r.Elapsed.TotalMilliseconds:0} ms — review {s.Review.TotalMilliseconds:0}, " +
+                    $"register {s.Register.TotalMilliseconds:0}, memos {s.Memos.TotalMilliseconds:0}, summary {s.Summary.TotalMilliseconds:0} ms");
+            }
+            finally
+            {
+                Directory.Delete(work, recursive: true);
+            }
+        }
+    }
+}

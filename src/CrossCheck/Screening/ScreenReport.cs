@@ -110,7 +110,10 @@ public sealed record ScreenReport(
     public ScreenStages Stages { get; init; } = new(TimeSpan.Zero, TimeSpan.Zero, TimeSpan.Zero, TimeSpan.Zero);
 }
 
-/// <summary>Wall-clock time of each stage of a screen: reviewing (parallel), recording in the register (one at a time), memos (parallel), summary and index.</summary>
+/// <summary>
+/// Wall-clock time of each stage of a screen: reviewing (parallel); recording in the register (one at a time, alongside the
+/// memos, so measured from the same start); memos (parallel, until the last is written); summary and index.
+/// </summary>
 public sealed record ScreenStages(TimeSpan Review, TimeSpan Register, TimeSpan Memos, TimeSpan Summary);
 
 /// <summary>How a screen runs.</summary>

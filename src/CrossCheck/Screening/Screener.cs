@@ -80,34 +80,72 @@ public static class Screener
             foreach (int i in shared) keys[i] = $"{shared.Key} / {items[i].Name}";
         }
 
-        // 3. Record in the register, one transaction per review, in name order (items are sorted), so ids follow the names.
+        // 3 and 4. Record in the register, one transaction per review, in name order (items are sorted) so ids follow the
+        // names, on a thread of its own; meanwhile write the memos (or the lists of input errors) in parallel, taking the
+        // items in order, each memo as soon as its review is recorded (the memo shows the comparison with the previous
+        // round). Every file is flushed to disk before it replaces the old one, and a core would idle while its worker
+        // waits for the disk: twice as many writers as cores keep both busy.
         var rounds = new RoundComparison?[items.Count];
         var problems = new string?[items.Count];
-        if (register is not null)
-            for (int i = 0; i < items.Count; i++)
+        var recordGate = new object();
+        int recordedUpTo = register is null ? items.Count : 0;
+        bool recorderStopped = register is null;
+        Exception? recorderFault = null;
+        var registerTime = TimeSpan.Zero;
+        var recorder = register is null ? null : new Thread(() =>
+        {
+            try
             {
-                cancel.ThrowIfCancellationRequested();
-                if (reviews[i].Review?.Review is not { } review) continue;
-                try
+                for (int i = 0; i < items.Count; i++)
                 {
-                    rounds[i] = register.Record(review, keys[i]!, items[i].Name, reviews[i].Hash);
-                }
-                catch (RegisterException ex)
-                {
-                    problems[i] = $"not recorded in the register: {ex.Message}";
+                    cancel.ThrowIfCancellationRequested();
+                    if (reviews[i].Review?.Review is { } review)
+                    {
+                        try
+                        {
+                            rounds[i] = register.Record(review, keys[i]!, items[i].Name, reviews[i].Hash);
+                        }
+                        catch (RegisterException ex)
+                        {
+                            problems[i] = $"not recorded in the register: {ex.Message}";
+                        }
+                    }
+                    lock (recordGate) { recordedUpTo = i + 1; Monitor.PulseAll(recordGate); }
                 }
             }
+            catch (Exception ex)
+            {
+                recorderFault = ex;
+            }
+            finally
+            {
+                lock (recordGate) { recorderStopped = true; registerTime = stage.Elapsed; Monitor.PulseAll(recordGate); }
+            }
+        })
+        { IsBackground = true, Name = "register" };
+        recorder?.Start();
 
-        timings.Add(stage.Elapsed);
-        stage.Restart();
-
-        // 4. Memos (or the list of input errors), in parallel.
         var rows = new ScreenRow[items.Count];
-        Parallel.For(0, items.Count, parallel, i =>
+        var writers = new ParallelOptions { MaxDegreeOfParallelism = 2 * parallelism, CancellationToken = cancel };
+        try
         {
-            rows[i] = WriteOne(items[i], reviews[i], keys[i], rounds[i], problems[i], outDir, options);
-            lock (gate) progress?.Written(rows[i], ++written);
-        });
+            Parallel.ForEach(System.Collections.Concurrent.Partitioner.Create(Enumerable.Range(0, items.Count),
+                System.Collections.Concurrent.EnumerablePartitionerOptions.NoBuffering), writers, i =>
+            {
+                if (reviews[i].Review?.Review is not null)
+                    lock (recordGate)
+                        while (recordedUpTo <= i && !recorderStopped) Monitor.Wait(recordGate);
+                rows[i] = WriteOne(items[i], reviews[i], keys[i], rounds[i], problems[i], outDir, options);
+                lock (gate) progress?.Written(rows[i], ++written);
+            });
+        }
+        finally
+        {
+            recorder?.Join();
+        }
+        if (recorderFault is not null)
+            System.Runtime.ExceptionServices.ExceptionDispatchInfo.Capture(recorderFault).Throw();
+        timings.Add(registerTime);
 
         timings.Add(stage.Elapsed);
         stage.Restart();
