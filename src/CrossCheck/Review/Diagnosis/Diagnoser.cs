@@ -65,7 +65,7 @@ public sealed class Diagnoser
                 // A hypothesis that cannot be formed for this structure (e.g. a mechanism) simply does not apply.
             }
         }
-        var ctx = new Context(this, loadCase, keys, c, r, review);
+        var ctx = new Context(this, loadCase, ends, keys, c, r, review);
         Try(() => WorkingSlip(ctx));
         Try(() => Transformations(ctx));
         Try(() => CopyingSlips(ctx));
@@ -117,10 +117,13 @@ public sealed class Diagnoser
 
     private string Moment(double si) => $"{Memo.Fmt.Number(_s.Info.Units.Moment.FromSi(si), "0.0#")} {_s.Info.Units.Moment.Symbol}";
 
-    private sealed class Context(Diagnoser d, LoadCase loadCase, List<(string Member, MemberEnd End)> keys, double[] claimed, double[] recomputed, CaseReview review)
+    private sealed class Context(Diagnoser d, LoadCase loadCase, List<EndMomentFinding> ends, List<(string Member, MemberEnd End)> keys, double[] claimed,
+        double[] recomputed, CaseReview review)
     {
         public Diagnoser D { get; } = d;
         public LoadCase Case { get; } = loadCase;
+        /// <summary>The ends compared, in the order of <see cref="Keys"/>, <see cref="Claimed"/> and <see cref="Recomputed"/>.</summary>
+        public List<EndMomentFinding> Ends { get; } = ends;
         public List<(string Member, MemberEnd End)> Keys { get; } = keys;
         public double[] Claimed { get; } = claimed;
         public double[] Recomputed { get; } = recomputed;
@@ -190,10 +193,10 @@ public sealed class Diagnoser
     /// </summary>
     private IEnumerable<Hypothesis> CopyingSlips(Context x)
     {
-        var findings = x.Review.EndMoments.Where(e => e.Claimed is not null && e.Recomputed is not null && e.End is not null).ToList();
+        var findings = x.Ends;
         var unit = _s.Info.Units.Moment;
         var slips = new List<(int Index, string What)>();
-        for (int i = 0; i < x.Keys.Count && i < findings.Count; i++)
+        for (int i = 0; i < x.Keys.Count; i++)
         {
             if (Math.Abs(x.Claimed[i] - x.Recomputed[i]) <= x.Review.AgreeTolerance) continue;
             double claimed = unit.FromSi(x.Claimed[i]), recomputed = unit.FromSi(x.Recomputed[i]);
@@ -224,7 +227,7 @@ public sealed class Diagnoser
         var all = (double[])x.Recomputed.Clone();
         foreach (var s in slips) all[s.Index] = x.Claimed[s.Index];
         // Less specific than a systematic mistake that reproduces the same claims, so ranked after one.
-        yield return new Hypothesis("transcription", 4, all,
+        yield return new Hypothesis("copying-slip", 4, all,
             slips.Count == 1
                 ? $"A copying slip, not an analysis error: the claim for {Describe(slips[0])}. Correct the figure where it was copied."
                 : $"Copying slips, not analysis errors: {string.Join("; ", slips.Select(Describe))}. Correct the figures where they were copied.");
