@@ -85,7 +85,7 @@ internal sealed class ClaimChecks
             string what = applied == 0 ? "zero (no couple is applied there)" : $"the applied couple {M(applied)}";
             flags.Add(new Flag(FlagKind.JointEquilibrium, sev, $"joint {j.Id}", error,
                 $"The claimed member-end moments at joint {j.Id} sum to {M(sum)} but must sum to {what}: the joint is out of balance by {M(error)}. " +
-                "A joint that does not balance points to an arithmetic or transcription slip in the distribution.",
+                "A joint that does not balance points to an arithmetic or copying slip in the distribution.",
                 sources));
         }
     }

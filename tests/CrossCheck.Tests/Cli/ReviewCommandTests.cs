@@ -136,7 +136,7 @@ public class ReviewCommandTests
     [Fact]
     public void Review_Tolerances_ChangeTheStatus()
     {
-        // With a 30 % agreement band the transcription slip of the demo (27 of 115 kN·m) becomes agreement.
+        // With a 30 % agreement band the copying slip of the demo (27 of 115 kN·m) becomes agreement.
         var r = CliRunner.Run("review", CliRunner.Demo("footbridge.csv"), "-f", "json", "--tolerance", "0.3", "--minor-tolerance", "0.4");
         using var doc = JsonDocument.Parse(r.Out);
         doc.RootElement.GetProperty("cases")[0].GetProperty("endMoments").EnumerateArray()

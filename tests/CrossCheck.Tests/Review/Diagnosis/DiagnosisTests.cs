@@ -147,14 +147,14 @@ public class DiagnosisTests
                 [Restraint.Pinned, Restraint.Roller, Restraint.Roller], 200e6, [2.5e-4, 2.5e-4]).Udl("S1", 18).Udl("S2", 18) is var b ? Settle(b) : b,
             () => Beam((0, 81), (-81, 0))),
 
-        // transcription: published values copied with one slip (digits exchanged, sign lost, decimal point moved).
-        new("transcription", "beam 4a, M_B = 94.6 copied as 49.6 at AB@B", () => ReferenceModels.Unequal(Restraint.Pinned),
+        // copying-slip: published values copied with one slip (digits exchanged, sign lost, decimal point moved).
+        new("copying-slip", "beam 4a, M_B = 94.6 copied as 49.6 at AB@B", () => ReferenceModels.Unequal(Restraint.Pinned),
             () => Named(Members4a, (0, 49.6), (-94.6, 66.6), (-66.6, 0))),
-        new("transcription", "two spans (case 3.1, Hicks Table 2.1: wL²/8 = 81.0) copied as 18.0 at S2", () => ReferenceModels.EqualSpans(2).Udl("S1", 18).Udl("S2", 18),
+        new("copying-slip", "two spans (case 3.1, Hicks Table 2.1: wL²/8 = 81.0) copied as 18.0 at S2", () => ReferenceModels.EqualSpans(2).Udl("S1", 18).Udl("S2", 18),
             () => Beam((0, 81.0), (-18.0, 0))),
-        new("transcription", "fixed portal k=0.5, UDL (case 5.1) with the sign of M_CD lost", () => ReferenceModels.Portal(0.5, Restraint.Fixed).Udl("BC", 18),
+        new("copying-slip", "fixed portal k=0.5, UDL (case 5.1) with the sign of M_CD lost", () => ReferenceModels.Portal(0.5, Restraint.Fixed).Udl("BC", 18),
             () => Portal(21.6, 43.2, -43.2, 43.2, 43.2, -21.6)),
-        new("transcription", "beam 4a, M_C = 66.64 copied as 6.66 at CD@C", () => ReferenceModels.Unequal(Restraint.Pinned),
+        new("copying-slip", "beam 4a, M_C = 66.64 copied as 6.66 at CD@C", () => ReferenceModels.Unequal(Restraint.Pinned),
             () => Named(Members4a, (0, 94.62), (-94.62, 66.64), (-6.66, 0))),
     ]);
 
@@ -213,11 +213,11 @@ public class DiagnosisTests
     }
 
     [Fact]
-    public void OneWrongClaimThatIsNoCopyingSlip_IsNotATranscription()
+    public void OneWrongClaimThatIsNoCopyingSlip_IsNotACopyingSlip()
     {
         // Beam 4a (three-moment equation, Timoshenko & Young, from memory): M_B = 94.62; 97.1 is no miscopy of it.
         var review = Review(ReferenceModels.Unequal(Restraint.Pinned), Named(Members4a, (0, 97.1), (-94.6, 66.6), (-66.6, 0)));
-        review.Cases[0].Causes.ShouldNotContain(c => c.Code == "transcription");
+        review.Cases[0].Causes.ShouldNotContain(c => c.Code == "copying-slip");
     }
 
     public static TheoryData<string> References => new(ReferenceModels.All().Where(c => c.Model.Model.Members.Count >= 2).Select(c => c.Id));
