@@ -1,5 +1,6 @@
 using System.CommandLine;
 using CrossCheck.Cli.Commands;
+using CrossCheck.Common;
 
 namespace CrossCheck.Cli;
 
@@ -35,7 +36,7 @@ public static class App
         // --version answers with this tool's version wherever it appears (the parser's own option would report the host's).
         if (args.Contains("--version") && !args.Any(a => a is "--help" or "-h" or "-?"))
         {
-            output.WriteLine(CrossCheck.Memo.ToolInfo.Version);
+            output.WriteLine(ToolInfo.Version);
             return ExitCodes.Concur;
         }
 

@@ -1,6 +1,6 @@
 using System.Diagnostics;
 using System.Globalization;
-using CrossCheck.Memo;
+using CrossCheck.Common;
 using CrossCheck.Register;
 using CrossCheck.Review;
 using CrossCheck.Screening;

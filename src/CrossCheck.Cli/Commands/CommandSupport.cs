@@ -1,6 +1,6 @@
 using CrossCheck.Analysis;
+using CrossCheck.Common;
 using CrossCheck.Import;
-using CrossCheck.Memo;
 using CrossCheck.Model;
 using CrossCheck.Review;
 using Spectre.Console;

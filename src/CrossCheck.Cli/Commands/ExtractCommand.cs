@@ -1,7 +1,7 @@
 using System.CommandLine;
+using CrossCheck.Common;
 using CrossCheck.Import;
 using CrossCheck.Import.Pdf;
-using CrossCheck.Memo;
 
 namespace CrossCheck.Cli.Commands;
 

@@ -1,4 +1,5 @@
 using System.CommandLine;
+using CrossCheck.Common;
 using CrossCheck.Import;
 using CrossCheck.Memo;
 using CrossCheck.Register;

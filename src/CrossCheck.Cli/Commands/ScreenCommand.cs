@@ -1,5 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
+using CrossCheck.Common;
 using CrossCheck.Memo;
 using CrossCheck.Register;
 using CrossCheck.Review;

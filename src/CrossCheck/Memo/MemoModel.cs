@@ -1,5 +1,6 @@
-using CrossCheck.Analysis;
 using System.Globalization;
+using CrossCheck.Analysis;
+using CrossCheck.Common;
 using CrossCheck.Memo.Diagrams;
 using CrossCheck.Model;
 using CrossCheck.Review;

@@ -1,3 +1,4 @@
+using CrossCheck.Common;
 using CrossCheck.Import;
 using CrossCheck.Model;
 using CrossCheck.Register;

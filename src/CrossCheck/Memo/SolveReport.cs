@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text;
 using CrossCheck.Analysis;
+using CrossCheck.Common;
 using CrossCheck.Model;
 
 namespace CrossCheck.Memo;
@@ -93,11 +94,4 @@ public sealed class SolveReport
 
     private static string Csv(string s) =>
         s.IndexOfAny([',', '"', '\n', '\r']) >= 0 ? "\"" + s.Replace("\"", "\"\"") + "\"" : s;
-}
-
-/// <summary>The tool's name and version for memos and JSON.</summary>
-public static class ToolInfo
-{
-    public static string Version { get; } =
-        typeof(ToolInfo).Assembly.GetName().Version is { } v ? $"{v.Major}.{v.Minor}.{v.Build}" : "0.0.0";
 }

@@ -1,6 +1,7 @@
 using System.Net;
 using System.Text;
 using CrossCheck.Analysis;
+using CrossCheck.Common;
 using CrossCheck.Model;
 using CrossCheck.Review;
 

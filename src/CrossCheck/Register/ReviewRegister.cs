@@ -1,5 +1,5 @@
 using System.Globalization;
-using CrossCheck.Memo;
+using CrossCheck.Common;
 using CrossCheck.Review;
 using Microsoft.Data.Sqlite;
 

@@ -1,5 +1,6 @@
 using System.Globalization;
 using CrossCheck.Analysis;
+using CrossCheck.Common;
 using CrossCheck.Model;
 using MathNet.Numerics.LinearAlgebra;
 
@@ -33,7 +34,7 @@ internal sealed class ClaimChecks
 
     private string M(double si) => $"{N(_mu.FromSi(si))} {_mu.Symbol}";
     private string F(double si) => $"{N(_fu.FromSi(si))} {_fu.Symbol}";
-    private static string N(double v) => Memo.Fmt.Number(v, "0.0#");
+    private static string N(double v) => Fmt.Number(v, "0.0#");
 
     private sealed record Tolerances(double Agree, double Minor);
 

@@ -1,5 +1,6 @@
 using System.Text.RegularExpressions;
 using CrossCheck.Analysis;
+using CrossCheck.Common;
 using CrossCheck.Model;
 
 namespace CrossCheck.Review;
@@ -133,8 +134,8 @@ public static partial class ReviewEngine
             var unit = isReaction ? (q.Component == "M" ? mu : s.Info.Units.Force) : (q.Component == "rotation" ? new UnitChoice("rad", 1) : s.Info.Units.Displacement);
             flags.Add(new Flag(isReaction ? FlagKind.Reaction : FlagKind.Displacement, q.Status == EndStatus.Minor ? Severity.Minor : Severity.Major,
                 $"joint {q.Joint} {q.Component}", q.Difference,
-                $"The claimed {(isReaction ? "reaction" : "displacement")} {q.Component} at joint {q.Joint} is {Memo.Fmt.Number(unit.FromSi(q.Claimed), "0.0###")} {unit.Symbol}; " +
-                $"the independent analysis gives {Memo.Fmt.Number(unit.FromSi(q.Recomputed), "0.0###")} {unit.Symbol}.",
+                $"The claimed {(isReaction ? "reaction" : "displacement")} {q.Component} at joint {q.Joint} is {Fmt.Number(unit.FromSi(q.Claimed), "0.0###")} {unit.Symbol}; " +
+                $"the independent analysis gives {Fmt.Number(unit.FromSi(q.Recomputed), "0.0###")} {unit.Symbol}.",
                 [q.Source], isReaction ? (q.Component == "M" ? ValueKind.Moment : ValueKind.Force) : (q.Component == "rotation" ? ValueKind.Rotation : ValueKind.Displacement)));
         }
         return new CaseReview(caseId, peak, agree, minor, ordered, reactions, displacements, flags, []);
@@ -210,7 +211,7 @@ public static partial class ReviewEngine
     {
         var comments = new List<ReviewComment>();
         var mu = s.Info.Units.Moment;
-        string M(double? v) => v is double x ? Memo.Fmt.Number(mu.FromSi(x), "0.0#") : "—";
+        string M(double? v) => v is double x ? Fmt.Number(mu.FromSi(x), "0.0#") : "—";
         foreach (var c in cases)
         {
             foreach (var g in c.EndMoments.Where(e => e.Status is not EndStatus.Agree and not EndStatus.Unmatched).GroupBy(e => e.Member))

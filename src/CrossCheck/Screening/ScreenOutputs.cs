@@ -1,4 +1,5 @@
 using System.Globalization;
+using CrossCheck.Common;
 using CrossCheck.Memo;
 using CrossCheck.Register;
 using CrossCheck.Review;

@@ -1,5 +1,6 @@
 using System.Diagnostics;
 using System.Text;
+using CrossCheck.Common;
 using CrossCheck.Import;
 using CrossCheck.Memo;
 using CrossCheck.Model;

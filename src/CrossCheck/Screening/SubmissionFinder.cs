@@ -1,4 +1,4 @@
-using CrossCheck.Memo;
+using CrossCheck.Common;
 
 namespace CrossCheck.Screening;
 

@@ -1,4 +1,4 @@
-using CrossCheck.Memo;
+using CrossCheck.Common;
 using CrossCheck.Register;
 using CrossCheck.Review;
 using CrossCheck.Tests.Support;

@@ -1,6 +1,6 @@
 using CrossCheck.Cli;
+using CrossCheck.Common;
 using CrossCheck.Import;
-using CrossCheck.Memo;
 using CrossCheck.Tests.Support;
 
 namespace CrossCheck.Tests.Robustness;

@@ -1,3 +1,4 @@
+using CrossCheck.Common;
 using CrossCheck.Memo;
 using CrossCheck.Review;
 using CrossCheck.Screening;

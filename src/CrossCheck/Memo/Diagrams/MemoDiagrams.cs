@@ -1,4 +1,5 @@
 using System.Globalization;
+using CrossCheck.Common;
 using CrossCheck.Model;
 using CrossCheck.Review;
 

@@ -1,3 +1,4 @@
+using CrossCheck.Common;
 using CrossCheck.Model;
 
 namespace CrossCheck.Memo.Diagrams;

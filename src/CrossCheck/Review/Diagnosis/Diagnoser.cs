@@ -1,5 +1,6 @@
 using System.Globalization;
 using CrossCheck.Analysis;
+using CrossCheck.Common;
 using CrossCheck.Model;
 
 namespace CrossCheck.Review.Diagnosis;
@@ -115,7 +116,7 @@ public sealed class Diagnoser
         }).ToList();
     }
 
-    private string Moment(double si) => $"{Memo.Fmt.Number(_s.Info.Units.Moment.FromSi(si), "0.0#")} {_s.Info.Units.Moment.Symbol}";
+    private string Moment(double si) => $"{Fmt.Number(_s.Info.Units.Moment.FromSi(si), "0.0#")} {_s.Info.Units.Moment.Symbol}";
 
     private sealed class Context(Diagnoser d, LoadCase loadCase, List<EndMomentFinding> ends, List<(string Member, MemberEnd End)> keys, double[] claimed,
         double[] recomputed, CaseReview review)
@@ -222,7 +223,7 @@ public sealed class Diagnoser
         {
             var f = findings[s.Index];
             string cite = f.Source is { } src ? $" ({src.Citation})" : "";
-            return $"{f.Member} at {f.At}{cite}, written {Memo.Fmt.Number(unit.FromSi(x.Claimed[s.Index]), "0.0##")} where the analysis gives {Moment(x.Recomputed[s.Index])}: {s.What}";
+            return $"{f.Member} at {f.At}{cite}, written {Fmt.Number(unit.FromSi(x.Claimed[s.Index]), "0.0##")} where the analysis gives {Moment(x.Recomputed[s.Index])}: {s.What}";
         }
         var all = (double[])x.Recomputed.Clone();
         foreach (var s in slips) all[s.Index] = x.Claimed[s.Index];
@@ -449,9 +450,9 @@ public sealed class Diagnoser
     private string Describe(MemberLoad load)
     {
         var u = _s.Info.Units;
-        string F(double v) => $"{Memo.Fmt.Number(u.Force.FromSi(v), "0.###")} {u.Force.Symbol}";
-        string W(double v) => $"{Memo.Fmt.Number(u.Force.FromSi(v) * u.Length.ToSi, "0.###")} {u.Force.Symbol}/{u.Length.Symbol}";
-        string Lg(double v) => $"{Memo.Fmt.Number(u.Length.FromSi(v), "0.###")} {u.Length.Symbol}";
+        string F(double v) => $"{Fmt.Number(u.Force.FromSi(v), "0.###")} {u.Force.Symbol}";
+        string W(double v) => $"{Fmt.Number(u.Force.FromSi(v) * u.Length.ToSi, "0.###")} {u.Force.Symbol}/{u.Length.Symbol}";
+        string Lg(double v) => $"{Fmt.Number(u.Length.FromSi(v), "0.###")} {u.Length.Symbol}";
         return load switch
         {
             PointLoad p => $"point load {F(p.P)} at {Lg(p.A)} ({load.Source.Citation})",
@@ -603,7 +604,7 @@ public sealed class Diagnoser
     private string LoadWords(Load l) => l switch
     {
         MemberLoad ml => $"{Describe(ml)} on member {ml.Member}",
-        JointForce f => $"{Memo.Fmt.Number(_s.Info.Units.Force.FromSi(f.P), "0.###")} {_s.Info.Units.Force.Symbol} force at joint {f.Joint} ({l.Source.Citation})",
+        JointForce f => $"{Fmt.Number(_s.Info.Units.Force.FromSi(f.P), "0.###")} {_s.Info.Units.Force.Symbol} force at joint {f.Joint} ({l.Source.Citation})",
         JointCouple c => $"couple at joint {c.Joint} ({l.Source.Citation})",
         _ => "load",
     };

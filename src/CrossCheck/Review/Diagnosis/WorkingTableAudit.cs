@@ -1,5 +1,6 @@
 using System.Globalization;
 using CrossCheck.Analysis;
+using CrossCheck.Common;
 using CrossCheck.Model;
 
 namespace CrossCheck.Review.Diagnosis;
@@ -280,14 +281,14 @@ public static class WorkingTableAudit
     public static Flag ToFlag(WorkingAudit a, Submission s, double agreeTolerance)
     {
         var mu = s.Info.Units.Moment;
-        string M(double v) => $"{Memo.Fmt.Number(mu.FromSi(v), "0.0#")} {mu.Symbol}";
+        string M(double v) => $"{Fmt.Number(mu.FromSi(v), "0.0#")} {mu.Symbol}";
         if (a.First is null)
             return new Flag(FlagKind.DistributionTable, Severity.Info, $"working table, case {a.Case}", null,
                 string.Create(CultureInfo.InvariantCulture, $"The moment-distribution table of case {a.Case} ({a.Variant}) was checked cell by cell ({a.CellsChecked} cells): its arithmetic is consistent."), []);
         var w = a.First;
         bool factor = w.Step == WorkingStep.DistributionFactor;
-        string found = factor ? Memo.Fmt.Number(w.Found, "0.###") : M(w.Found);
-        string expected = factor ? Memo.Fmt.Number(w.Expected, "0.###") : M(w.Expected);
+        string found = factor ? Fmt.Number(w.Found, "0.###") : M(w.Found);
+        string expected = factor ? Fmt.Number(w.Expected, "0.###") : M(w.Expected);
         string why = w.Step switch
         {
             WorkingStep.DistributionFactor => "the member's share K/ΣK of the joint stiffness",

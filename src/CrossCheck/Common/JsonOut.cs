@@ -2,7 +2,7 @@ using System.Text;
 using System.Text.Encodings.Web;
 using System.Text.Json;
 
-namespace CrossCheck.Memo;
+namespace CrossCheck.Common;
 
 /// <summary>
 /// A small wrapper over <see cref="Utf8JsonWriter"/> for the JSON outputs: written field by field, with no

@@ -1,7 +1,7 @@
 using System.Globalization;
 using System.Text;
 
-namespace CrossCheck.Memo;
+namespace CrossCheck.Common;
 
 /// <summary>
 /// Writes RFC 4180 CSV for reports (the screening summary, the register export). Text that came from a submission is

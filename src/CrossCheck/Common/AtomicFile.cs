@@ -1,6 +1,6 @@
 using System.Text;
 
-namespace CrossCheck.Memo;
+namespace CrossCheck.Common;
 
 /// <summary>
 /// Writes output files so that a reader never sees half a file: the content goes to a temporary file in the

@@ -1,6 +1,6 @@
 using System.Text.RegularExpressions;
 
-namespace CrossCheck.Memo;
+namespace CrossCheck.Common;
 
 /// <summary>
 /// Names derived from a submission's path, and output file names that are safe to create: whatever a submission

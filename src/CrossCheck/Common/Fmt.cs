@@ -1,6 +1,6 @@
 using System.Globalization;
 
-namespace CrossCheck.Memo;
+namespace CrossCheck.Common;
 
 /// <summary>Number formatting for memos and reports: invariant culture, no "-0".</summary>
 public static class Fmt
