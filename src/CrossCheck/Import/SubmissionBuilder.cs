@@ -206,7 +206,7 @@ public sealed class SubmissionBuilder
         string? Get(string key) => raw.TryGetValue(key, out var v) && v.Item1.Length > 0 ? v.Item1 : null;
         var other = raw.Where(kv => !TableSchema.InfoKeys.ContainsKey(kv.Key)).ToDictionary(kv => kv.Key, kv => kv.Value.Item1, StringComparer.Ordinal);
         var info = new SubmissionInfo(Get("title"), Get("reference"), Get("revision"),
-            Get("prepared by"), Get("checked by"), Get("date"), sign, DisplayUnits.Si, other);
+            Get("prepared by"), Get("checked by"), Get("date"), sign, DisplayUnits.Si, other) { SignConventionStated = raw.ContainsKey("sign convention") };
         _defaults = new UnitDefaults(force, length);
         return (info, _defaults, raw);
     }

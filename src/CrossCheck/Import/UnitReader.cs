@@ -13,9 +13,9 @@ namespace CrossCheck.Import;
 /// </summary>
 public static partial class UnitReader
 {
-    private static readonly Dictionary<string, (QuantityKind Kind, double ToSi)> Aliases = BuildAliases();
+    private static readonly Dictionary<string, (QuantityKind Kind, double ToSi, string Trade)> Aliases = BuildAliases();
     // Building UnitsNet's full abbreviation table takes a large share of a second: only for spellings not in Aliases.
-    private static readonly Dictionary<string, (QuantityKind Kind, double ToSi)[]> AliasesAnyCase = Aliases
+    private static readonly Dictionary<string, (QuantityKind Kind, double ToSi, string Trade)[]> AliasesAnyCase = Aliases
         .GroupBy(kv => kv.Key, StringComparer.OrdinalIgnoreCase)
         .ToDictionary(g => g.Key, g => g.Select(kv => kv.Value).ToArray(), StringComparer.OrdinalIgnoreCase);
     private static readonly Lazy<UnitParser> Parser = new(() => new UnitParser(UnitAbbreviationsCache.CreateDefault()));
@@ -63,16 +63,18 @@ public static partial class UnitReader
         }
         string norm = Normalize(raw);
         double factor;
+        // The spelling the trade prints (kN·m for kNm, KNM or kN-m), so that what a memo quotes does not echo a typing habit.
+        string? trade = null;
         bool known = Aliases.TryGetValue(norm, out var alias);
-        if (known && alias.Kind == kind) factor = alias.ToSi;
+        if (known && alias.Kind == kind) (factor, trade) = (alias.ToSi, alias.Trade);
         else if (known) return null; // a known spelling of another quantity
         else
         {
             // Spellings of our own, case-insensitively when only one unit of this kind matches.
             var matches = AliasesAnyCase.TryGetValue(norm, out var folded)
-                ? folded.Where(a => a.Kind == kind).Select(a => a.ToSi).Distinct().ToList()
+                ? folded.Where(a => a.Kind == kind).DistinctBy(a => a.ToSi).ToList()
                 : [];
-            if (matches.Count == 1) factor = matches[0];
+            if (matches.Count == 1) (factor, trade) = (matches[0].ToSi, matches[0].Trade);
             else if (folded is not null) return null;
             // A known unit followed by words ("m unless noted otherwise") is prose, not a unit.
             else if (norm.IndexOf(' ') is int sp and > 0 && Aliases.ContainsKey(norm[..sp])) return null;
@@ -85,7 +87,8 @@ public static partial class UnitReader
             }
         }
         factor *= multiplier;
-        string symbol = m.Success ? $"{m.Value.Trim()} {Pretty(raw)}" : Pretty(raw);
+        string unit = trade ?? Pretty(raw);
+        string symbol = m.Success ? $"{m.Value.Trim()} {unit}" : unit;
         return new UnitChoice(symbol, factor);
     }
 
@@ -132,14 +135,15 @@ public static partial class UnitReader
         return sb.ToString();
     }
 
-    private static Dictionary<string, (QuantityKind Kind, double ToSi)> BuildAliases()
+    /// <remarks>The first name given for a unit is the spelling the trade prints.</remarks>
+    private static Dictionary<string, (QuantityKind Kind, double ToSi, string Trade)> BuildAliases()
     {
         // Exact SI definitions (NIST SP 811, Appendix B): in = 0.0254 m, ft = 0.3048 m, lbf = 4.4482216152605 N,
         // kgf = 9.80665 N. Kept here so that start-up need not load UnitsNet's full unit tables; UnitsNet reads
         // any other spelling.
         const double Lbf = 4.4482216152605, Kip = 1000 * Lbf, In = 0.0254, Ft = 0.3048, Tf = 9806.65;
-        var d = new Dictionary<string, (QuantityKind, double)>(StringComparer.Ordinal);
-        void Add(QuantityKind kind, double factor, params string[] names) { foreach (var n in names) d[Normalize(n)] = (kind, factor); }
+        var d = new Dictionary<string, (QuantityKind, double, string)>(StringComparer.Ordinal);
+        void Add(QuantityKind kind, double factor, params string[] names) { foreach (var n in names) d[Normalize(n)] = (kind, factor, names[0]); }
         static string[] Products(string a, string b) =>
             [$"{a}·{b}", $"{a}{b}", $"{a}-{b}", $"{a}.{b}", $"{a}*{b}", $"{a} {b}"];
 
@@ -168,17 +172,23 @@ public static partial class UnitReader
         Add(QuantityKind.Length, In, "in", "\"");
 
         Add(QuantityKind.ForcePerLength, 1, "N/m");
-        Add(QuantityKind.ForcePerLength, 1e3, "N/mm", "kN/m");
+        Add(QuantityKind.ForcePerLength, 1e3, "kN/m");
+        Add(QuantityKind.ForcePerLength, 1e3, "N/mm");
         Add(QuantityKind.ForcePerLength, 1e6, "kN/mm");
         Add(QuantityKind.ForcePerLength, Kip / Ft, "kip/ft", "k/ft", "klf", "kips/ft");
         Add(QuantityKind.ForcePerLength, Kip / In, "kip/in", "k/in", "kips/in");
         Add(QuantityKind.ForcePerLength, Lbf / Ft, "lb/ft", "lbf/ft", "plf");
         Add(QuantityKind.ForcePerLength, Lbf / In, "lb/in", "lbf/in", "pli");
 
-        Add(QuantityKind.Modulus, 1, "Pa", "N/m²");
-        Add(QuantityKind.Modulus, 1e3, "kPa", "kN/m²");
-        Add(QuantityKind.Modulus, 1e6, "MPa", "N/mm²", "MN/m²");
-        Add(QuantityKind.Modulus, 1e9, "GPa", "kN/mm²");
+        Add(QuantityKind.Modulus, 1, "Pa");
+        Add(QuantityKind.Modulus, 1, "N/m²");
+        Add(QuantityKind.Modulus, 1e3, "kPa");
+        Add(QuantityKind.Modulus, 1e3, "kN/m²");
+        Add(QuantityKind.Modulus, 1e6, "MPa");
+        Add(QuantityKind.Modulus, 1e6, "N/mm²");
+        Add(QuantityKind.Modulus, 1e6, "MN/m²");
+        Add(QuantityKind.Modulus, 1e9, "GPa");
+        Add(QuantityKind.Modulus, 1e9, "kN/mm²");
         Add(QuantityKind.Modulus, Kip / (In * In), "ksi", "kip/in²");
         Add(QuantityKind.Modulus, Lbf / (In * In), "psi", "lb/in²");
         Add(QuantityKind.Modulus, Kip / (Ft * Ft), "ksf", "kip/ft²");

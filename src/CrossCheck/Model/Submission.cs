@@ -36,6 +36,9 @@ public sealed record SubmissionInfo(
     DisplayUnits Units,
     IReadOnlyDictionary<string, string> Other)
 {
+    /// <summary>True when the submission states its sign convention; false when the default (clockwise) is assumed.</summary>
+    public bool SignConventionStated { get; init; }
+
     public static SubmissionInfo Empty { get; } =
         new(null, null, null, null, null, null, SignConvention.Clockwise, DisplayUnits.Si, new Dictionary<string, string>());
 }

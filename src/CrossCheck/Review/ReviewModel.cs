@@ -86,38 +86,102 @@ public sealed record EndMomentFinding(
     SourceRef? Source)
 {
     public double? Difference => Claimed is double c && Recomputed is double r ? c - r : null;
+
+    /// <summary>The claim as read (the figure as written, its source); null for a missing end.</summary>
+    public ClaimedEndMoment? Claim { get; init; }
+
+    /// <summary>Where the end is.</summary>
+    public MemberEndPlace Place => new(Member, At, End);
+
+    /// <summary>The end as the review keys it, when the model has it.</summary>
+    public EndKey? Key => End is MemberEnd e ? new EndKey(Member, e) : null;
 }
 
 /// <summary>One component of a claimed reaction or displacement next to the recomputed value (SI).</summary>
 public sealed record QuantityFinding(string Case, string Joint, string Component, double Claimed, double Recomputed, EndStatus Status, SourceRef Source)
 {
     public double Difference => Claimed - Recomputed;
+
+    public ComponentPlace Place => new(Joint, Component);
 }
+
+/// <summary>A member end as the review keys it: member id and which end.</summary>
+public readonly record struct EndKey(string Member, MemberEnd End);
 
 /// <summary>
 /// A finding of the checks: what kind, how serious, where, the value (N·m for moments, N for forces, rad for
-/// rotations), a sentence for the author, and the rows it rests on.
+/// rotations), a sentence for the author, the rows it rests on and the claimed member ends it was computed from (so
+/// that a diagnosed mistake or a single wrong figure can be seen to explain it).
 /// </summary>
-public sealed record Flag(FlagKind Kind, Severity Severity, string Where, double? Value, string Message, IReadOnlyList<SourceRef> Sources,
+public sealed record Flag(FlagKind Kind, Severity Severity, Place Place, double? Value, string Message, IReadOnlyList<SourceRef> Sources,
     ValueKind Unit = ValueKind.Moment)
 {
+    /// <summary>The claimed member ends the check used; empty for checks of other claims (reactions, the working table).</summary>
+    public IReadOnlyList<EndKey> Ends { get; init; } = [];
+
+    /// <summary>The finding in a few words for a list of symptoms under a comment ("joint C out of balance by 27.0 kN·m").</summary>
+    public string Brief { get; init; } = "";
+
+    /// <summary>The place in words: "joint C".</summary>
+    public string Where => Place.Words;
+
     public string SourceText => SourceRef.Span(Sources);
 }
 
+/// <summary>The mistakes the diagnosis tests (docs/REVIEW-JSON.md, "causes"); words in <see cref="ReviewTerms"/>.</summary>
+public enum CauseCode
+{
+    SwayOmitted,
+    StiffnessWithoutLength,
+    FarEndFixity,
+    FixedEndMoment,
+    CarryOver,
+    StoppedEarly,
+    SignConvention,
+    EndsSwapped,
+    UnitScale,
+    LoadMisplaced,
+    HingeIgnored,
+    SettlementIgnored,
+    DistributionArithmetic,
+    CopyingSlip,
+}
+
 /// <summary>A likely cause of the discrepancies of a case (filled by the diagnosis stage).</summary>
-/// <param name="Code">Contract code such as <c>sway-omitted</c>.</param>
+/// <param name="Kind">Which mistake.</param>
 /// <param name="Confidence">0–1: how sure the diagnosis is that this is the mistake.</param>
 /// <param name="Explains">0–1: the share of the discrepancy this cause accounts for.</param>
-/// <param name="Message">A sentence an author can act on.</param>
+/// <param name="Message">A sentence an author can act on, quoting the author's figures as written.</param>
 /// <param name="Evidence">Supporting detail for the memo.</param>
-public sealed record Cause(string Code, double Confidence, double Explains, string Message, string Evidence = "");
+public sealed record Cause(CauseCode Kind, double Confidence, double Explains, string Message, string Evidence = "")
+{
+    /// <summary>The contract code: <c>sway-omitted</c>.</summary>
+    public string Code => Kind.Json();
+
+    /// <summary>
+    /// What identifies this one mistake, so that the same mistake found in several cases is one comment
+    /// (<c>fixed-end-moment|BC|point-central</c>); the code alone when the mistake has no particulars.
+    /// </summary>
+    public string Identity { get; init; } = "";
+
+    /// <summary>What the correct working gives, in the trade's words ("with Pab²/L² the fixed-end moments of BC are ...").</summary>
+    public string CorrectWorking { get; init; } = "";
+
+    /// <summary>Where the mistake is, when it is at one member or joint (for the comment id).</summary>
+    public Place? Place { get; init; }
+
+    /// <summary>True when redoing the analysis with this mistake reproduces every compared claim within the agreement band.</summary>
+    public bool Reproduces { get; init; }
+
+    /// <summary>The claimed ends this cause accounts for (within the agreement band of its prediction).</summary>
+    public IReadOnlyList<EndKey> Explained { get; init; } = [];
+}
 
 /// <summary>The review of one load case.</summary>
 public sealed record CaseReview(
     string Case,
     double PeakMoment,
-    double AgreeTolerance,
-    double MinorTolerance,
+    ToleranceBand Band,
     IReadOnlyList<EndMomentFinding> EndMoments,
     IReadOnlyList<QuantityFinding> Reactions,
     IReadOnlyList<QuantityFinding> Displacements,
@@ -126,12 +190,46 @@ public sealed record CaseReview(
 {
     public int Count(EndStatus s) => EndMoments.Count(e => e.Status == s);
 
+    /// <summary>Largest difference that agrees (N·m).</summary>
+    public double AgreeTolerance => Band.Agree;
+
+    /// <summary>Largest difference that is minor (N·m).</summary>
+    public double MinorTolerance => Band.Minor;
+
     /// <summary>The audit of the author's working table for this case, when one was submitted.</summary>
     public Diagnosis.WorkingAudit? Audit { get; init; }
 }
 
-/// <summary>A comment for the schedule: a stable id the designer can answer against.</summary>
-public sealed record ReviewComment(string Id, Severity Severity, string Case, string Where, string Text, string Source);
+/// <summary>One finding listed under a comment: what it is, where, and the sentence and sources behind it.</summary>
+/// <param name="Kind">Contract word: <c>end-moment</c> for a compared end, else the flag kind (<c>joint-equilibrium</c>, ...).</param>
+/// <param name="Case">Load case.</param>
+/// <param name="Severity">Its own severity.</param>
+/// <param name="Place">Where it is.</param>
+/// <param name="Text">What it is, quoting the author's figures as written.</param>
+/// <param name="Source">The rows it rests on (compact form).</param>
+public sealed record Symptom(string Kind, string Case, Severity Severity, Place Place, string Text, string Source);
+
+/// <summary>
+/// A comment for the schedule: one per mistake. A diagnosed mistake's comment holds every finding it explains; without a
+/// diagnosis, the findings that one wrong figure explains are one comment about that figure.
+/// </summary>
+/// <param name="Id">Stable id the designer answers against (<c>EQ-DL-C</c>, <c>FEM-LL-BC</c>).</param>
+/// <param name="Severity">The worst of its symptoms.</param>
+/// <param name="Case">The load case (cases joined by ", " when one mistake is in several).</param>
+/// <param name="Where">The place in words.</param>
+/// <param name="Text">The comment, quoting the author's figures as written.</param>
+/// <param name="Source">The rows it rests on (compact form).</param>
+public sealed record ReviewComment(string Id, Severity Severity, string Case, string Where, string Text, string Source)
+{
+    /// <summary>The findings this comment stands for, each with its own place and source.</summary>
+    public IReadOnlyList<Symptom> Symptoms { get; init; } = [];
+
+    /// <summary>The diagnosed mistake the comment is about, if any.</summary>
+    public CauseCode? Cause { get; init; }
+
+    /// <summary>The load cases the comment concerns.</summary>
+    public IReadOnlyList<string> Cases { get; init; } = [];
+}
 
 /// <summary>Everything a review found.</summary>
 public sealed record ReviewResult(
@@ -153,38 +251,3 @@ public sealed record ReviewResult(
     public IEnumerable<Flag> AllFlags => Cases.SelectMany(c => c.Flags);
 }
 
-public static class ReviewWords
-{
-    public static string Json(this EndStatus s) => s.ToString().ToLowerInvariant();
-
-    public static string Json(this Severity s) => s.ToString().ToLowerInvariant();
-
-    public static string Json(this FlagKind k) => k switch
-    {
-        FlagKind.EndMoment => "end-moment",
-        FlagKind.JointEquilibrium => "joint-equilibrium",
-        FlagKind.ReleasedEnd => "released-end",
-        FlagKind.StoreyShear => "storey-shear",
-        FlagKind.Reaction => "reaction",
-        FlagKind.Displacement => "displacement",
-        FlagKind.Symmetry => "symmetry",
-        FlagKind.DistributionTable => "distribution-table",
-        FlagKind.Conditioning => "conditioning",
-        _ => "compatibility",
-    };
-
-    public static string Json(this Verdict v) => v switch
-    {
-        Verdict.Concur => "concur",
-        Verdict.ConcurWithComments => "concur-with-comments",
-        _ => "revise",
-    };
-
-    /// <summary>The verdict in words for a memo heading.</summary>
-    public static string Words(this Verdict v) => v switch
-    {
-        Verdict.Concur => "Concur",
-        Verdict.ConcurWithComments => "Concur with comments",
-        _ => "Revise and resubmit",
-    };
-}

@@ -45,7 +45,7 @@ public class ScreenGroupingTests
         var withCauses = review with
         {
             Cases = review.Cases.Select(c => c.Case == "G+W"
-                ? c with { Causes = [new Cause("unit-scale", 0.3, 0.4, "m"), new Cause("sway-omitted", 0.93, 0.98, "m")] }
+                ? c with { Causes = [new Cause(CauseCode.UnitScale, 0.3, 0.4, "m"), new Cause(CauseCode.SwayOmitted, 0.93, 0.98, "m")] }
                 : c).ToList(),
         };
         var key = ScreenGrouping.Classify(withCauses);

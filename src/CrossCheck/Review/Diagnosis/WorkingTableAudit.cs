@@ -283,8 +283,10 @@ public static class WorkingTableAudit
         var mu = s.Info.Units.Moment;
         string M(double v) => $"{Fmt.Number(mu.FromSi(v), "0.0#")} {mu.Symbol}";
         if (a.First is null)
-            return new Flag(FlagKind.DistributionTable, Severity.Info, $"working table, case {a.Case}", null,
-                string.Create(CultureInfo.InvariantCulture, $"The moment-distribution table of case {a.Case} ({a.Variant}) was checked cell by cell ({a.CellsChecked} cells): its arithmetic is consistent."), []);
+        {
+            string ok = string.Create(CultureInfo.InvariantCulture, $"The moment-distribution table of case {a.Case} ({a.Variant}) was checked cell by cell ({a.CellsChecked} cells): its arithmetic is consistent.");
+            return new Flag(FlagKind.DistributionTable, Severity.Info, new WorkingCellPlace(a.Case, null, null), null, ok, []) { Brief = ok };
+        }
         var w = a.First;
         bool factor = w.Step == WorkingStep.DistributionFactor;
         string found = factor ? Fmt.Number(w.Found, "0.###") : M(w.Found);
@@ -299,9 +301,12 @@ public static class WorkingTableAudit
         };
         var sev = Math.Abs(a.KnockOn) > agreeTolerance ? Severity.Major : Severity.Minor;
         string more = a.CellsWrong > 1 ? $" In all, {a.CellsWrong} of the {a.CellsChecked} cells checked do not follow from the cells before them." : "";
-        return new Flag(FlagKind.DistributionTable, sev, $"working table, case {a.Case}, {w.Row} / {w.Column}", w.Found - w.Expected,
+        return new Flag(FlagKind.DistributionTable, sev, new WorkingCellPlace(a.Case, w.Row, w.Column), w.Found - w.Expected,
             $"The moment-distribution table of case {a.Case} first goes wrong in row '{w.Row}', column {w.Column} ({w.Source.Citation}): it shows {found} where {why} gives {expected}. " +
             $"Redone with correct arithmetic from there on, the table's final moments change by up to {M(Math.Abs(a.KnockOn))} (column {a.KnockOnColumn}).{more}",
-            [w.Source]);
+            [w.Source])
+        {
+            Brief = $"distribution table, case {a.Case}: row '{w.Row}', column {w.Column} shows {found} where {expected} follows",
+        };
     }
 }

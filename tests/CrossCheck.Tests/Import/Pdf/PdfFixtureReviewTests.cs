@@ -42,10 +42,11 @@ public class PdfFixtureReviewTests
             list.Add($"case {c.Case} peak {G(c.PeakMoment)}");
             list.AddRange(c.EndMoments.Select(e => $"end {e.Case} {e.Member} {e.End} {G(e.Claimed)} {G(e.Recomputed)} {e.Status}").Order(StringComparer.Ordinal));
             list.AddRange(c.Reactions.Concat(c.Displacements).Select(q => $"quantity {q.Case} {q.Joint} {q.Component} {G(q.Claimed)} {G(q.Recomputed)} {q.Status}"));
-            list.AddRange(c.Flags.Select(f => $"flag {f.Kind} {f.Severity} {f.Where} {G(f.Value)} {T(f.Message)}"));
+            // Messages quote the figures as printed and cite the document's lines, which differ between a CSV and its PDF by design.
+            list.AddRange(c.Flags.Select(f => $"flag {f.Kind} {f.Severity} {T(f.Where)} {G(f.Value)}"));
             list.AddRange(c.Causes.Select(k => $"cause {k.Code} {G(k.Confidence)}"));
         }
-        list.AddRange(r.Comments.Select(c => $"comment {c.Id} {c.Severity} {T(c.Text)}"));
+        list.AddRange(r.Comments.Select(c => $"comment {c.Id} {c.Severity} {c.Cause} {string.Join("; ", c.Symptoms.Select(y => $"{y.Kind} {y.Case} {T(y.Place.Words)} {y.Severity}"))}"));
         return list;
     }
 
