@@ -66,10 +66,13 @@ internal static class CommentSchedule
             var explained = cause.Reproduces ? wrong.Select(e => e.Key!.Value).ToHashSet() : cause.Explained.ToHashSet();
             var ends = wrong.Where(e => explained.Contains(e.Key!.Value)).ToList();
             var byCause = flags.Where(f => f.Ends.Count > 0 ? f.Ends.All(k => explained.Contains(k) || agreeing.Contains(k))
-                : f.Kind == FlagKind.DistributionTable && cause.Kind == CauseCode.DistributionArithmetic).ToList();
+                : f.Kind == FlagKind.DistributionTable && c.Audit?.First is { } cell && ExplainsTable(cause, cell.Step)).ToList();
             if (ends.Count > 0)
             {
-                drafts.Add(CauseDraft(c, cause, ends, byCause, quote, c.Causes.Skip(1).FirstOrDefault(x => x.Reproduces && cause.Reproduces)));
+                // An equally good alternative is worth naming only when it is a different mistake of method or model, not a
+                // slip that reproduces any wrong figure by construction.
+                var alternative = c.Causes.Skip(1).FirstOrDefault(x => x.Reproduces && cause.Reproduces && x.Kind.Term().Systematic);
+                drafts.Add(CauseDraft(c, cause, ends, byCause, quote, alternative));
                 wrong = wrong.Except(ends).ToList();
                 flags = flags.Except(byCause).ToList();
             }
@@ -117,7 +120,7 @@ internal static class CommentSchedule
         d.Sources.AddRange(ends.Select(e => e.Source));
         d.Sources.AddRange(flags.SelectMany(f => f.Sources));
         d.Severity = Worst(ends, flags);
-        var text = new List<string> { $"{Capital(term.Title)}: {cause.Message}" };
+        var text = new List<string> { $"{Capital(term.Title)}. {cause.Message}" };
         if (alternative is not null) text.Add($"Another mistake gives the same claims, so it may be this instead: {alternative.Message}");
         if (cause.CorrectWorking.Length > 0) text.Add(cause.CorrectWorking);
         if (cause.Kind != CauseCode.CopyingSlip) text.Add(Corrected(ends, quote));
@@ -125,6 +128,19 @@ internal static class CommentSchedule
         d.Text = string.Join(" ", text.Where(t => t.Length > 0));
         return d;
     }
+
+    /// <summary>
+    /// Whether a mistake explains the first wrong cell of the author's own table: a table worked consistently with a wrong
+    /// method first departs from correct working at the step the mistake touches.
+    /// </summary>
+    private static bool ExplainsTable(Cause cause, WorkingStep first) => cause.Kind switch
+    {
+        CauseCode.DistributionArithmetic => true,
+        CauseCode.StiffnessWithoutLength or CauseCode.FarEndFixity or CauseCode.HingeIgnored => cause.Reproduces && first == WorkingStep.DistributionFactor,
+        CauseCode.FixedEndMoment or CauseCode.LoadMisplaced or CauseCode.SettlementIgnored => cause.Reproduces && first == WorkingStep.FixedEndMoment,
+        CauseCode.CarryOver => cause.Reproduces && first == WorkingStep.CarryOver,
+        _ => false,
+    };
 
     /// <summary>"With the correct working the claims would be: BC at B −71.01 (claimed −69.1), ... (kN·m, clockwise on the member end)."</summary>
     private static string Corrected(List<EndMomentFinding> ends, Quoting quote)
@@ -145,7 +161,7 @@ internal static class CommentSchedule
         d.Severity = Worst([e], flags);
         string also = string.Join("; ", flags.Select(f => f.Brief.Length > 0 ? f.Brief : f.Kind.Term().Title));
         d.Text = $"Member {e.Member} at {e.At}, case {c.Case}: {quote.Claim(e.Claim!)} is claimed; the analysis gives {quote.EndMoment(e.Recomputed!.Value, e.End!.Value)} " +
-                 $"({quote.ConventionNote}). " +
+                 $"({quote.ConventionWords}). " +
                  (othersAgree ? "Every other figure of the case agrees with the analysis, so this one figure is wrong. " : "") +
                  $"The checks of the claims point to the same figure ({also}). Please check this figure and what was derived from it.";
         return d;

@@ -48,6 +48,9 @@ public sealed class Quoting
     /// <summary>A force: <c>12.5 kN</c>.</summary>
     public string Force(double si) => $"{Fmt.Number(_info.Units.Force.FromSi(si), "0.0#")} {_info.Units.Force.Symbol}";
 
+    /// <summary>A load's force as a designer writes it: <c>40 kN</c>, <c>12.5 kN</c>.</summary>
+    public string LoadForce(double si) => $"{Fmt.Number(_info.Units.Force.FromSi(si), "0.###")} {_info.Units.Force.Symbol}";
+
     /// <summary>A length: <c>4 m</c>.</summary>
     public string Length(double si) => $"{Fmt.Number(_info.Units.Length.FromSi(si), "0.###")} {_info.Units.Length.Symbol}";
 
@@ -68,5 +71,8 @@ public sealed class Quoting
             : component == "rotation" ? new UnitChoice("rad", 1) : _info.Units.Displacement;
 
     /// <summary>The convention in a few words for a bracket after figures: "kN·m, clockwise on the member end (assumed: not stated)".</summary>
-    public string ConventionNote => $"{MomentUnit.Symbol}, {Convention.Short()}{(ConventionAssumed ? " (assumed: the submission does not state its convention)" : "")}";
+    /// <summary>The convention alone: "clockwise on the member end", with the assumption when there is one.</summary>
+    public string ConventionWords => $"{Convention.Short()}{(ConventionAssumed ? ", assumed as the submission states no convention" : "")}";
+
+    public string ConventionNote => $"{MomentUnit.Symbol}, {Convention.Short()}{(ConventionAssumed ? ", assumed as the submission states no convention" : "")}";
 }

@@ -109,7 +109,7 @@ internal sealed class DiagnosisContext
         string where = load.Source.Citation;
         return load switch
         {
-            PointLoad p => $"point load {Quote.Force(p.P)} at {Quote.Length(p.A)} ({where})",
+            PointLoad p => $"point load {Quote.LoadForce(p.P)} at {Quote.Length(p.A)} ({where})",
             DistributedLoad d when d.IsUniform => $"uniform load {Quote.LineLoad(d.WStart)} ({where})",
             DistributedLoad d => $"linear load {Quote.LineLoad(d.WStart)} to {Quote.LineLoad(d.WEnd)} ({where})",
             MemberCouple c => $"couple {Quote.Moment(Math.Abs(c.M))} at {Quote.Length(c.A)} ({where})",
@@ -121,7 +121,7 @@ internal sealed class DiagnosisContext
     public string LoadWords(Load l) => l switch
     {
         MemberLoad ml => $"{Describe(ml)} on member {ml.Member}",
-        JointForce f => $"{Quote.Force(f.P)} force at joint {f.Joint} ({l.Source.Citation})",
+        JointForce f => $"{Quote.LoadForce(f.P)} force at joint {f.Joint} ({l.Source.Citation})",
         JointCouple c => $"couple {Quote.Moment(Math.Abs(c.M))} at joint {c.Joint} ({l.Source.Citation})",
         _ => $"load ({l.Source.Citation})",
     };

@@ -84,12 +84,28 @@ public static class WorkingTableAudit
             _fem = t.Columns.Select(c =>
             {
                 var mem = _m.Member(c.Member);
+                if (Overhang(mem, loadCase, statics) is { } cantilever) return cantilever;
                 var (fs, fe) = statics.FixedEndMoments(t.Case, mem);
                 // Support movements: the prescribed parts of the joint and chord rotations (slope-deflection).
                 double L = _m.Length(mem), ei = mem.E * mem.I;
                 double psi = kin.ChordRotation(mem).Constant, ta = kin.JointRotation(mem.Start).Constant, tb = kin.JointRotation(mem.End).Constant;
                 return (fs + (2 * ei / L * ((2 * ta) + tb - (3 * psi))), fe + (2 * ei / L * (ta + (2 * tb) - (3 * psi))));
             }).ToArray();
+        }
+
+        /// <summary>The end moments of an overhang from statics alone: the cantilever moment of its own loads at the root, zero at the tip.</summary>
+        private (double S, double E)? Overhang(Member m, LoadCase loadCase, ClaimStatics statics)
+        {
+            foreach (var tipEnd in new[] { MemberEnd.Start, MemberEnd.End })
+            {
+                if (!Tip(m, tipEnd) || Tip(m, Far(tipEnd))) continue;
+                var root = _m.Joint(m.JointAt(Far(tipEnd)));
+                string tip = m.JointAt(tipEnd);
+                double moment = loadCase.Loads.Where(l => l is MemberLoad ml && ml.Member == m.Id || l is JointLoad jl && jl.Joint == tip)
+                    .Sum(l => statics.Resultant(l, root.X, root.Y).Moment);
+                return tipEnd == MemberEnd.End ? (moment, 0) : (0, moment);
+            }
+            return null;
         }
 
         private Member MemberOf(int i) => _m.Member(_t.Columns[i].Member);
@@ -102,10 +118,21 @@ public static class WorkingTableAudit
 
         private static MemberEnd Far(MemberEnd e) => e == MemberEnd.Start ? MemberEnd.End : MemberEnd.Start;
 
-        /// <summary>Rotational stiffness of a member end in the chosen variant (0 when released).</summary>
+        /// <summary>
+        /// True for the free tip of an overhang: a joint with no support and this member alone. A cantilever has no
+        /// rotational stiffness at its root (its tip moves freely), so it takes no distributed moment (DF 0) and its root
+        /// moment is statical (common practice in hand distribution).
+        /// </summary>
+        private bool Tip(Member m, MemberEnd end)
+        {
+            var j = _m.Joint(m.JointAt(end));
+            return j.Restraint == Restraint.Free && _m.MembersAt(j.Id).Count() == 1;
+        }
+
+        /// <summary>Rotational stiffness of a member end in the chosen variant (0 when released, or for an overhang).</summary>
         private double Stiffness(Member m, MemberEnd end, bool modified)
         {
-            if (m.IsReleased(end)) return 0;
+            if (m.IsReleased(end) || Tip(m, Far(end)) || Tip(m, end)) return 0;
             double k = m.E * m.I / _m.Length(m);
             bool farPinned = m.IsReleased(Far(end)) || (modified && PinLike(m, Far(end)) && !PinLike(m, end));
             return farPinned ? 3 * k : 4 * k;
@@ -118,7 +145,7 @@ public static class WorkingTableAudit
             var m = MemberOf(i);
             var joint = _m.Joints[_joint[i]];
             if (joint.Restraint.HasFlag(Restraint.Rotation)) return 0;
-            if (modified && PinLike(m, c.End)) return null;
+            if (Tip(m, c.End) || (modified && PinLike(m, c.End))) return null;
             double sum = _m.MembersAt(joint.Id).Sum(x => Stiffness(x, x.EndAt(joint.Id)!.Value, modified));
             return sum > 0 ? Stiffness(m, c.End, modified) / sum : 0;
         }

@@ -147,6 +147,16 @@ public class DiagnosisTests
                 [Restraint.Pinned, Restraint.Roller, Restraint.Roller], 200e6, [2.5e-4, 2.5e-4]).Udl("S1", 18).Udl("S2", 18) is var b ? Settle(b) : b,
             () => Beam((0, 81), (-81, 0))),
 
+        // Support movements elsewhere must not mislead the diagnosis: the settlement is right, the other mistake is not.
+        // Hand slope-deflection with the settlement as chord rotations: −6EIΔ/L² on the span whose far end settles, +6EIΔ/L²
+        // on the span whose near end settles (Erochko FEM table "6ΔEI/L²"; REFERENCE-CHECKS.md case 1.9).
+        new("fixed-end-moment", "two spans, B settles 10 mm, P at 2 m on S1 taken as PL/8", SettledTwoSpan,
+            () => Beam(SlopeDeflection([50000 / 6.0, 50000 / 6.0], [false, false, false],
+                [Sum(Udl(18, 6), (-40 * 6 / 8.0, 40 * 6 / 8.0), Settlement(-1)), Sum(Udl(18, 6), Settlement(1))]))),
+        new("load-misplaced", "two spans, B settles 10 mm, the UDL on S2 left out", SettledTwoSpan,
+            () => Beam(SlopeDeflection([50000 / 6.0, 50000 / 6.0], [false, false, false],
+                [Sum(Udl(18, 6), Point(40, 2, 6), Settlement(-1)), Settlement(1)]))),
+
         // copying-slip: published values copied with one slip (digits exchanged, sign lost, decimal point moved).
         new("copying-slip", "beam 4a, M_B = 94.6 copied as 49.6 at AB@B", () => ReferenceModels.Unequal(Restraint.Pinned),
             () => Named(Members4a, (0, 49.6), (-94.6, 66.6), (-66.6, 0))),
@@ -157,6 +167,14 @@ public class DiagnosisTests
         new("copying-slip", "beam 4a, M_C = 66.64 copied as 6.66 at CD@C", () => ReferenceModels.Unequal(Restraint.Pinned),
             () => Named(Members4a, (0, 94.62), (-94.62, 66.64), (-6.66, 0))),
     ]);
+
+    /// <summary>Two 6 m spans, EI = 50 000 kN·m², B settles 10 mm; UDL 18 kN/m on both and 40 kN at 2 m on S1.</summary>
+    private static FrameBuilder SettledTwoSpan() => new FrameBuilder()
+        .Joint("J0", 0, 0, Restraint.Pinned).Joint("J1", 6, 0, Restraint.Roller, new SupportMovement(0, -0.01, 0)).Joint("J2", 12, 0, Restraint.Roller)
+        .Member("S1", "J0", "J1", 200e6, 2.5e-4).Member("S2", "J1", "J2", 200e6, 2.5e-4).Udl("S1", 18).Udl("S2", 18).Point("S1", 40, 2);
+
+    /// <summary>Fixed-end moments of a 6 m span (EI = 50 000) whose far (−1) or near (+1) end settles 10 mm: ∓6EIΔ/L² at both ends.</summary>
+    private static (double, double) Settlement(int sign) { double m = sign * 6 * 50000 * 0.01 / 36; return (m, m); }
 
     private static FrameBuilder HingedTwoSpan() => new FrameBuilder()
         .Joint("J0", 0, 0, Restraint.Pinned).Joint("J1", 6, 0, Restraint.Roller).Joint("J2", 12, 0, Restraint.Roller)

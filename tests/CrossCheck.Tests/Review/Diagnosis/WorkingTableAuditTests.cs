@@ -136,3 +136,92 @@ public class WorkingTableDemoTests
         c.Causes[0].Code.ShouldBe("distribution-arithmetic");
     }
 }
+
+/// <summary>
+/// A beam with an overhang distributed the way engineers do it by hand: the cantilever takes no distributed moment
+/// (distribution factor 0) and its root moment is statical, w·a²/2 = 18 × 2² / 2 = 36 kN·m (common practice). Spans
+/// AB = BC = 6 m (A fixed or pinned), overhang CD = 2 m, w = 18 kN/m everywhere, EI equal; plain stiffness 4EI/L, or
+/// modified 3EI/L at the pinned end. A correct table concurs.
+/// </summary>
+public class OverhangTableTests
+{
+    private static string Csv(string restraintA, bool modified)
+    {
+        // Columns: AB@A, AB@B, BC@B, BC@C, CD@C, CD@D. Fixed-end moments wL²/12 = 54 (Hicks, Fig. 2.2 case 5).
+        double[] fem = [-54, 54, -54, 54, -36, 0];
+        bool pinned = restraintA == "pinned";
+        double kAB = modified && pinned ? 3 : 4, kBC = 4;
+        double[] df = [pinned ? 1 : 0, kAB / (kAB + kBC), kBC / (kAB + kBC), 1, 0, 0];
+        if (modified && pinned) { fem[1] += 54 / 2.0; fem[0] = 0; df[0] = 0; } // A released once: half carried to B
+        int[] other = [1, 0, 3, 2, 5, 4];
+        double[] cof = [modified && pinned ? 0 : 0.5, modified && pinned ? 0 : 0.5, 0.5, 0.5, 0, 0];
+        int[] joint = [0, 1, 1, 2, 2, 3];
+        var rows = new List<(string, double[])> { ("DF", df), ("FEM", (double[])fem.Clone()) };
+        var state = (double[])fem.Clone();
+        for (int cycle = 1; cycle <= 14; cycle++)
+        {
+            var bal = new double[6];
+            for (int i = 0; i < 6; i++)
+            {
+                double unbalance = Enumerable.Range(0, 6).Where(k => joint[k] == joint[i]).Sum(k => state[k]);
+                bal[i] = -df[i] * unbalance;
+            }
+            for (int i = 0; i < 6; i++) state[i] += bal[i];
+            rows.Add(($"balance {cycle}", bal));
+            if (cycle == 14) break;
+            var co = new double[6];
+            for (int i = 0; i < 6; i++) co[other[i]] += cof[i] * bal[i];
+            for (int i = 0; i < 6; i++) state[i] += co[i];
+            rows.Add(($"carry-over {cycle}", co));
+        }
+        rows.Add(("final", state));
+        var sb = new System.Text.StringBuilder($"""
+            [info]
+            key,value
+            force unit,kN
+            length unit,m
+            sign convention,clockwise
+
+            [joints]
+            joint,x,y,restraint
+            A,0,0,{restraintA}
+            B,6,0,roller
+            C,12,0,roller
+            D,14,0,free
+
+            [members]
+            member,start,end,E [GPa],I [mm^4]
+            AB,A,B,200,250e6
+            BC,B,C,200,250e6
+            CD,C,D,200,250e6
+
+            [loads]
+            on,kind,w
+            AB,udl,18
+            BC,udl,18
+            CD,udl,18
+
+            [end-moments]
+            member,at,moment
+
+            """);
+        string[] cols = ["AB,A", "AB,B", "BC,B", "BC,C", "CD,C", "CD,D"];
+        for (int i = 0; i < 6; i++) sb.Append(cols[i]).Append(',').Append(state[i].ToString("0.00", System.Globalization.CultureInfo.InvariantCulture)).Append('\n');
+        sb.Append("\n[distribution]\nstep,AB@A,AB@B,BC@B,BC@C,CD@C,CD@D\n");
+        foreach (var (label, values) in rows)
+            sb.Append(label).Append(',').Append(string.Join(",", values.Select(v => v.ToString(label == "DF" ? "0.000" : "0.00", System.Globalization.CultureInfo.InvariantCulture)))).Append('\n');
+        return sb.ToString();
+    }
+
+    [Theory]
+    [InlineData("fixed", false)]
+    [InlineData("pinned", false)]
+    [InlineData("pinned", true)]
+    public void CorrectOverhangTable_Concurs(string restraintA, bool modified)
+    {
+        var review = Reviewing.Of(Csv(restraintA, modified));
+        var audit = review.Cases[0].Audit.ShouldNotBeNull();
+        audit.First.ShouldBeNull($"first wrong cell: {audit.First}");
+        review.Verdict.ShouldBe(Verdict.Concur, string.Join("\n", review.Comments.Select(c => $"{c.Id}: {c.Text}")));
+    }
+}

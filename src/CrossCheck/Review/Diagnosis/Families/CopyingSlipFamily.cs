@@ -50,10 +50,10 @@ internal sealed class CopyingSlipFamily : IHypothesisFamily
         var first = x.Ends[slips[0].Index];
         yield return new Hypothesis(CauseCode.CopyingSlip, 4, all,
             slips.Count == 1
-                ? $"A copying slip, not an analysis error: the claim for {Describe(slips[0])}. Correct the figure where it was copied."
-                : $"Copying slips, not analysis errors: {string.Join("; ", slips.Select(Describe))}. Correct the figures where they were copied.")
+                ? $"The claim for {Describe(slips[0])}. The analysis behind it is right; correct the figure where it was copied."
+                : $"The claims for {string.Join("; ", slips.Select(Describe))}. The analysis behind them is right; correct the figures where they were copied.")
         {
-            Identity = $"copying-slip|{x.Case.Id}|{string.Join(",", slips.Select(s => x.Keys[s.Index].ToString()))}",
+            Identity = $"copying-slip|{x.Case.Id}|{string.Join(",", slips.Select(s => $"{x.Keys[s.Index].Member}@{x.Keys[s.Index].End}"))}",
             Place = slips.Count == 1 ? first.Place : null,
         };
     }
