@@ -72,7 +72,7 @@ public static partial class ReviewEngine
         return new Flag(FlagKind.Conditioning, Severity.Minor, where, null, $"{n.Describe()} Please confirm the section properties.{all}", sources);
     }
 
-    /// <summary>Per REVIEW-JSON.md: concur when every end agrees and no flag is above info; revise on any discrepant end or major flag.</summary>
+    /// <summary>Per docs/REVIEW-JSON.md: concur when every end agrees and no flag is above info; revise on any discrepant end or major flag.</summary>
     public static Verdict VerdictOf(IEnumerable<CaseReview> cases)
     {
         var list = cases.ToList();

@@ -4,7 +4,7 @@ using CrossCheck.Tests.Support;
 namespace CrossCheck.Tests.Analysis;
 
 /// <summary>
-/// Group 6 of REFERENCE-CHECKS.md: sway frames with no closed form. NOT published values: regression values
+/// Group 6 of docs/REFERENCE-CHECKS.md: sway frames with no closed form. NOT published values: regression values
 /// from the independent cross-check script (slope-deflection solver D, exact axial rigidity, agreeing with a
 /// stiffness solver within 1e-5 kN·m). Each frame is also checked by the equilibrium recipe of that group.
 /// </summary>
@@ -37,7 +37,7 @@ public class RegressionSwayFrameTests
     public void Frame6a_TwoStoreys_RegressionValues()
     {
         var r = Frame6a(false).Solve().Cases[0];
-        // Tolerance: 1e-5 relative of the largest moment (≈ 96 kN·m), as REFERENCE-CHECKS.md recommends for G6.
+        // Tolerance: 1e-5 relative of the largest moment (≈ 96 kN·m), as docs/REFERENCE-CHECKS.md recommends for G6.
         Moments(r,
         [
             ("AC", true, -25.997710), ("BD", true, -52.875347), ("AC", false, -1.185834), ("CD", true, -27.442010),

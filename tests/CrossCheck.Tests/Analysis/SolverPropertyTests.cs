@@ -165,7 +165,7 @@ public class SolverPropertyTests
             var cases = b.Cases.Select(lc => new LoadCase(lc.Id, lc.Loads.Select(Mirror).ToList())).ToList();
             var r0 = b.Solve().Cases[0];
             var r1 = new FrameSolver().Solve(mirrored, cases).Cases[0];
-            // Mirroring reverses every clockwise moment (REFERENCE-CHECKS.md 8.7, common knowledge).
+            // Mirroring reverses every clockwise moment (docs/REFERENCE-CHECKS.md 8.7, common knowledge).
             foreach (var m in model.Members)
             {
                 Near.Equal(r1.Members[m.Id].StartMoment, -r0.Members[m.Id].StartMoment, relative: 0, absolute: 1e-8 * Scale(r0));
