@@ -34,6 +34,7 @@ public class ReviewCommandTests
     {
         var r = CliRunner.Run("review", CliRunner.Demo("footbridge.csv"), "--format", "json");
         r.ExitCode.ShouldBe(ExitCodes.Comments, r.Err);
+        r.Out.ShouldMatchReviewSchema(); // docs/review.schema.json
         using var doc = JsonDocument.Parse(r.Out); // nothing but JSON on standard output
         var root = doc.RootElement;
         root.GetProperty("schema").GetString().ShouldBe("crosscheck-review/1");
@@ -91,6 +92,7 @@ public class ReviewCommandTests
         string path = t.Write("bad.csv", SampleText.With(frame: SampleText.Frame.Replace("AB,A,B,200,250e6", "AB,A,B,200,-1")));
         var r = CliRunner.Run("review", path, "--format", "json");
         r.ExitCode.ShouldBe(ExitCodes.InputError);
+        r.Out.ShouldMatchReviewSchema();
         using var doc = JsonDocument.Parse(r.Out);
         doc.RootElement.GetProperty("verdict").ValueKind.ShouldBe(JsonValueKind.Null);
         var e = doc.RootElement.GetProperty("inputErrors")[0];
@@ -138,7 +140,7 @@ public class ReviewCommandTests
     {
         // With a 30 % agreement band the copying slip of the demo (27 of 115 kN·m) becomes agreement.
         var r = CliRunner.Run("review", CliRunner.Demo("footbridge.csv"), "-f", "json", "--tolerance", "0.3", "--minor-tolerance", "0.4");
-        using var doc = JsonDocument.Parse(r.Out);
+        using var doc = JsonDocument.Parse(r.Out.ShouldMatchReviewSchema());
         doc.RootElement.GetProperty("cases")[0].GetProperty("endMoments").EnumerateArray()
             .ShouldAllBe(e => e.GetProperty("status").GetString() == "agree");
     }
@@ -159,6 +161,6 @@ public class ReviewCommandTests
             """, loads: "[loads]\non,kind,P,dir\nB,force,3,right"));
         var r = CliRunner.Run("review", path, "-f", "json");
         r.ExitCode.ShouldBe(ExitCodes.InputError);
-        JsonDocument.Parse(r.Out).RootElement.GetProperty("inputErrors")[0].GetProperty("message").GetString()!.ShouldContain("mechanism");
+        JsonDocument.Parse(r.Out.ShouldMatchReviewSchema()).RootElement.GetProperty("inputErrors")[0].GetProperty("message").GetString()!.ShouldContain("mechanism");
     }
 }

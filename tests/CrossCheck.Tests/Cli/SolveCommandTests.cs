@@ -21,7 +21,7 @@ public class SolveCommandTests
     {
         var r = CliRunner.Run("solve", CliRunner.Demo("shed-frame"), "--format", "json");
         r.ExitCode.ShouldBe(0, r.Err);
-        using var doc = JsonDocument.Parse(r.Out);
+        using var doc = JsonDocument.Parse(r.Out.ShouldMatchSolveSchema());
         doc.RootElement.GetProperty("schema").GetString().ShouldBe("crosscheck-solve/1");
         var g = doc.RootElement.GetProperty("cases")[0];
         g.GetProperty("case").GetString().ShouldBe("G");
