@@ -12,7 +12,9 @@ public class SolveCommandTests
         var r = CliRunner.Run("solve", CliRunner.Demo("footbridge.csv"));
         r.ExitCode.ShouldBe(ExitCodes.Concur, r.Err);
         r.Out.ShouldContain("load case DL");
-        r.Out.ShouldContain("114.73"); // three-moment equation by hand: 5889.33 / 51.333 (see the closing note)
+        // Support moment under DL by the three-moment equation (Clapeyron, I per span; see ReviewCommandTests):
+        // 3.5 × (8²·32 + 10²·30) / 154 = 114.727 kN·m, printed to two decimals.
+        r.Out.ShouldContain("114.73");
         r.Out.ShouldContain("kN·m");
     }
 
