@@ -10,7 +10,7 @@ namespace CrossCheck.Tests.Memo;
 
 /// <summary>
 /// The JSON contract of docs/REVIEW-JSON.md, held by docs/review.schema.json (and docs/solve.schema.json): every
-/// submission the repository holds — demos, PDF fixtures, the fuzzing seed and every entry of the bad-input catalogue —
+/// submission the repository holds — demos, PDF fixtures, the fuzzing starting point (two-bay shelter) and every entry of the bad-input catalogue —
 /// reviewed with <c>--format json</c> gives a document that conforms; the schema refuses documents that break the
 /// contract; and its enumerations are exactly the words and codes the code writes.
 /// </summary>
@@ -48,7 +48,7 @@ public class ReviewSchemaTests
             yield return "pdf:" + Path.GetFileName(p);
         foreach (var p in Directory.EnumerateFiles(Path.Combine(Root, "fixtures", "pdf", "errors"), "*.pdf").Order(StringComparer.Ordinal))
             yield return "pdf-error:" + Path.GetFileName(p);
-        yield return "seed:two-bay-shelter.csv";
+        yield return "fuzz:two-bay-shelter.csv";
     }
 
     private static string PathOf(string key, string scratch)
@@ -60,7 +60,7 @@ public class ReviewSchemaTests
             "demo" => Path.Combine(Root, "fixtures", "demo", name),
             "pdf" => Path.Combine(Root, "fixtures", "pdf", name),
             "pdf-error" => Path.Combine(Root, "fixtures", "pdf", "errors", name),
-            "seed" => Path.Combine(Root, "tests", "CrossCheck.Tests", "Robustness", "Seeds", name),
+            "fuzz" => Path.Combine(Root, "tests", "CrossCheck.Tests", "Robustness", "Seeds", name),
             "bad" => BadInputCatalogue.Get(name).Path(scratch),
             _ => throw new ArgumentException(key),
         };
@@ -202,6 +202,16 @@ public class ReviewSchemaTests
         var verdict = JsonNode.Parse(r.Out)!;
         verdict["verdict"] = "concur";
         ContractSchema.ReviewErrors(verdict.ToJsonString()).ShouldNotBeEmpty("a verdict needs the whole review");
+    }
+
+    [Fact]
+    public void ExamplesInTheContract_ConformToTheSchema()
+    {
+        // The JSON examples of docs/REVIEW-JSON.md (a review, an input error) are held to the schema too.
+        string doc = File.ReadAllText(Path.Combine(ContractSchema.Docs, "REVIEW-JSON.md"));
+        var examples = Regex.Matches(doc, "```json\n(?<json>.*?)\n```", RegexOptions.Singleline).Select(m => m.Groups["json"].Value).ToList();
+        examples.Count.ShouldBe(2);
+        foreach (var example in examples) example.ShouldMatchReviewSchema("an example of docs/REVIEW-JSON.md");
     }
 
     // ---- the schema's enumerations are the code's words --------------------------------------------------------------
