@@ -4,7 +4,7 @@ using CrossCheck.Common;
 
 namespace CrossCheck.Cli;
 
-/// <summary>Exit codes of every command (REVIEW-JSON.md).</summary>
+/// <summary>Exit codes of every command (docs/EXIT-CODES.md).</summary>
 public static class ExitCodes
 {
     public const int Concur = 0;

@@ -29,7 +29,7 @@ internal sealed record TableSpec(string Name, ColumnSpec[] Columns, params strin
     public ColumnSpec Column(string name) => Columns.First(c => c.Name == name);
 }
 
-/// <summary>The tables and columns of SUBMISSION-FORMAT.md (format contract v1), in one place.</summary>
+/// <summary>The tables and columns of docs/SUBMISSION-FORMAT.md (format contract v1), in one place.</summary>
 internal static partial class TableSchema
 {
     private static ColumnSpec Id(string name, bool required = true, params string[] syn) => new(name, ColumnType.Id, QuantityKind.Number, required, syn);

@@ -6,7 +6,7 @@ using CrossCheck.Review;
 
 namespace CrossCheck.Memo;
 
-/// <summary>The review as JSON, per REVIEW-JSON.md (schema <c>crosscheck-review/1</c>).</summary>
+/// <summary>The review as JSON, per docs/REVIEW-JSON.md (schema <c>crosscheck-review/1</c>).</summary>
 public static class ReviewJson
 {
     public const string Schema = "crosscheck-review/1";

@@ -6,7 +6,7 @@ namespace CrossCheck.Tests.Analysis;
 
 /// <summary>
 /// Moment distribution (Hardy Cross, common practice) as a second method: run to convergence it must give the
-/// stiffness solver's end moments on every reference case of REFERENCE-CHECKS.md, with plain and with modified
+/// stiffness solver's end moments on every reference case of docs/REFERENCE-CHECKS.md, with plain and with modified
 /// stiffness; stopped early it must reproduce the hand working of case 7.4.
 /// </summary>
 public class MomentDistributionTests
@@ -34,7 +34,7 @@ public class MomentDistributionTests
     [Fact]
     public void StoppedWhenCarryOversFallBelowATenth_ReproducesTheHandWorkingOf74()
     {
-        // REFERENCE-CHECKS.md 7.4 (common practice): beam 4a, simultaneous balancing, modified stiffness 3EI/L at the
+        // docs/REFERENCE-CHECKS.md 7.4 (common practice): beam 4a, simultaneous balancing, modified stiffness 3EI/L at the
         // pinned ends, stop when every carry-over is below 0.1 kN·m, then a final balance: 6 cycles,
         // M_BA = 94.611213, M_CB = 66.627079 kN·m (exact 94.623912 and 66.638413).
         var b = ReferenceModels.Unequal(Restraint.Pinned);
@@ -50,7 +50,7 @@ public class MomentDistributionTests
     [Fact]
     public void DistributionFactors_AreStiffnessShares()
     {
-        // REFERENCE-CHECKS.md 7.3 (common practice): K = 4EI/L far end fixed, 3EI/L far end pinned; DF = 0.406780, 0.169492, 0.423729.
+        // docs/REFERENCE-CHECKS.md 7.3 (common practice): K = 4EI/L far end fixed, 3EI/L far end pinned; DF = 0.406780, 0.169492, 0.423729.
         var b = ReferenceModels.All().First(c => c.Id == "7.3").Model;
         var table = MomentDistribution.Run(b.Model, b.Cases[0]).NoSway;
         var df = table.Rows[0].Values;

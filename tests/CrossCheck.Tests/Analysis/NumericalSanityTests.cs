@@ -121,7 +121,7 @@ public class NumericalSanityTests
         string md = MemoRenderer.Render(MemoExtensions.Build(review, MemoFormat.Markdown), MemoFormat.Markdown);
         md.ShouldContain("Every recomputed result was verified by equilibrium before it was used");
         md.ShouldContain("The stiffness matrix is ill-conditioned (condition estimate");
-        string json = ReviewJson.Write(review);
+        string json = ReviewJson.Write(review).ShouldMatchReviewSchema();
         json.ShouldContain("\"verified\": true");
         json.ShouldContain("\"stiffer\": \"BC\"");
     }

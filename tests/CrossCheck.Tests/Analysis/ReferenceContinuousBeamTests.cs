@@ -4,7 +4,7 @@ using CrossCheck.Tests.Support;
 namespace CrossCheck.Tests.Analysis;
 
 /// <summary>
-/// Groups 3 and 4 of REFERENCE-CHECKS.md: continuous beams. Spans of 6 m, w = 18 kN/m (wL² = 648 kN·m),
+/// Groups 3 and 4 of docs/REFERENCE-CHECKS.md: continuous beams. Spans of 6 m, w = 18 kN/m (wL² = 648 kN·m),
 /// P = 40 kN, pin at the first support and rollers elsewhere. Interior-support moment M appears as +M on the
 /// left span's right end and −M on the right span's left end (clockwise member-end convention).
 /// </summary>
@@ -36,7 +36,7 @@ public class ReferenceContinuousBeamTests
         { "3.2", 3, [1.0 / 10, 1.0 / 10], [43.2, 118.8], [0.0800, 0.0250], Hicks },
         { "3.3", 4, [3.0 / 28, 2.0 / 28, 3.0 / 28], [42.428571, 123.428571, 100.285714], [0.0772, 0.0364], Hicks },
         { "3.4", 5, [4.0 / 38, 3.0 / 38, 3.0 / 38, 4.0 / 38], [42.631579, 122.210526, 105.157895], [0.0779, 0.0332, 0.0461], Hicks },
-        // Span 2 of 3.5: Hicks prints 0.0340 where the exact value is 0.03407 (REFERENCE-CHECKS.md, disagreement 2); within 1e-4 wL².
+        // Span 2 of 3.5: Hicks prints 0.0340 where the exact value is 0.03407 (docs/REFERENCE-CHECKS.md, disagreement 2); within 1e-4 wL².
         { "3.5", 6, [11.0 / 104, 8.0 / 104, 9.0 / 104, 8.0 / 104, 11.0 / 104], [42.576923, 122.538462, 103.846154, 110.076923], [0.0777, 0.0340, 0.0433], Hicks },
         { "3.6", 7, [15.0 / 142, 11.0 / 142, 12.0 / 142, 12.0 / 142, 11.0 / 142, 15.0 / 142], [42.591549, 122.450704, 104.197183, 108.760563], [0.0778, 0.0338, 0.0440, 0.0405], Hicks },
     };
@@ -123,7 +123,7 @@ public class ReferenceContinuousBeamTests
 
     // Group 4: three unequal spans with different I. Expected values are the Clapeyron three-moment solution
     // (Timoshenko & Young, Theory of Structures; general form with settlement from memory) computed outside the
-    // project and tabulated in REFERENCE-CHECKS.md to six decimals.
+    // project and tabulated in docs/REFERENCE-CHECKS.md to six decimals.
     private static FrameBuilder Unequal(Restraint first, SupportMovement cMovement = default)
     {
         var b = new FrameBuilder()
@@ -153,7 +153,7 @@ public class ReferenceContinuousBeamTests
         Near.Equal(r.Members["CD"].EndMoment, 0, what: "M_DC");
     }
 
-    [Fact] // Hand check of 4a from REFERENCE-CHECKS.md: 8.75·M_B + 1.875·M_C = −952.90625; 1.875·M_B + 9.0833·M_C = −782.71875 (three-moment equation).
+    [Fact] // Hand check of 4a from docs/REFERENCE-CHECKS.md: 8.75·M_B + 1.875·M_C = −952.90625; 1.875·M_B + 9.0833·M_C = −782.71875 (three-moment equation).
     public void ThreeUnequalSpans_SatisfyTheThreeMomentEquations()
     {
         var r = Unequal(Restraint.Pinned).Solve().Cases[0];

@@ -4,7 +4,7 @@ using CrossCheck.Tests.Support;
 namespace CrossCheck.Tests.Analysis;
 
 /// <summary>
-/// Group 1 of REFERENCE-CHECKS.md: fixed-end moments of a single clamped member.
+/// Group 1 of docs/REFERENCE-CHECKS.md: fixed-end moments of a single clamped member.
 /// Instance: L = 6 m, w = 18 kN/m, P = 40 kN, M0 = 30 kN·m, E = 200 GPa (200e6 kN/m²), I = 2.5e-4 m⁴.
 /// Member-end moments clockwise positive; the solver sees none of these formulas.
 /// </summary>
@@ -91,7 +91,7 @@ public class ReferenceFixedEndMomentTests
         Check(b, 4 * EI * theta / L, 2 * EI * theta / L);
     }
 
-    [Theory] // Orientation spot check of REFERENCE-CHECKS.md ("same propped-cantilever moment −81.0000 kN·m for members at 0°, 30°, 90°, 135°, 210°").
+    [Theory] // Orientation spot check of docs/REFERENCE-CHECKS.md ("same propped-cantilever moment −81.0000 kN·m for members at 0°, 30°, 90°, 135°, 210°").
     [InlineData(0)]
     [InlineData(30)]
     [InlineData(90)]

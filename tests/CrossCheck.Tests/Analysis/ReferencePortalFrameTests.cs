@@ -4,7 +4,7 @@ using CrossCheck.Tests.Support;
 namespace CrossCheck.Tests.Analysis;
 
 /// <summary>
-/// Group 5 of REFERENCE-CHECKS.md: single-bay portals, h = 4 m, L = 6 m, I_col = 2.0e-4 m⁴, E = 200 GPa,
+/// Group 5 of docs/REFERENCE-CHECKS.md: single-bay portals, h = 4 m, L = 6 m, I_col = 2.0e-4 m⁴, E = 200 GPa,
 /// k = (I_beam/I_col)(h/L) = 0.5 or 2. Columns AB and DC are drawn bottom to top.
 /// Sources: Kleinlogel, Rigid Frame Formulas (Ungar) — frame and load-case numbers from memory;
 /// Pilkey, Formulas for Stress, Strain, and Structural Matrices, Table 13-2 cases 1 and 6
@@ -67,7 +67,7 @@ public class ReferencePortalFrameTests
         Near.Equal(r.Reactions["A"].Rx + r.Reactions["D"].Rx, -Hload);
     }
 
-    [Theory] // 5.4 — pinned feet, horizontal load: M = Hh/2 at the knees, V_A = −Hh/L; drift Hh²/(12E)(2h/I_c + L/I_b) derived (REFERENCE-CHECKS.md; the forum formula disagrees).
+    [Theory] // 5.4 — pinned feet, horizontal load: M = Hh/2 at the knees, V_A = −Hh/L; drift Hh²/(12E)(2h/I_c + L/I_b) derived (docs/REFERENCE-CHECKS.md; the forum formula disagrees).
     [InlineData(0.5)]
     [InlineData(2.0)]
     public void PinnedFeet_Sway(double k)

@@ -3,7 +3,7 @@ using CrossCheck.Tests.Support;
 
 namespace CrossCheck.Tests.Analysis;
 
-/// <summary>Group 7 of REFERENCE-CHECKS.md: facts of the trade (common practice, no source).</summary>
+/// <summary>Group 7 of docs/REFERENCE-CHECKS.md: facts of the trade (common practice, no source).</summary>
 public class ReferenceRulesOfThumbTests
 {
     private const double L = 6, E = 200e6, I = 2.5e-4;
@@ -38,7 +38,7 @@ public class ReferenceRulesOfThumbTests
         Near.Equal(r.Members["BA"].EndMoment, 50 * kba / sum, what: "M_AB (carry-over ½)");
         Near.Equal(r.Members["BC"].EndMoment, 0, what: "M_CB (pinned)");
         Near.Equal(r.Members["BD"].EndMoment, 50 * kbd / sum, what: "M_DB (carry-over ½)");
-        // The tabulated values of REFERENCE-CHECKS.md 7.3.
+        // The tabulated values of docs/REFERENCE-CHECKS.md 7.3.
         Near.Equal(r.Members["BA"].StartMoment, 40.677966, absolute: 1e-6);
         Near.Equal(r.Members["BD"].EndMoment, 21.186441, absolute: 1e-6);
     }

@@ -4,7 +4,7 @@ using CrossCheck.Tests.Support;
 
 namespace CrossCheck.Tests.Analysis;
 
-/// <summary>Group 2 of REFERENCE-CHECKS.md: propped cantilevers, modified stiffness and related single spans.</summary>
+/// <summary>Group 2 of docs/REFERENCE-CHECKS.md: propped cantilevers, modified stiffness and related single spans.</summary>
 public class ReferenceSingleSpanTests
 {
     private const double L = 6, W = 18, P = 40, E = 200e6, I = 2.5e-4, EI = E * I;

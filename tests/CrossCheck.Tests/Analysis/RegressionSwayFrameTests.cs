@@ -4,7 +4,7 @@ using CrossCheck.Tests.Support;
 namespace CrossCheck.Tests.Analysis;
 
 /// <summary>
-/// Group 6 of REFERENCE-CHECKS.md: sway frames with no closed form. NOT published values: regression values
+/// Group 6 of docs/REFERENCE-CHECKS.md: sway frames with no closed form. NOT published values: regression values
 /// from the independent cross-check script (slope-deflection solver D, exact axial rigidity, agreeing with a
 /// stiffness solver within 1e-5 kN·m). Each frame is also checked by the equilibrium recipe of that group.
 /// </summary>
@@ -37,7 +37,7 @@ public class RegressionSwayFrameTests
     public void Frame6a_TwoStoreys_RegressionValues()
     {
         var r = Frame6a(false).Solve().Cases[0];
-        // Tolerance: 1e-5 relative of the largest moment (≈ 96 kN·m), as REFERENCE-CHECKS.md recommends for G6.
+        // Tolerance: 1e-5 relative of the largest moment (≈ 96 kN·m), as docs/REFERENCE-CHECKS.md recommends for G6.
         Moments(r,
         [
             ("AC", true, -25.997710), ("BD", true, -52.875347), ("AC", false, -1.185834), ("CD", true, -27.442010),
@@ -64,8 +64,8 @@ public class RegressionSwayFrameTests
             ("AC", true, -25.938742), ("BD", true, -53.204835), ("AC", false, -0.679474), ("CD", true, -27.362143),
             ("CE", true, 28.041616), ("BD", false, -55.176950), ("CD", false, 95.406474), ("DF", true, -40.229525),
             ("CE", false, 23.077611), ("EF", true, -23.077611), ("DF", false, -45.889702), ("EF", false, 45.889702),
-        ], 1e-3);
-        Near.Equal(r.Reactions["A"].Rx + r.Reactions["B"].Rx, -30);
+        ], 1e-3); // docs/REFERENCE-CHECKS.md G6, "frame 6a with member areas" (stiffness solver of the cross-check script)
+        Near.Equal(r.Reactions["A"].Rx + r.Reactions["B"].Rx, -30); // statics: the base shear balances 20 + 10 kN
     }
 
     [Fact]
@@ -83,10 +83,10 @@ public class RegressionSwayFrameTests
             ("AD", true, -9.802116), ("BE", true, 0), ("CF", true, -40.264306), ("AD", false, 7.172488),
             ("DE", true, -7.172488), ("BE", false, -3.354173), ("DE", false, 83.046449), ("EF", true, -79.692276),
             ("CF", false, -53.751892), ("EF", false, 53.751892),
-        ], 1e-3);
-        Near.Equal(r.Displacements["D"].Ux, 1.785115e-3, relative: 1e-5, what: "drift");
-        Near.Equal(r.Reactions["A"].Rx + r.Reactions["B"].Rx + r.Reactions["C"].Rx, -25);
-        Near.Equal(r.Reactions["A"].Ry + r.Reactions["B"].Ry + r.Reactions["C"].Ry, 240);
-        Near.Equal(r.Reactions["C"].Rx, -23.504048, absolute: 1e-4);
+        ], 1e-3); // docs/REFERENCE-CHECKS.md G6 numeric values, frame 6b (regression, not a publication)
+        Near.Equal(r.Displacements["D"].Ux, 1.785115e-3, relative: 1e-5, what: "drift"); // G6 "6b drift" (S and D agree)
+        Near.Equal(r.Reactions["A"].Rx + r.Reactions["B"].Rx + r.Reactions["C"].Rx, -25); // statics: balances the 25 kN at D
+        Near.Equal(r.Reactions["A"].Ry + r.Reactions["B"].Ry + r.Reactions["C"].Ry, 240); // statics: 10 × 5 + 50 + 20 × 7 kN
+        Near.Equal(r.Reactions["C"].Rx, -23.504048, absolute: 1e-4); // G6 regression reactions table, 6b support C
     }
 }

@@ -85,7 +85,7 @@ public class SolverEdgeCaseTests
     public void RigidAxialForces_AreRecoveredFromEquilibrium()
     {
         // Portal with pinned feet, UDL on the beam: the beam carries the horizontal thrust H = wL²/(4h(2k+3)) in compression
-        // (REFERENCE-CHECKS.md 5.2; Kleinlogel, from memory), the columns carry wL/2 each.
+        // (docs/REFERENCE-CHECKS.md 5.2; Kleinlogel, from memory), the columns carry wL/2 each.
         double k = 0.5, ib = k * 2e-4 * 6 / 4;
         var r = new FrameBuilder()
             .Joint("A", 0, 0, Restraint.Pinned).Joint("B", 0, 4).Joint("C", 6, 4).Joint("D", 6, 0, Restraint.Pinned)

@@ -34,6 +34,7 @@ public class ReviewCommandTests
     {
         var r = CliRunner.Run("review", CliRunner.Demo("footbridge.csv"), "--format", "json");
         r.ExitCode.ShouldBe(ExitCodes.Comments, r.Err);
+        r.Out.ShouldMatchReviewSchema(); // docs/review.schema.json
         using var doc = JsonDocument.Parse(r.Out); // nothing but JSON on standard output
         var root = doc.RootElement;
         root.GetProperty("schema").GetString().ShouldBe("crosscheck-review/1");
@@ -45,7 +46,7 @@ public class ReviewCommandTests
         sub.GetProperty("source").GetString().ShouldBe(CliRunner.Demo("footbridge.csv"));
         sub.GetProperty("momentUnit").GetString().ShouldBe("kN·m");
         sub.GetProperty("signConvention").GetString().ShouldBe("clockwise");
-        var tol = root.GetProperty("tolerance");
+        var tol = root.GetProperty("tolerance"); // the defaults of docs/REVIEW-JSON.md (0.1 moment units, 1 %, 5 %)
         tol.GetProperty("absolute").GetDouble().ShouldBe(0.1);
         tol.GetProperty("relative").GetDouble().ShouldBe(0.01);
         tol.GetProperty("minorRelative").GetDouble().ShouldBe(0.05);
@@ -53,13 +54,19 @@ public class ReviewCommandTests
         root.GetProperty("inputErrors").GetArrayLength().ShouldBe(0);
         var dl = root.GetProperty("cases")[0];
         dl.GetProperty("case").GetString().ShouldBe("DL");
-        dl.GetProperty("peakMoment").GetDouble().ShouldBe(114.727273, 1e-6);
+        // Support moment of the demo girder under DL, by Clapeyron's three-moment equation with I per span (Timoshenko &
+        // Young, Theory of Structures; general form from memory, docs/REFERENCE-CHECKS.md "3-moment"): spans 8, 10, 8 m,
+        // I = 2400, 3200, 2400 (10⁶ mm⁴), w = 14 kN/m, ends pinned, M_B = M_C = M by symmetry. With L/I scaled by 9600
+        // (32, 30): 2M(32 + 30) + 30M = (w/4)(8²·32 + 10²·30), so M = 3.5 × 5048 / 154 = 114.727 kN·m. The span moments
+        // are smaller (centre span wL²/8 − M = 60.3 kN·m), so it is also the case's peak.
+        double mB = 14.0 / 4 * ((8 * 8 * 32) + (10 * 10 * 30)) / ((2 * (32 + 30)) + 30);
+        dl.GetProperty("peakMoment").GetDouble().ShouldBe(mB, 1e-6);
         var worst = dl.GetProperty("endMoments")[0];
         worst.GetProperty("member").GetString().ShouldBe("BC");
         worst.GetProperty("at").GetString().ShouldBe("C");
-        worst.GetProperty("claimed").GetDouble().ShouldBe(141.7);
-        worst.GetProperty("recomputed").GetDouble().ShouldBe(114.727273, 1e-6);
-        worst.GetProperty("difference").GetDouble().ShouldBe(26.972727, 1e-6);
+        worst.GetProperty("claimed").GetDouble().ShouldBe(141.7); // as written in the demo (114.7 miscopied)
+        worst.GetProperty("recomputed").GetDouble().ShouldBe(mB, 1e-6);
+        worst.GetProperty("difference").GetDouble().ShouldBe(141.7 - mB, 1e-6);
         worst.GetProperty("status").GetString().ShouldBe("discrepant");
         worst.GetProperty("source").GetString().ShouldBe("footbridge.csv:41");
         string[] statuses = ["agree", "minor", "discrepant", "missing", "unmatched"];
@@ -80,7 +87,7 @@ public class ReviewCommandTests
         }
         var eq = dl.GetProperty("flags").EnumerateArray().First(f => f.GetProperty("kind").GetString() == "joint-equilibrium");
         eq.GetProperty("where").GetString().ShouldBe("joint C");
-        eq.GetProperty("value").GetDouble().ShouldBe(27.0, 1e-9);
+        eq.GetProperty("value").GetDouble().ShouldBe(141.7 - 114.7, 1e-9); // the claims at C: BC 141.7, CD −114.7
         eq.GetProperty("source").GetString().ShouldBe("footbridge.csv:41-42");
     }
 
@@ -91,6 +98,7 @@ public class ReviewCommandTests
         string path = t.Write("bad.csv", SampleText.With(frame: SampleText.Frame.Replace("AB,A,B,200,250e6", "AB,A,B,200,-1")));
         var r = CliRunner.Run("review", path, "--format", "json");
         r.ExitCode.ShouldBe(ExitCodes.InputError);
+        r.Out.ShouldMatchReviewSchema();
         using var doc = JsonDocument.Parse(r.Out);
         doc.RootElement.GetProperty("verdict").ValueKind.ShouldBe(JsonValueKind.Null);
         var e = doc.RootElement.GetProperty("inputErrors")[0];
@@ -138,7 +146,7 @@ public class ReviewCommandTests
     {
         // With a 30 % agreement band the copying slip of the demo (27 of 115 kN·m) becomes agreement.
         var r = CliRunner.Run("review", CliRunner.Demo("footbridge.csv"), "-f", "json", "--tolerance", "0.3", "--minor-tolerance", "0.4");
-        using var doc = JsonDocument.Parse(r.Out);
+        using var doc = JsonDocument.Parse(r.Out.ShouldMatchReviewSchema());
         doc.RootElement.GetProperty("cases")[0].GetProperty("endMoments").EnumerateArray()
             .ShouldAllBe(e => e.GetProperty("status").GetString() == "agree");
     }
@@ -159,6 +167,6 @@ public class ReviewCommandTests
             """, loads: "[loads]\non,kind,P,dir\nB,force,3,right"));
         var r = CliRunner.Run("review", path, "-f", "json");
         r.ExitCode.ShouldBe(ExitCodes.InputError);
-        JsonDocument.Parse(r.Out).RootElement.GetProperty("inputErrors")[0].GetProperty("message").GetString()!.ShouldContain("mechanism");
+        JsonDocument.Parse(r.Out.ShouldMatchReviewSchema()).RootElement.GetProperty("inputErrors")[0].GetProperty("message").GetString()!.ShouldContain("mechanism");
     }
 }

@@ -12,7 +12,9 @@ public class SolveCommandTests
         var r = CliRunner.Run("solve", CliRunner.Demo("footbridge.csv"));
         r.ExitCode.ShouldBe(ExitCodes.Concur, r.Err);
         r.Out.ShouldContain("load case DL");
-        r.Out.ShouldContain("114.73"); // three-moment equation by hand: 5889.33 / 51.333 (see the closing note)
+        // Support moment under DL by the three-moment equation (Clapeyron, I per span; see ReviewCommandTests):
+        // 3.5 × (8²·32 + 10²·30) / 154 = 114.727 kN·m, printed to two decimals.
+        r.Out.ShouldContain("114.73");
         r.Out.ShouldContain("kN·m");
     }
 
@@ -21,7 +23,7 @@ public class SolveCommandTests
     {
         var r = CliRunner.Run("solve", CliRunner.Demo("shed-frame"), "--format", "json");
         r.ExitCode.ShouldBe(0, r.Err);
-        using var doc = JsonDocument.Parse(r.Out);
+        using var doc = JsonDocument.Parse(r.Out.ShouldMatchSolveSchema());
         doc.RootElement.GetProperty("schema").GetString().ShouldBe("crosscheck-solve/1");
         var g = doc.RootElement.GetProperty("cases")[0];
         g.GetProperty("case").GetString().ShouldBe("G");

@@ -4,7 +4,7 @@ using CrossCheck.Tests.Support;
 
 namespace CrossCheck.Tests.Import;
 
-/// <summary>Every rule of SUBMISSION-FORMAT.md (contract v1) that the CSV importer implements.</summary>
+/// <summary>Every rule of docs/SUBMISSION-FORMAT.md (contract v1) that the CSV importer implements.</summary>
 public class CsvImportTests
 {
     private static string Repo => RepoPaths.Root;
@@ -208,7 +208,7 @@ public class CsvImportTests
     [Fact]
     public void SaggingConvention_FlipsTheSignAtTheEndOnly()
     {
-        // SUBMISSION-FORMAT.md: sagging at start = clockwise at start; sagging at end = − clockwise at end.
+        // docs/SUBMISSION-FORMAT.md: sagging at start = clockwise at start; sagging at end = − clockwise at end.
         var r = TempSubmission.ReadText(SampleText.With(
             info: SampleText.Info + "\nsign convention,sagging",
             claims: "[end-moments]\nmember,at,moment\nAB,A,-81\nAB,B,-12\nAB,end,-13"));

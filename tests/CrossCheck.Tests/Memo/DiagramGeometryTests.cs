@@ -13,7 +13,7 @@ public class DiagramGeometryTests
     private const double PeakPx = 60;
 
     // Fixed-fixed beam, L = 6 m, central P = 40 kN: M_AB = −PL/8 = −30 kN·m, M_BA = +PL/8 = +30 kN·m (clockwise), and by
-    // statics the midspan moment is PL/4 − PL/8 = PL/8 = 30 kN·m sagging. REFERENCE-CHECKS.md case 1.2 (AISC Table 3-23
+    // statics the midspan moment is PL/4 − PL/8 = PL/8 = 30 kN·m sagging. docs/REFERENCE-CHECKS.md case 1.2 (AISC Table 3-23
     // case 16, from memory; Erochko fixed-end moment table, seen). The claim at B is wrong on purpose (45 instead of 30).
     private const string FixedFixedCentralLoad = Reviewing.KnM + """
         [joints]

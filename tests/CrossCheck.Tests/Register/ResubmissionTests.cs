@@ -143,7 +143,7 @@ public class ResubmissionTests
         memoHtml.ShouldContain("repeat review of that round");
 
         var json = CliRunner.Run(["review", calc, "--format", "json", .. common]);
-        using (var doc = JsonDocument.Parse(json.Out))
+        using (var doc = JsonDocument.Parse(json.Out.ShouldMatchReviewSchema()))
         {
             var reg = doc.RootElement.GetProperty("register");
             reg.GetProperty("reference").GetString().ShouldBe("KY-LB-02");

@@ -103,7 +103,7 @@ public class ClaimCheckTests
         f.Value!.Value.ShouldBe(-5e3, 1e-6);
     }
 
-    // Portal of REFERENCE-CHECKS.md 5.3 (k = 0.5): fixed feet, H = 30 kN at B. Kleinlogel (from memory) / slope-deflection:
+    // Portal of docs/REFERENCE-CHECKS.md 5.3 (k = 0.5): fixed feet, H = 30 kN at B. Kleinlogel (from memory) / slope-deflection:
     // M_AB = M_DC = −Hh(3k+1)/(2(6k+1)) = −37.5, M_BA = M_CD = −3kHh/(2(6k+1)) = −22.5, M_BC = M_CB = +22.5.
     private const string Portal = Reviewing.KnM + """
         [joints]
@@ -145,7 +145,7 @@ public class ClaimCheckTests
         r.Flags(FlagKind.JointEquilibrium).ShouldBeEmpty(); // every joint balances: only the storey check sees it
     }
 
-    // Three unequal spans of REFERENCE-CHECKS.md 4a (Clapeyron three-moment equation, Timoshenko & Young; from memory):
+    // Three unequal spans of docs/REFERENCE-CHECKS.md 4a (Clapeyron three-moment equation, Timoshenko & Young; from memory):
     // M_B = 94.623912, M_C = 66.638413 kN·m.
     private const string Unequal = Reviewing.KnM + """
         [joints]

@@ -43,7 +43,7 @@ public class FuzzTests(ITestOutputHelper output)
     public void MutatedCsv_GivesAReviewOrInputErrors_NeverAnotherException()
     {
         var gen = Gen.Select(Gen.Int[0, CsvSources.Length - 1], Mutations.Edits.Array[1, 4]);
-        int tried = 0;
+        int tried = 0, reviewed = 0;
         gen.Sample((source, edits) =>
         {
             using var t = new TempSubmission();
@@ -61,25 +61,28 @@ public class FuzzTests(ITestOutputHelper output)
                 foreach (var f in Directory.GetFiles(from)) File.Copy(f, Path.Combine(path, Path.GetFileName(f)));
                 File.WriteAllBytes(Path.Combine(path, file), Mutations.Apply(File.ReadAllBytes(Path.Combine(from, file)), edits));
             }
-            Fuzz.Exercise(path, $"{submission}{(file is null ? "" : "/" + file)} {string.Join(" ", edits.Select(e => e.ToString()))}");
+            if (Fuzz.Exercise(path, $"{submission}{(file is null ? "" : "/" + file)} {string.Join(" ", edits.Select(e => e.ToString()))}")) Interlocked.Increment(ref reviewed);
             Interlocked.Increment(ref tried);
         }, iter: Count, print: x => $"{CsvSources[x.Item1].Submission}/{CsvSources[x.Item1].File} {string.Join(" ", x.Item2.Select(e => e.ToString()))}");
         Report("CSV", tried);
+        ShouldHaveRun("CSV", tried, reviewed, expected: Count);
     }
 
     [Fact]
     public void MutatedPdfBytes_GiveAReviewOrInputErrors_NeverAnotherException()
     {
         var gen = Gen.Select(Gen.Int[0, PdfSources.Length - 1], Mutations.Edits.Array[1, 3]);
-        int tried = 0;
+        int tried = 0, reviewed = 0;
+        int iterations = Math.Max(20, Count / 5);
         gen.Sample((source, edits) =>
         {
             using var t = new TempSubmission();
             string path = t.WriteBytes("calc.pdf", Mutations.Apply(File.ReadAllBytes(PdfSources[source]), edits));
-            Fuzz.Exercise(path, $"{Path.GetFileName(PdfSources[source])} {string.Join(" ", edits.Select(e => e.ToString()))}");
+            if (Fuzz.Exercise(path, $"{Path.GetFileName(PdfSources[source])} {string.Join(" ", edits.Select(e => e.ToString()))}")) Interlocked.Increment(ref reviewed);
             Interlocked.Increment(ref tried);
-        }, iter: Math.Max(20, Count / 5), print: x => $"{Path.GetFileName(PdfSources[x.Item1])} {string.Join(" ", x.Item2.Select(e => e.ToString()))}");
+        }, iter: iterations, print: x => $"{Path.GetFileName(PdfSources[x.Item1])} {string.Join(" ", x.Item2.Select(e => e.ToString()))}");
         Report("PDF bytes", tried);
+        ShouldHaveRun("PDF bytes", tried, reviewed, expected: iterations);
     }
 
     /// <summary>Tokens a standard PDF font can print (the table finder, not the font, is under test).</summary>
@@ -98,7 +101,8 @@ public class FuzzTests(ITestOutputHelper output)
         var sources = new[] { "fixtures/demo/footbridge.csv", "fixtures/demo/school-hall.csv", "fixtures/demo/shed-frame" };
         var cellEdit = Gen.Select(Gen.Int[0, 20], Gen.Int[0, 40], Gen.Int[0, 12], Gen.Int[0, PrintableTokens.Length - 1]);
         var gen = Gen.Select(Gen.Int[0, sources.Length - 1], Gen.Int[0, Layouts.Length - 1], cellEdit.Array[1, 4]);
-        int tried = 0;
+        int tried = 0, reviewed = 0;
+        int iterations = Math.Max(20, Count / 5);
         gen.Sample((source, layout, edits) =>
         {
             var tables = SubmissionPdf.ReadCsv(Path.Combine(RepoPaths.Root, sources[source])).ToList();
@@ -124,10 +128,22 @@ public class FuzzTests(ITestOutputHelper output)
                 return; // the test's own PDF writer cannot set this text: not an input for the reader
             }
             using var t = new TempSubmission();
-            Fuzz.Exercise(t.WriteBytes("calc.pdf", pdf), $"{sources[source]} as {Layouts[layout]}, cells {string.Join(" ", edits)}");
+            if (Fuzz.Exercise(t.WriteBytes("calc.pdf", pdf), $"{sources[source]} as {Layouts[layout]}, cells {string.Join(" ", edits)}")) Interlocked.Increment(ref reviewed);
             Interlocked.Increment(ref tried);
-        }, iter: Math.Max(20, Count / 5), print: x => $"{sources[x.Item1]} as {Layouts[x.Item2]}, cells {string.Join(" ", x.Item3)}");
+        }, iter: iterations, print: x => $"{sources[x.Item1]} as {Layouts[x.Item2]}, cells {string.Join(" ", x.Item3)}");
         Report("PDF tables", tried);
+        // Inputs the test's own PDF writer cannot set are skipped above; most must still reach the reader.
+        ShouldHaveRun("PDF tables", tried, reviewed, expected: (iterations + 1) / 2);
+    }
+
+    /// <summary>
+    /// A fuzz test must have tested something: at least <paramref name="expected"/> inputs went through the reader, and
+    /// some of them were reviewed and rendered (not every one refused at the door).
+    /// </summary>
+    private static void ShouldHaveRun(string what, int tried, int reviewed, int expected)
+    {
+        tried.ShouldBeGreaterThanOrEqualTo(Math.Max(1, expected), $"{what}: inputs that reached the reader");
+        reviewed.ShouldBeGreaterThan(0, $"{what}: inputs reviewed and rendered (of {tried})");
     }
 
     private void Report(string what, int tried)
@@ -153,7 +169,8 @@ internal static partial class Fuzz
     /// Reviews <paramref name="path"/> and renders every output; fails (naming the input, which is kept on disk) on any
     /// exception or when it takes longer than <see cref="FuzzTests.PerInput"/>.
     /// </summary>
-    public static void Exercise(string path, string description)
+    /// <returns>True when the input was reviewed and rendered, false when it was refused with input errors.</returns>
+    public static bool Exercise(string path, string description)
     {
         var task = Task.Run(() => Run(path));
         bool finished;
@@ -166,9 +183,10 @@ internal static partial class Fuzz
             throw new ShouldAssertException($"{description}: {ex.InnerException!.GetType().Name}: {ex.InnerException.Message} (input kept at {Keep(path)})\n{ex.InnerException}");
         }
         if (!finished) throw new ShouldAssertException($"{description}: no answer within {FuzzTests.PerInput.TotalSeconds:0} s (input kept at {Keep(path)})");
+        return task.Result;
     }
 
-    private static void Run(string path)
+    private static bool Run(string path)
     {
         var outcome = ReviewPipeline.Run(path, ReviewOptions.Default, Limits);
         foreach (var p in outcome.Errors.Concat(outcome.Warnings)) Messages.AddOrUpdate(Shape(p.Message), 1, (_, k) => k + 1);
@@ -176,13 +194,15 @@ internal static partial class Fuzz
         {
             outcome.Errors.ShouldNotBeEmpty("a submission that is not reviewed must say why");
             outcome.Errors.ShouldAllBe(p => p.Message.Length > 0 && p.Where.File.Length > 0);
+            ReviewJson.WriteInputErrors(path, outcome.Errors).ShouldMatchReviewSchema("input-error JSON");
             Interlocked.Increment(ref _refused);
-            return;
+            return false;
         }
         MemoRenderer.Render(MemoExtensions.Build(review, MemoFormat.Markdown), MemoFormat.Markdown).ShouldNotBeEmpty();
         MemoRenderer.Render(MemoExtensions.Build(review, MemoFormat.Html), MemoFormat.Html).ShouldNotBeEmpty();
-        ReviewJson.Write(review).ShouldNotBeEmpty();
+        ReviewJson.Write(review).ShouldMatchReviewSchema();
         Interlocked.Increment(ref _reviewed);
+        return true;
     }
 
     /// <summary>A message with its particulars (quoted text, numbers) taken out, to count kinds of message rather than instances.</summary>

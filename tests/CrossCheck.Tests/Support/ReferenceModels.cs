@@ -3,7 +3,7 @@ using CrossCheck.Model;
 namespace CrossCheck.Tests.Support;
 
 /// <summary>
-/// The structures and loads of REFERENCE-CHECKS.md groups 1–7 (kN, m; E = 200 GPa = 200e6 kN/m²), for tests that
+/// The structures and loads of docs/REFERENCE-CHECKS.md groups 1–7 (kN, m; E = 200 GPa = 200e6 kN/m²), for tests that
 /// run every reference case through a second method.
 /// </summary>
 public static class ReferenceModels

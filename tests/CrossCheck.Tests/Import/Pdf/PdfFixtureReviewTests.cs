@@ -85,7 +85,7 @@ public class PdfFixtureReviewTests
     [Fact]
     public void PortalFixture_RecomputesThePublishedMoments()
     {
-        // Kleinlogel / Pilkey closed forms for k = 0.5 (REFERENCE-CHECKS G5 5.1 and 5.3).
+        // Kleinlogel / Pilkey closed forms for k = 0.5 (docs/REFERENCE-CHECKS.md G5 5.1 and 5.3).
         var r = ReviewOf(Path.Combine(RepoPaths.Root, "fixtures", "pdf", "portal-frame-decimal-comma.pdf"));
         double Recomputed(string c, string member, string at) => r.AllEndMoments.Single(e => e.Case == c && e.Member == member && e.At == at).Recomputed!.Value / 1e3;
         Recomputed("1", "AB", "A").ShouldBe(21.6, 1e-6);

@@ -7,7 +7,7 @@ using static CrossCheck.Tests.Support.HandMethods;
 namespace CrossCheck.Tests.Review.Diagnosis;
 
 /// <summary>
-/// Every cause code on several seeded submissions: a published reference case (REFERENCE-CHECKS.md) with the
+/// Every cause code on several seeded submissions: a published reference case (docs/REFERENCE-CHECKS.md) with the
 /// author's mistake made by a route independent of the product (published values of another case, a hand
 /// slope-deflection or moment distribution in <see cref="HandMethods"/>, or plain arithmetic). The cause must rank
 /// first. Correct claims and random noise must give no cause. Units: kN and m.
@@ -36,7 +36,7 @@ public class DiagnosisTests
         return b.Model.Members.SelectMany(m => new[] { (m.Id, S, r.EndMoment(m.Id, S)), (m.Id, En, r.EndMoment(m.Id, En)) }).ToArray();
     }
 
-    // Beam 4a of REFERENCE-CHECKS.md: spans 5 / 7.5 / 4 m, EI = 40 000 / 80 000 / 30 000 kN·m²; support moments from the
+    // Beam 4a of docs/REFERENCE-CHECKS.md: spans 5 / 7.5 / 4 m, EI = 40 000 / 80 000 / 30 000 kN·m²; support moments from the
     // three-moment equation (Timoshenko & Young, from memory): M_B = 94.623912, M_C = 66.638413 kN·m.
     private static readonly double[] L4a = [5, 7.5, 4];
     private static readonly double[] EI4a = [40000, 80000, 30000];

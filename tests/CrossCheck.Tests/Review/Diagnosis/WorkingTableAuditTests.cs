@@ -6,7 +6,7 @@ using static CrossCheck.Tests.Support.HandMethods;
 namespace CrossCheck.Tests.Review.Diagnosis;
 
 /// <summary>
-/// The audit of an author's moment-distribution table, on beam 4a of REFERENCE-CHECKS.md distributed by hand
+/// The audit of an author's moment-distribution table, on beam 4a of docs/REFERENCE-CHECKS.md distributed by hand
 /// (<see cref="HandTable"/>, common practice) and written to two decimals: a clean table passes, and one wrong cell
 /// at each kind of row is found as the first wrong cell with its knock-on on the final moments.
 /// </summary>
