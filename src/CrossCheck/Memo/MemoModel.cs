@@ -25,8 +25,7 @@ public sealed class MemoModel
         var s = review.Submission;
         var u = s.Info.Units;
         var o = review.Options;
-        bool sagging = s.Info.SignConvention == SignConvention.Sagging;
-        double Conv(double cw, MemberEnd? end) => sagging && end == MemberEnd.End ? -cw : cw;
+        double Conv(double cw, MemberEnd? end) => end is MemberEnd e ? s.Info.SignConvention.FromClockwise(cw, e) : cw;
 
         Title = s.Info.Title ?? Path.GetFileName(Path.TrimEndingDirectorySeparator(s.Source));
         Reference = s.Info.Reference ?? "—";
@@ -34,7 +33,7 @@ public sealed class MemoModel
         PreparedBy = s.Info.PreparedBy ?? "—";
         CheckedBy = s.Info.CheckedBy ?? "—";
         SubmissionDate = s.Info.Date ?? "—";
-        Reviewer = o.Reviewer ?? "(not stated — use --reviewer)";
+        Reviewer = o.Reviewer ?? "";
         ReviewDate = (o.Date ?? DateOnly.FromDateTime(DateTime.Today)).ToString("yyyy-MM-dd", CultureInfo.InvariantCulture);
         ToolVersion = ToolInfo.Version;
         Source = s.Source;
@@ -44,9 +43,10 @@ public sealed class MemoModel
         ForceUnit = u.Force.Symbol;
         LengthUnit = u.Length.Symbol;
         DisplacementUnit = u.Displacement.Symbol;
-        Convention = sagging
-            ? "sagging positive: the internal bending moment, positive when the fibre on the right-hand side of the member (looking from its start to its end) is in tension — as the submission states its moments"
-            : "clockwise positive: the moment the joint exerts on the member end (the slope-deflection and moment-distribution convention) — as the submission states its moments";
+        string stated = s.Info.SignConventionStated ? "as the submission states its moments" : "assumed: the submission does not state its sign convention, and clockwise is the default";
+        Convention = s.Info.SignConvention == SignConvention.Sagging
+            ? $"sagging positive: the internal bending moment, positive when the fibre on the right-hand side of the member (looking from its start to its end) is in tension — {stated}"
+            : $"clockwise positive: the moment the joint exerts on the member end (the slope-deflection and moment-distribution convention) — {stated}";
         AbsoluteTolerance = Fmt.Number(o.AbsoluteTolerance, "0.0##");
         RelativeTolerancePercent = Fmt.Number(o.RelativeTolerance * 100, "0.##");
         MinorTolerancePercent = Fmt.Number(o.MinorRelativeTolerance * 100, "0.##");
@@ -64,31 +64,42 @@ public sealed class MemoModel
         HasMovements = s.Model.HasSupportMovements;
         HasHinges = s.Model.Members.Any(m => m.Hinge != Hinge.None);
 
-        int total = review.AllEndMoments.Count();
-        int agree = review.AllEndMoments.Count(e => e.Status == EndStatus.Agree);
-        int discrepant = review.AllEndMoments.Count(e => e.Status == EndStatus.Discrepant);
-        int majors = review.AllFlags.Count(f => f.Severity == Severity.Major);
-        VerdictLine = string.Create(CultureInfo.InvariantCulture,
-            $"{agree} of {total} member-end moments agree with the independent analysis; {discrepant} are discrepant; the checks of the claimed numbers raised {majors} major and {review.AllFlags.Count(f => f.Severity == Severity.Minor)} minor finding(s).");
+        RunningHeader = CssString($"{(s.Info.Reference ?? Title)}{(s.Info.Revision is { Length: > 0 } rev ? $" · revision {rev}" : "")} · analysis check");
+        RunningTitle = CssString(Title.Length > 60 ? Title[..57] + "..." : Title);
+        VerdictLine = VerdictSentence(review);
+        VerdictRule = "Verdict rule: revise when any claimed moment, reaction or displacement is discrepant (beyond the minor band) or any check " +
+                      "finding is major; concur when every claim agrees and no check finding is above a note; otherwise concur with comments.";
 
-        Cases = review.Cases.Select(c => new MemoCase(c, u, Conv, diagrams)).ToList();
+        var memberOrder = s.Model.Members.Select((m, i) => (m.Id, i)).ToDictionary(x => x.Id, x => x.i, StringComparer.Ordinal);
+        Cases = review.Cases.Select(c => new MemoCase(c, u, Conv, id => memberOrder.GetValueOrDefault(id, int.MaxValue), diagrams)).ToList();
         HasDiagrams = diagrams is not null;
         StructureFigure = diagrams?.Structure;
-        Comments = review.Comments.Select(cm => new MemoComment(cm.Id, cm.Severity.Json(), cm.Case, cm.Where, cm.Text, cm.Source)).ToList();
+        Comments = review.Comments.Select(cm => new MemoComment(cm.Id, cm.Severity.Json(), cm.Case, cm.Where, cm.Text, cm.Source)
+        {
+            Cause = cm.Cause is { } k ? k.Term().Title : "",
+            Symptoms = Symptoms(cm),
+        }).ToList();
         Notes = review.Notes.ToList();
         Warnings = review.InputWarnings.ToList();
 
         InfoRows = s.Info.Other.Select(kv => new MemoPair(kv.Key, kv.Value)).ToList();
         Joints = s.Model.Joints.Select(j => new MemoJoint(j.Id, Fmt.Number(u.Length.FromSi(j.X), "0.###"), Fmt.Number(u.Length.FromSi(j.Y), "0.###"),
             RestraintWord(j.Restraint), j.Movement.IsZero ? "" : Movement(j.Movement, u), j.Source.Citation)).ToList();
-        Members = s.Model.Members.Select(m => new MemoMember(m.Id, m.Start, m.End, Fmt.Number(u.Length.FromSi(s.Model.Length(m)), "0.###"),
-            s.Model.RelativeStiffness ? "—" : Fmt.Number(m.E / 1e9, "0.###"), Fmt.Number(m.I * (s.Model.RelativeStiffness ? 1 : 1e12), s.Model.RelativeStiffness ? "0.####" : "0.###e+0"),
-            m.A is double a ? Fmt.Number(a * 1e6, "0.#") : "—", m.Hinge == Hinge.None ? "" : m.Hinge.ToString().ToLowerInvariant(), m.Source.Citation)).ToList();
-        IUnit = s.Model.RelativeStiffness ? "relative" : "mm⁴";
+        // As engineers print section properties: E in GPa, I in 10⁶ mm⁴ (2400 for 2.4 × 10⁹ mm⁴), A in mm², one number of
+        // decimals down each column.
+        var members = s.Model.Members;
+        var lengths = Words.FixedColumn(members.Select(m => u.Length.FromSi(s.Model.Length(m))).ToList(), 3);
+        var moduli = Words.FixedColumn(members.Select(m => m.E / 1e9).ToList(), 1);
+        var seconds = Words.FixedColumn(members.Select(m => s.Model.RelativeStiffness ? m.I : m.I * 1e6).ToList(), s.Model.RelativeStiffness ? 4 : 2);
+        var areas = Words.FixedColumn(members.Select(m => (m.A ?? 0) * 1e6).ToList(), 1);
+        Members = members.Select((m, i) => new MemoMember(m.Id, m.Start, m.End, lengths[i], s.Model.RelativeStiffness ? "—" : moduli[i], seconds[i],
+            m.A is null ? "—" : areas[i], m.Hinge == Hinge.None ? "" : m.Hinge.ToString().ToLowerInvariant(), m.Source.Citation)).ToList();
+        IUnit = s.Model.RelativeStiffness ? "relative" : "10⁶ mm⁴";
         Loads = s.Cases.SelectMany(c => c.Loads).Select(l => Load(l, u)).ToList();
         ClaimCount = s.Claims.EndMoments.Count;
         ReactionClaimCount = s.Claims.Reactions.Count;
         DisplacementClaimCount = s.Claims.Displacements.Count;
+        ClaimsRead = $"Claims read: {Words.Count(ClaimCount, "end moment")}, {Words.Count(ReactionClaimCount, "reaction row")}, {Words.Count(DisplacementClaimCount, "displacement row")}.";
     }
 
     public string Title { get; }
@@ -97,6 +108,7 @@ public sealed class MemoModel
     public string PreparedBy { get; }
     public string CheckedBy { get; }
     public string SubmissionDate { get; }
+    /// <summary>The checking engineer; empty when not given (the memo leaves a blank to fill in).</summary>
     public string Reviewer { get; }
     public string ReviewDate { get; }
     public string ToolVersion { get; }
@@ -104,6 +116,15 @@ public sealed class MemoModel
     public string Verdict { get; }
     public string VerdictCode { get; }
     public string VerdictLine { get; }
+
+    /// <summary>The running header of a printed page (reference, revision), as the text of a CSS string.</summary>
+    public string RunningHeader { get; }
+
+    /// <summary>The calculation's title for the running header, as the text of a CSS string.</summary>
+    public string RunningTitle { get; }
+
+    /// <summary>The verdict rule in one sentence (section 1).</summary>
+    public string VerdictRule { get; }
     public string MomentUnit { get; }
     public string ForceUnit { get; }
     public string LengthUnit { get; }
@@ -139,11 +160,64 @@ public sealed class MemoModel
     public int ReactionClaimCount { get; }
     public int DisplacementClaimCount { get; }
 
+    /// <summary>"Claims read: 12 end moments, 4 reaction rows, 0 displacement rows."</summary>
+    public string ClaimsRead { get; }
+
     /// <summary>The comparison with the previous round when the review was recorded in a register (else <see cref="MemoRounds.None"/>).</summary>
     public MemoRounds Rounds { get; init; } = MemoRounds.None;
 
     /// <summary>Extra sections later stages add (diagrams, working tables), as pre-rendered blocks by format.</summary>
     public IReadOnlyList<MemoAppendix> Appendices { get; init; } = [];
+
+    /// <summary>
+    /// The findings listed under a comment. A diagnosed mistake's comment already gives the corrected figures, so its
+    /// differing end moments are summed up in one line (section 2 and the JSON list them one by one); its other
+    /// findings are listed.
+    /// </summary>
+    private static List<MemoSymptom> Symptoms(ReviewComment cm)
+    {
+        var all = cm.Symptoms.Select(y => new MemoSymptom(y.Kind, y.Case, y.Severity.Json(), y.Place.Words, y.Text, y.Source)).ToList();
+        var ends = cm.Symptoms.Where(y => y.Kind == "end-moment").ToList();
+        if (cm.Cause is null || ends.Count <= 2) return all;
+        var worst = ends.Max(y => y.Severity).Json();
+        string cases = string.Join(", ", ends.Select(y => y.Case).Distinct());
+        var summary = new MemoSymptom("end-moment", cases, worst, "", $"{Words.Count(ends.Count, "claimed end moment")} of case {cases} differ from the analysis (section 2)",
+            SourceRef.Span(ends.Select(y => new SourceRef(y.Source))));
+        return [summary, .. all.Where(y => y.Kind != "end-moment")];
+    }
+
+    /// <summary>
+    /// The counts behind the verdict, adding up: every claimed or expected end is agree, minor, discrepant or missing
+    /// (unmatched claims are counted apart), then the comments by severity.
+    /// </summary>
+    private static string VerdictSentence(ReviewResult review)
+    {
+        var ends = review.AllEndMoments.ToList();
+        int Count(EndStatus st) => ends.Count(e => e.Status == st);
+        int agree = Count(EndStatus.Agree), minor = Count(EndStatus.Minor), discrepant = Count(EndStatus.Discrepant), missing = Count(EndStatus.Missing);
+        int unmatched = Count(EndStatus.Unmatched), compared = agree + minor + discrepant + missing;
+        int majors = review.Comments.Count(c => c.Severity == Severity.Major), minors = review.Comments.Count(c => c.Severity == Severity.Minor);
+        string sentence = string.Create(CultureInfo.InvariantCulture,
+            $"Of {Words.Count(compared, "member-end moment")} compared with the independent analysis, {agree} agree{(agree == 1 ? "s" : "")}, {minor} differ{(minor == 1 ? "s" : "")} slightly (minor), {discrepant} {Words.Is(discrepant)} discrepant and {missing} {Words.Is(missing)} missing from the claims.");
+        if (unmatched > 0) sentence += $" {Words.Count(unmatched, "claim")} name{(unmatched == 1 ? "s" : "")} an end the model does not have.";
+        sentence += majors + minors == 0 ? " The schedule has no comments." : $" The schedule has {Words.Count(majors, "major comment")} and {Words.Count(minors, "minor comment")}.";
+        return sentence;
+    }
+
+    /// <summary>
+    /// Text for the inside of a double-quoted CSS string in a style sheet: quotes and backslashes escaped, <c>&lt;</c>
+    /// written as an escape (so that no <c>&lt;/style&gt;</c> can close the sheet), control characters dropped.
+    /// </summary>
+    internal static string CssString(string text)
+    {
+        var sb = new System.Text.StringBuilder(text.Length);
+        foreach (char ch in text)
+        {
+            if (char.IsControl(ch)) { sb.Append(' '); continue; }
+            sb.Append(ch switch { '\\' => "\\\\", '"' => "\\\"", '<' => "\\3C ", '>' => "\\3E ", _ => ch.ToString() });
+        }
+        return sb.ToString();
+    }
 
     private static string RestraintWord(Restraint r) => r switch
     {
@@ -192,7 +266,17 @@ public sealed record MemoMember(string Id, string Start, string End, string Leng
 
 public sealed record MemoLoad(string Case, string On, string Kind, string Values, string Source);
 
-public sealed record MemoComment(string Id, string Severity, string Case, string Where, string Text, string Source);
+public sealed record MemoComment(string Id, string Severity, string Case, string Where, string Text, string Source)
+{
+    /// <summary>The diagnosed mistake in the trade's words, or empty.</summary>
+    public string Cause { get; init; } = "";
+
+    /// <summary>The findings the comment stands for.</summary>
+    public IReadOnlyList<MemoSymptom> Symptoms { get; init; } = [];
+}
+
+/// <summary>A finding listed under a comment.</summary>
+public sealed record MemoSymptom(string Kind, string Case, string Severity, string Where, string Text, string Source);
 
 public sealed record MemoRow(string Member, string At, string Claimed, string Recomputed, string Difference, string Status, string Source);
 
@@ -200,7 +284,11 @@ public sealed record MemoQuantity(string Joint, string Component, string Unit, s
 
 public sealed record MemoFlag(string Kind, string Severity, string Where, string Message, string Source);
 
-public sealed record MemoCause(string Code, string Confidence, string Explains, string Message, string Evidence);
+public sealed record MemoCause(string Code, string Confidence, string Explains, string Message, string Evidence)
+{
+    /// <summary>The mistake in the trade's words.</summary>
+    public string Title { get; init; } = "";
+}
 
 /// <summary>A block a later stage adds to the memo (e.g. diagrams), already rendered for Markdown and HTML.</summary>
 public sealed record MemoAppendix(string Title, string Markdown, string Html);
@@ -208,7 +296,7 @@ public sealed record MemoAppendix(string Title, string Markdown, string Html);
 public sealed class MemoCase
 {
     /// <param name="conv">Converts a clockwise member-end moment to the submission's own convention.</param>
-    internal MemoCase(CaseReview c, DisplayUnits u, Func<double, MemberEnd?, double> conv, MemoDiagrams? diagrams = null)
+    internal MemoCase(CaseReview c, DisplayUnits u, Func<double, MemberEnd?, double> conv, Func<string, int> order, MemoDiagrams? diagrams = null)
     {
         Figures = diagrams?.ForCase(c.Case) ?? [];
         Details = diagrams?.DetailsFor(c.Case) ?? [];
@@ -218,7 +306,8 @@ public sealed class MemoCase
         Peak = mom(c.PeakMoment, null, "0.00");
         AgreeTolerance = Fmt.Number(u.Moment.FromSi(c.AgreeTolerance), "0.00");
         MinorTolerance = Fmt.Number(u.Moment.FromSi(c.MinorTolerance), "0.00");
-        Rows = c.EndMoments.Select(e => new MemoRow(e.Member, e.At, mom(e.Claimed, e.End, "0.0##"), mom(e.Recomputed, e.End, "0.00"),
+        Rows = c.EndMoments.OrderBy(e => order(e.Member)).ThenBy(e => e.End ?? MemberEnd.End).Select(e => new MemoRow(e.Member, e.At,
+            e.Claim is { } cl ? Quoting.ClaimNumber(cl) : "—", mom(e.Recomputed, e.End, "0.00"),
             e.Difference is double d ? Fmt.Number(u.Moment.FromSi(conv(d, e.End)), "+0.00;-0.00;0.00") : "—",
             e.Status.Json(), e.Source?.Citation ?? "(not claimed)")).ToList();
         Agree = c.Count(EndStatus.Agree);
@@ -231,7 +320,8 @@ public sealed class MemoCase
         Flags = c.Flags.Where(f => f.Severity != Severity.Info).Select(f => new MemoFlag(f.Kind.Json(), f.Severity.Json(), f.Where, f.Message, f.SourceText)).ToList();
         InfoFlags = c.Flags.Where(f => f.Severity == Severity.Info).Select(f => new MemoFlag(f.Kind.Json(), f.Severity.Json(), f.Where, f.Message, f.SourceText)).ToList();
         Unexplained = c.Causes.Count == 0 && c.EndMoments.Any(e => e.Status is EndStatus.Discrepant or EndStatus.Minor);
-        Causes = c.Causes.Select(x => new MemoCause(x.Code, Fmt.Number(x.Confidence * 100, "0") + " %", Fmt.Number(x.Explains * 100, "0") + " %", x.Message, x.Evidence)).ToList();
+        Causes = c.Causes.Select(x => new MemoCause(x.Code, Fmt.Number(x.Confidence * 100, "0") + " %", Fmt.Number(x.Explains * 100, "0") + " %", x.Message, x.Evidence)
+        { Title = x.Kind.Term().Title }).ToList();
     }
 
     private static MemoQuantity Quantity(QuantityFinding q, bool reaction, DisplayUnits u)

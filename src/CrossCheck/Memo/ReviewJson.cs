@@ -48,7 +48,7 @@ public static class ReviewJson
             .Obj("submission")
                 .Str("title", s.Info.Title).Str("reference", s.Info.Reference).Str("revision", s.Info.Revision).Str("preparedBy", s.Info.PreparedBy)
                 .Str("source", s.Source).Str("momentUnit", u.Moment.Symbol).Str("forceUnit", u.Force.Symbol).Str("displacementUnit", u.Displacement.Symbol)
-                .Str("signConvention", s.Info.SignConvention == SignConvention.Sagging ? "sagging" : "clockwise")
+                .Str("signConvention", s.Info.SignConvention.Code()).Bool("signConventionStated", s.Info.SignConventionStated)
             .EndObj()
             .Str("reviewer", review.Options.Reviewer)
             .Str("date", (review.Options.Date ?? DateOnly.FromDateTime(DateTime.Today)).ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture))
@@ -66,7 +66,9 @@ public static class ReviewJson
                 .Num("peakMoment", Mom(c.PeakMoment))
                 .Each("endMoments", c.EndMoments, (o, e) => o
                     .Str("member", e.Member).Str("at", e.At).Num("claimed", MomN(e.Claimed)).Num("recomputed", MomN(e.Recomputed))
-                    .Num("difference", MomN(e.Difference)).Str("status", e.Status.Json()).Str("source", e.Source?.RowCompact))
+                    .Num("difference", MomN(e.Difference)).Str("status", e.Status.Json()).Str("source", e.Source?.RowCompact)
+                    .Str("claimedAsWritten", e.Claim is { } cl ? Quoting.ClaimNumber(cl) : null)
+                    .Num("recomputedAsWritten", e.Recomputed is double rc && e.End is MemberEnd en ? Mom(s.Info.SignConvention.FromClockwise(rc, en)) : null))
                 .Each("reactions", c.Reactions, (o, q) => o
                     .Str("joint", q.Joint).Str("component", q.Component).Num("claimed", Qty(q, q.Claimed, true)).Num("recomputed", Qty(q, q.Recomputed, true))
                     .Num("difference", Qty(q, q.Difference, true)).Str("status", q.Status.Json()).Str("source", q.Source.RowCompact))
@@ -75,7 +77,7 @@ public static class ReviewJson
                     .Num("difference", Qty(q, q.Difference, false)).Str("status", q.Status.Json()).Str("source", q.Source.RowCompact))
                 .Each("flags", c.Flags, (o, f) => o
                     .Str("kind", f.Kind.Json()).Str("severity", f.Severity.Json()).Str("where", f.Where).Num("value", Value(f)).Str("unit", UnitOf(f))
-                    .Str("message", f.Message).Str("source", f.SourceText))
+                    .Str("message", f.Message).Str("brief", f.Brief.Length > 0 ? f.Brief : f.Message).Str("source", f.SourceText))
                 .Maybe("distributionAudit", c.Audit, (o, a) => o
                     .Str("variant", a.Variant).Int("cellsChecked", a.CellsChecked).Int("cellsWrong", a.CellsWrong)
                     .Maybe("firstWrongCell", a.First, (o, w) => o
@@ -85,10 +87,13 @@ public static class ReviewJson
                         .Str("source", w.Source.RowCompact))
                     .Num("knockOn", Mom(a.KnockOn)).Str("knockOnColumn", a.KnockOnColumn))
                 .Each("causes", c.Causes, (o, x) => o
-                    .Str("code", x.Code).Num("confidence", Round(x.Confidence, 3)).Num("explains", Round(x.Explains, 3))
-                    .Str("message", x.Message).Str("evidence", x.Evidence)))
+                    .Str("code", x.Code).Str("title", x.Kind.Term().Title).Num("confidence", Round(x.Confidence, 3)).Num("explains", Round(x.Explains, 3))
+                    .Bool("reproduces", x.Reproduces).Str("message", x.Message).Str("evidence", x.Evidence).Str("correctWorking", x.CorrectWorking)))
             .Each("comments", review.Comments, (o, cm) => o
-                .Str("id", cm.Id).Str("severity", cm.Severity.Json()).Str("case", cm.Case).Str("where", cm.Where).Str("text", cm.Text).Str("source", cm.Source))
+                .Str("id", cm.Id).Str("severity", cm.Severity.Json()).Str("case", cm.Case).Strings("cases", cm.Cases).Str("where", cm.Where)
+                .Str("cause", cm.Cause?.Json()).Str("text", cm.Text).Str("source", cm.Source)
+                .Each("symptoms", cm.Symptoms, (o, y) => o
+                    .Str("kind", y.Kind).Str("case", y.Case).Str("severity", y.Severity.Json()).Str("where", y.Place.Words).Str("text", y.Text).Str("source", y.Source)))
             .Strings("notes", review.Notes)
             .Strings("inputWarnings", review.InputWarnings)
             .Arr("inputErrors").EndArr();

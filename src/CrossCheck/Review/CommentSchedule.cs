@@ -42,7 +42,7 @@ internal static class CommentSchedule
             int n = seen.TryGetValue(id, out var k) ? k + 1 : 1;
             seen[id] = n;
             if (n > 1) id = $"{id}-{n}";
-            comments.Add(new ReviewComment(id, d.Severity, string.Join(", ", d.Cases), d.Place?.Words ?? (d.Cases.Count > 1 ? "several cases" : $"case {d.Cases[0]}"),
+            comments.Add(new ReviewComment(id, d.Severity, string.Join(", ", d.Cases), d.Place?.Words ?? "whole structure",
                 d.Text, SourceRef.Span(d.Sources))
             {
                 Symptoms = d.Symptoms,
@@ -56,6 +56,9 @@ internal static class CommentSchedule
     private static List<Draft> ForCase(Submission s, CaseReview c, Quoting quote)
     {
         var drafts = new List<Draft>();
+        // Ends in the order the model lists its members (start before end), as a designer reads them.
+        var order = s.Model.Members.Select((m, i) => (m.Id, i)).ToDictionary(x => x.Id, x => x.i, StringComparer.Ordinal);
+        c = c with { EndMoments = [.. c.EndMoments.OrderBy(e => order.GetValueOrDefault(e.Member, int.MaxValue)).ThenBy(e => e.End ?? MemberEnd.End)] };
         var wrong = c.EndMoments.Where(e => e.Status is EndStatus.Discrepant or EndStatus.Minor && e.Key is not null).ToList();
         var flags = c.Flags.Where(f => f.Severity != Severity.Info).ToList();
         var agreeing = c.EndMoments.Where(e => e.Status == EndStatus.Agree && e.Key is not null).Select(e => e.Key!.Value).ToHashSet();
@@ -145,7 +148,7 @@ internal static class CommentSchedule
     /// <summary>"With the correct working the claims would be: BC at B −71.01 (claimed −69.1), ... (kN·m, clockwise on the member end)."</summary>
     private static string Corrected(List<EndMomentFinding> ends, Quoting quote)
     {
-        var listed = ends.OrderBy(e => e.Member, StringComparer.Ordinal).ThenBy(e => e.End).Take(MaxListedEnds)
+        var listed = ends.Take(MaxListedEnds)
             .Select(e => $"{e.Place.Short} {quote.EndNumber(e.Recomputed!.Value, e.End!.Value)} (claimed {Quoting.ClaimNumber(e.Claim!)})");
         string more = ends.Count > MaxListedEnds ? $" and {ends.Count - MaxListedEnds} more" : "";
         return $"The correct analysis gives {string.Join(", ", listed)}{more} ({quote.ConventionNote}).";
@@ -216,7 +219,7 @@ internal static class CommentSchedule
         string text = e.Status == EndStatus.Missing || e.Claim is null
             ? ReviewMessages.EndMissingBrief(e.Place.Short, quote.EndMoment(e.Recomputed!.Value, e.End!.Value))
             : ReviewMessages.EndBrief(e.Place.Short, quote.Claim(e.Claim), quote.EndMoment(e.Recomputed!.Value, e.End!.Value));
-        return new Symptom(FlagKind.EndMoment.Json(), c.Case, sev, e.Place, text, e.Source?.Compact ?? "");
+        return new Symptom(FlagKind.EndMoment.Json(), c.Case, sev, e.Place, text, e.Source?.RowCompact ?? "");
     }
 
     private static Symptom Symptom(CaseReview c, Flag f) =>

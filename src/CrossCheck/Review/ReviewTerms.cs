@@ -44,7 +44,7 @@ public static class ReviewTerms
         [CauseCode.FarEndFixity] = new("far-end-fixity", "FX", "support fixity mistaken", true),
         [CauseCode.FixedEndMoment] = new("fixed-end-moment", "FEM", "wrong fixed-end moment", true),
         [CauseCode.CarryOver] = new("carry-over", "CO", "wrong carry-over factor", true),
-        [CauseCode.StoppedEarly] = new("stopped-early", "ST", "distribution stopped too early", true),
+        [CauseCode.StoppedEarly] = new("stopped-early", "SE", "distribution stopped too early", true),
         [CauseCode.SignConvention] = new("sign-convention", "SC", "sign convention mixed up", true),
         [CauseCode.EndsSwapped] = new("ends-swapped", "ES", "member ends swapped", true),
         [CauseCode.UnitScale] = new("unit-scale", "UN", "unit mixed up", true),

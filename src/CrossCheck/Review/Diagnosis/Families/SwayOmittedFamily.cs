@@ -14,7 +14,7 @@ internal sealed class SwayOmittedFamily : IHypothesisFamily
         var sway = x.Review.Flags.Any(f => f.Kind == FlagKind.StoreyShear && f.Severity == Severity.Major)
             ? "The storey-shear check of the claims fails too: the columns do not carry the lateral load, which is what an analysis that ignores sidesway produces." : "";
         yield return new Hypothesis(CauseCode.SwayOmitted, 2, x.From(braced),
-            "The claims are those of a braced (no-sway) analysis, but the frame can sway: sidesway was ignored.")
+            "The claims are those of a braced (no-sway) analysis, but the frame can sway.")
         {
             Evidence = sway,
             CorrectWorking = "Add the sway correction (a sway case superposed through the storey shear equation) or analyse with the joints free to translate.",

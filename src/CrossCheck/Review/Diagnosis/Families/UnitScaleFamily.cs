@@ -24,8 +24,14 @@ internal sealed class UnitScaleFamily : IHypothesisFamily
         var r = x.Recomputed;
         double rr = r.Sum(v => v * v);
         if (rr <= 0) yield break;
+        // One ratio is one number: with a single distinct moment (a symmetric pair, one loaded end) an odd conversion
+        // factor is near it by chance. Then only a power of ten (a prefix slip) is evidence; an odd factor needs at
+        // least two different moments scaled alike.
+        var sizes = r.Select(Math.Abs).Where(v => v > x.Agree).Order().ToList();
+        if (sizes.Count == 0) yield break;
+        bool oneNumber = sizes[^1] - sizes[0] <= 0.01 * sizes[^1];
         double alpha = x.Claimed.Zip(r).Sum(t => t.First * t.Second) / rr;
-        foreach (var (factor, meaning) in UnitFactors)
+        foreach (var (factor, meaning) in UnitFactors.Where(u => !oneNumber || u.Factor is 10 or 100 or 1000 or 1e6))
             foreach (var f in new[] { factor, 1 / factor })
                 if (Math.Abs((alpha / f) - 1) < 0.03)
                     yield return new Hypothesis(CauseCode.UnitScale, 1, r.Select(v => v * f).ToArray(),
