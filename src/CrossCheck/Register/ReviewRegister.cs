@@ -218,35 +218,38 @@ public sealed class ReviewRegister : IDisposable
         return problems;
     });
 
-    /// <summary>The <c>reviews</c> table as CSV, one row per review.</summary>
+    /// <summary>The <c>reviews</c> table as CSV, one row per review (text from submissions defused for spreadsheets, <see cref="CsvOut"/>).</summary>
     public string ExportReviewsCsv()
     {
-        var csv = new CsvText().Row("id", "reference", "round", "revision", "title", "submission", "source", "review_date", "recorded_at", "reviewer",
+        using var csv = new CsvOut();
+        csv.Header("id", "reference", "round", "revision", "title", "submission", "source", "review_date", "recorded_at", "reviewer",
             "tool_version", "abs_tolerance", "rel_tolerance", "minor_tolerance", "moment_unit", "input_hash", "verdict", "ends_agree", "ends_minor",
             "ends_discrepant", "ends_missing", "ends_unmatched", "major_flags", "minor_flags", "top_cause", "findings");
         foreach (var r in Reviews())
-            csv.Row(CsvText.Number(r.Id), CsvText.Text(r.Reference), CsvText.Number(r.Round), CsvText.Text(r.Revision), CsvText.Text(r.Title),
-                CsvText.Text(r.Submission), CsvText.Text(r.Source), r.ReviewDate, r.RecordedAt, CsvText.Text(r.Reviewer), r.ToolVersion,
-                CsvText.Number(r.AbsoluteTolerance), CsvText.Number(r.RelativeTolerance), CsvText.Number(r.MinorRelativeTolerance), r.MomentUnit,
-                r.InputHash, r.Verdict, CsvText.Number(r.EndsAgree), CsvText.Number(r.EndsMinor), CsvText.Number(r.EndsDiscrepant),
-                CsvText.Number(r.EndsMissing), CsvText.Number(r.EndsUnmatched), CsvText.Number(r.MajorFlags), CsvText.Number(r.MinorFlags),
-                r.TopCause, CsvText.Number(r.FindingCount));
+            csv.Number(r.Id).Text(r.Reference).Number(r.Round).Text(r.Revision).Text(r.Title).Text(r.Submission).Text(r.Source).Text(r.ReviewDate)
+                .Text(r.RecordedAt).Text(r.Reviewer).Text(r.ToolVersion).Number(r.AbsoluteTolerance).Number(r.RelativeTolerance)
+                .Number(r.MinorRelativeTolerance).Text(r.MomentUnit).Text(r.InputHash).Text(r.Verdict).Number(r.EndsAgree).Number(r.EndsMinor)
+                .Number(r.EndsDiscrepant).Number(r.EndsMissing).Number(r.EndsUnmatched).Number(r.MajorFlags).Number(r.MinorFlags).Text(r.TopCause)
+                .Number(r.FindingCount).End();
         return csv.ToString();
     }
 
     /// <summary>Every finding as CSV, one row per finding, with the review it belongs to.</summary>
     public string ExportFindingsCsv() => Read(tx =>
     {
-        var csv = new CsvText().Row("review_id", "reference", "round", "review_date", "comment_id", "kind", "severity", "case", "where", "comment", "source");
+        using var csv = new CsvOut();
+        csv.Header("review_id", "reference", "round", "review_date", "comment_id", "kind", "severity", "case", "where", "comment", "source");
         using var cmd = Command(tx, """
             SELECT r.id, r.reference, r.round, r.review_date, f.comment_id, f.kind, f.severity, f.load_case, f.place, f.message, f.source
             FROM findings f JOIN reviews r ON r.id = f.review_id ORDER BY r.id, f.seq
             """);
         using var r = cmd.ExecuteReader();
         while (r.Read())
-            csv.Row(CsvText.Number(r.GetInt64(0)), CsvText.Text(r.GetString(1)), CsvText.Number(r.GetInt32(2)), r.GetString(3), r.GetString(4),
-                r.GetString(5), r.GetString(6), CsvText.Text(r.GetString(7)), CsvText.Text(r.GetString(8)), CsvText.Text(r.GetString(9)),
-                CsvText.Text(r.GetString(10)));
+        {
+            csv.Number(r.GetInt64(0)).Text(r.GetString(1)).Number(r.GetInt32(2));
+            for (int i = 3; i <= 10; i++) csv.Text(r.GetString(i));
+            csv.End();
+        }
         return csv.ToString();
     });
 
