@@ -1,6 +1,7 @@
 using System.CommandLine;
 using System.Globalization;
 using CrossCheck.Register;
+using CrossCheck.Review;
 using Spectre.Console;
 
 namespace CrossCheck.Cli.Commands;

@@ -1,7 +1,6 @@
 using CrossCheck.Common;
 using CrossCheck.Import;
 using CrossCheck.Model;
-using CrossCheck.Register;
 using CrossCheck.Review;
 
 namespace CrossCheck.Memo;

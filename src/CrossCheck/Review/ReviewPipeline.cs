@@ -61,6 +61,7 @@ public static class ReviewPipeline
                 ReviewFailure.NotAnalysable, problem.Message);
         }
         var review = ReviewEngine.Review(s, analysis!, options, warnings.Select(w => w.ToString()));
+        if (options.ShowWorking) review = review with { Working = ReferenceWorking.Compute(s) };
         return new ReviewOutcome(path, review, [], warnings);
     }
 }

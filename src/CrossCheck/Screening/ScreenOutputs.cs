@@ -1,7 +1,6 @@
 using System.Globalization;
 using CrossCheck.Common;
 using CrossCheck.Memo;
-using CrossCheck.Register;
 using CrossCheck.Review;
 
 namespace CrossCheck.Screening;

@@ -1,6 +1,5 @@
 using CrossCheck.Import;
 using CrossCheck.Memo;
-using CrossCheck.Register;
 using CrossCheck.Review;
 
 namespace CrossCheck.Screening;
