@@ -35,7 +35,7 @@ public sealed class MemoModel
         CheckedBy = s.Info.CheckedBy ?? "—";
         SubmissionDate = s.Info.Date ?? "—";
         Reviewer = o.Reviewer ?? "(not stated — use --reviewer)";
-        ReviewDate = (o.Date ?? DateOnly.FromDateTime(DateTime.Today)).ToString("yyyy-MM-dd", CultureInfo.InvariantCulture);
+        ReviewDate = Clock.Iso(o.Date ?? Clock.Today(TimeProvider.System));
         ToolVersion = ToolInfo.Version;
         Source = s.Source;
         Verdict = review.Verdict.Words();

@@ -50,7 +50,7 @@ public static class ReviewJson
                 .Str("signConvention", s.Info.SignConvention == SignConvention.Sagging ? "sagging" : "clockwise")
             .EndObj()
             .Str("reviewer", review.Options.Reviewer)
-            .Str("date", (review.Options.Date ?? DateOnly.FromDateTime(DateTime.Today)).ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture))
+            .Str("date", Clock.Iso(review.Options.Date ?? Clock.Today(TimeProvider.System)))
             .Obj("tolerance")
                 .Num("absolute", review.Options.AbsoluteTolerance).Num("relative", review.Options.RelativeTolerance).Num("minorRelative", review.Options.MinorRelativeTolerance)
             .EndObj()

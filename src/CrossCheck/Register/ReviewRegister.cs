@@ -33,13 +33,15 @@ public sealed class ReviewRegister : IDisposable
         "ends_unmatched, major_flags, minor_flags, top_cause, finding_count";
 
     private readonly SqliteConnection _connection;
+    private readonly TimeProvider _time;
     private readonly Lock _gate = new();
 
-    private ReviewRegister(string path, SqliteConnection connection, int schemaVersion)
+    private ReviewRegister(string path, SqliteConnection connection, int schemaVersion, TimeProvider time)
     {
         Path = path;
         _connection = connection;
         SchemaVersion = schemaVersion;
+        _time = time;
     }
 
     /// <summary>The register file (full path).</summary>
@@ -55,10 +57,12 @@ public sealed class ReviewRegister : IDisposable
     internal Action<long>? AfterReviewRow { get; set; }
 
     /// <summary>Opens (creating if needed) the register at <paramref name="path"/> and brings its schema up to date.</summary>
+    /// <param name="path">The register file.</param>
+    /// <param name="time">The clock for the time each review is recorded (and the review date when a review has none).</param>
     /// <exception cref="RegisterException">The file is not a CrossCheck register, was written by a newer version, or cannot be opened.</exception>
-    public static ReviewRegister Open(string path) => Open(path, RegisterSchema.Migrations, TimeSpan.FromSeconds(30));
+    public static ReviewRegister Open(string path, TimeProvider? time = null) => Open(path, RegisterSchema.Migrations, TimeSpan.FromSeconds(30), time);
 
-    internal static ReviewRegister Open(string path, IReadOnlyList<Migration> migrations, TimeSpan busyTimeout)
+    internal static ReviewRegister Open(string path, IReadOnlyList<Migration> migrations, TimeSpan busyTimeout, TimeProvider? time = null)
     {
         ArgumentNullException.ThrowIfNull(path);
         string full = System.IO.Path.GetFullPath(path);
@@ -81,7 +85,7 @@ public sealed class ReviewRegister : IDisposable
             Execute(connection, null, "PRAGMA synchronous = NORMAL");
             Execute(connection, null, "PRAGMA foreign_keys = ON");
             int version = Migrate(connection, path, migrations);
-            return new ReviewRegister(full, connection, version);
+            return new ReviewRegister(full, connection, version, time ?? TimeProvider.System);
         }
         catch (SqliteException ex)
         {
@@ -292,8 +296,7 @@ public sealed class ReviewRegister : IDisposable
             """);
         Bind(cmd, ("$reference", reference), ("$round", round), ("$revision", s.Info.Revision), ("$title", s.Info.Title),
             ("$submission", submissionName), ("$source", s.Source),
-            ("$date", (o.Date ?? DateOnly.FromDateTime(DateTime.Today)).ToString("yyyy-MM-dd", CultureInfo.InvariantCulture)),
-            ("$recorded", DateTime.UtcNow.ToString("yyyy-MM-ddTHH:mm:ss.fffZ", CultureInfo.InvariantCulture)),
+            ("$date", Clock.Iso(o.Date ?? Clock.Today(_time))), ("$recorded", Clock.UtcStamp(_time)),
             ("$reviewer", o.Reviewer), ("$tool", ToolInfo.Version), ("$abs", o.AbsoluteTolerance), ("$rel", o.RelativeTolerance),
             ("$minor", o.MinorRelativeTolerance), ("$unit", s.Info.Units.Moment.Symbol), ("$hash", hash), ("$verdict", review.Verdict.Json()),
             ("$agree", review.CountEnds(EndStatus.Agree)), ("$eminor", review.CountEnds(EndStatus.Minor)),

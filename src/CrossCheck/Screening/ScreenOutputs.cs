@@ -70,7 +70,7 @@ public sealed class ScreenIndexModel
         var o = report.Options.Review;
         Folder = Path.GetFileName(Path.TrimEndingDirectorySeparator(report.Folder));
         FolderPath = report.Folder;
-        ReviewDate = (o.Date ?? DateOnly.FromDateTime(DateTime.Today)).ToString("yyyy-MM-dd", CultureInfo.InvariantCulture);
+        ReviewDate = Clock.Iso(o.Date ?? Clock.Today(TimeProvider.System));
         Reviewer = o.Reviewer ?? "(not stated — use --reviewer)";
         ToolVersion = ToolInfo.Version;
         AbsoluteTolerance = Fmt.Number(o.AbsoluteTolerance, "0.0##");
