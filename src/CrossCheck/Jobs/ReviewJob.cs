@@ -128,7 +128,7 @@ public sealed class ReviewJob(TimeProvider? time = null)
         var imported = SubmissionReader.Read(path, limits ?? InputLimits.Default);
         var warnings = imported.Warnings.ToList();
         if (!imported.Succeeded) return new ReviewOutcome(path, null, imported.Errors.ToList(), warnings, ReviewFailure.Unreadable);
-        var s = imported.Submission!;
+        var s = imported.Submission;
         if (!new FrameSolver().TrySolve(s.Model, s.Cases, out var analysis, out var problem))
         {
             var where = new SourceRef(SubmissionNames.DisplayName(path));

@@ -32,7 +32,7 @@ public static class SolveJob
         var imported = SubmissionReader.Read(path, limits ?? Limits);
         var warnings = imported.Warnings.ToList();
         if (!imported.Succeeded) return new SolveOutcome(path, null, imported.Errors.ToList(), warnings);
-        var s = imported.Submission!;
+        var s = imported.Submission;
         return new FrameSolver().TrySolve(s.Model, s.Cases, out var result, out var problem)
             ? new SolveOutcome(path, new SolveReport(s, result), [], warnings)
             : new SolveOutcome(path, null, [], warnings, problem.Message);
