@@ -35,7 +35,7 @@ public sealed class MemoModel
         CheckedBy = s.Info.CheckedBy ?? "—";
         SubmissionDate = s.Info.Date ?? "—";
         Reviewer = o.Reviewer ?? "(not stated — use --reviewer)";
-        ReviewDate = (o.Date ?? DateOnly.FromDateTime(DateTime.Today)).ToString("yyyy-MM-dd", CultureInfo.InvariantCulture);
+        ReviewDate = Clock.Iso(o.Date ?? Clock.Today(TimeProvider.System));
         ToolVersion = ToolInfo.Version;
         Source = s.Source;
         Verdict = review.Verdict.Words();
@@ -142,7 +142,7 @@ public sealed class MemoModel
     /// <summary>The comparison with the previous round when the review was recorded in a register (else <see cref="MemoRounds.None"/>).</summary>
     public MemoRounds Rounds { get; init; } = MemoRounds.None;
 
-    /// <summary>Extra sections later stages add (diagrams, working tables), as pre-rendered blocks by format.</summary>
+    /// <summary>Appendices (the reference working table), as pre-rendered blocks by format.</summary>
     public IReadOnlyList<MemoAppendix> Appendices { get; init; } = [];
 
     private static string RestraintWord(Restraint r) => r switch
@@ -202,7 +202,7 @@ public sealed record MemoFlag(string Kind, string Severity, string Where, string
 
 public sealed record MemoCause(string Code, string Confidence, string Explains, string Message, string Evidence);
 
-/// <summary>A block a later stage adds to the memo (e.g. diagrams), already rendered for Markdown and HTML.</summary>
+/// <summary>An appendix of the memo (the reference working table), already rendered for Markdown and HTML.</summary>
 public sealed record MemoAppendix(string Title, string Markdown, string Html);
 
 public sealed class MemoCase
