@@ -29,7 +29,6 @@ public static class App
         root.Add(HistoryCommand.Create(io));
         root.Add(HistoryCommand.CreateRegister(io));
         root.Add(ExtractCommand.Create(io));
-        foreach (var cmd in ExtraCommands) root.Add(cmd(io));
         foreach (var sub in root.Subcommands)
             if (!sub.Options.OfType<VersionOption>().Any()) sub.Add(new VersionOption());
 
@@ -69,9 +68,6 @@ public static class App
             return ExitCodes.InternalError;
         }
     }
-
-    /// <summary>Commands added by later stages (review, extract, screen, ...).</summary>
-    internal static List<Func<CliIo, Command>> ExtraCommands { get; } = [];
 }
 
 /// <summary>Where a command writes: standard output for results, standard error for messages.</summary>

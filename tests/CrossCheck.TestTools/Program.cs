@@ -1,6 +1,7 @@
 using System.Diagnostics;
 using System.Globalization;
 using CrossCheck.Common;
+using CrossCheck.Jobs;
 using CrossCheck.Register;
 using CrossCheck.Review;
 using CrossCheck.Screening;
@@ -57,7 +58,7 @@ switch (args[0])
 
 static ReviewResult ReviewOf(string path)
 {
-    var outcome = ReviewPipeline.Run(path, new ReviewOptions(Reviewer: "Probe", Date: new DateOnly(2026, 12, 1)));
+    var outcome = new ReviewJob().Review(path, new ReviewOptions(Reviewer: "Probe", Date: new DateOnly(2026, 12, 1)));
     return outcome.Review ?? throw new InvalidOperationException("the probe's submission does not review: " + string.Join("; ", outcome.Errors));
 }
 

@@ -1,74 +1,43 @@
-using CrossCheck.Analysis;
-using CrossCheck.Common;
 using CrossCheck.Import;
-using CrossCheck.Model;
-using CrossCheck.Review;
+using CrossCheck.Jobs;
 using Spectre.Console;
 
 namespace CrossCheck.Cli.Commands;
 
-/// <summary>What the commands share: reading a submission, reporting input problems, writing outputs.</summary>
+/// <summary>What the commands share: printing warnings and problems, writing to standard output or a file, the console.</summary>
 internal static class CommandSupport
 {
-    /// <summary>Reads a submission; on failure prints every problem and returns null.</summary>
-    public static Submission? Read(string path, CliIo io, bool quietWarnings = false, InputLimits? limits = null)
+    public static void Warnings(IEnumerable<InputProblem> warnings, CliIo io)
     {
-        var result = SubmissionReader.Read(path, limits ?? InputLimits.Default);
-        if (!quietWarnings)
-            foreach (var w in result.Warnings) io.Error.WriteLine($"warning: {w}");
-        if (result.Succeeded) return result.Submission;
-        var errors = result.Errors.ToList();
-        io.Error.WriteLine($"crosscheck: '{path}' could not be read ({errors.Count} problem{(errors.Count == 1 ? "" : "s")}):");
-        foreach (var e in errors) io.Error.WriteLine($"  {e.Where.Compact}: {e.Message}");
-        return null;
+        foreach (var w in warnings) io.Error.WriteLine($"warning: {w}");
     }
 
-    /// <summary>Prints why a submission has no review: the input problems, or why its structure cannot be analysed.</summary>
-    public static void ReportErrors(string path, ReviewOutcome outcome, CliIo io)
+    /// <summary>A sentence for the user, after <c>crosscheck:</c>.</summary>
+    public static void Fail(string message, CliIo io) => io.Error.WriteLine($"crosscheck: {message}");
+
+    /// <summary>Prints why a submission has no result: the input problems, or why its structure cannot be analysed.</summary>
+    public static void ReportErrors(string path, IReadOnlyList<InputProblem> errors, string? structureProblem, CliIo io)
     {
-        var errors = outcome.Errors;
-        if (outcome.StructureProblem is { } problem)
+        if (structureProblem is not null)
         {
-            io.Error.WriteLine($"crosscheck: '{path}' cannot be analysed: {problem}");
+            Fail($"'{path}' cannot be analysed: {structureProblem}", io);
             return;
         }
-        io.Error.WriteLine($"crosscheck: '{path}' could not be read ({errors.Count} problem{(errors.Count == 1 ? "" : "s")}):");
+        Fail($"'{path}' could not be read ({errors.Count} problem{(errors.Count == 1 ? "" : "s")}):", io);
         foreach (var e in errors) io.Error.WriteLine($"  {e.Where.Compact}: {e.Message}");
     }
 
-    /// <summary>Solves; on a structural problem (mechanism, ...) prints it and returns null.</summary>
-    public static AnalysisResult? Solve(Submission s, CliIo io)
-    {
-        if (new FrameSolver().TrySolve(s.Model, s.Cases, out var result, out var problem)) return result;
-        io.Error.WriteLine($"crosscheck: '{s.Source}' cannot be analysed: {problem!.Message}");
-        return null;
-    }
-
-    /// <summary>Writes to <paramref name="outPath"/> atomically, or to standard output when it is null; false (after a message) when the file cannot be written.</summary>
+    /// <summary>Writes to <paramref name="outPath"/> (atomically, by the library), or to standard output when it is null; false (after a message) when the file cannot be written.</summary>
     public static bool Emit(string? outPath, string content, CliIo io, bool announce = true)
     {
         if (outPath is null) { io.Output.Write(content); return true; }
-        if (!TryWrite(outPath, () => AtomicFile.WriteText(outPath, content), io)) return false;
-        if (announce) io.Error.WriteLine($"wrote {outPath}");
-        return true;
-    }
-
-    /// <summary>
-    /// Runs <paramref name="write"/>; a path that cannot be written (a folder of that name, no permission, a missing
-    /// drive) is the user's to fix, so it is reported in a sentence, not as an internal error. Nothing is left half-written.
-    /// </summary>
-    public static bool TryWrite(string path, Action write, CliIo io)
-    {
-        try
+        if (!JobOutput.TryWrite(outPath, content, out var problem))
         {
-            write();
-            return true;
-        }
-        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
-        {
-            io.Error.WriteLine($"crosscheck: cannot write '{path}': {ex.Message}");
+            Fail(problem, io);
             return false;
         }
+        if (announce) io.Error.WriteLine($"wrote {outPath}");
+        return true;
     }
 
     public static IAnsiConsole Console(CliIo io)

@@ -1,7 +1,7 @@
 using System.CommandLine;
-using CrossCheck.Common;
 using CrossCheck.Import;
 using CrossCheck.Import.Pdf;
+using CrossCheck.Jobs;
 
 namespace CrossCheck.Cli.Commands;
 
@@ -33,44 +33,36 @@ internal static class ExtractCommand
 
     private static int Run(string path, string outDir, bool force, InputLimits limits, CliIo io)
     {
-        if (!File.Exists(path))
+        var outcome = ExtractJob.Run(path, outDir, force, limits);
+        if (outcome.Extraction is not { } x || outcome.Built is null && x.Tables.Count > 0)
         {
-            io.Error.WriteLine($"crosscheck: '{path}' does not exist.");
+            CommandSupport.Fail(outcome.Problem!, io);
             return ExitCodes.InputError;
         }
-        if (!Path.GetExtension(path).Equals(".pdf", StringComparison.OrdinalIgnoreCase))
-        {
-            io.Error.WriteLine($"crosscheck: '{path}' is not a .pdf file; extract reads text PDFs (CSV submissions need no extracting).");
-            return ExitCodes.InputError;
-        }
-        var x = PdfSubmissionReader.Extract(path, limits.Pdf);
         if (x.Tables.Count == 0)
         {
-            io.Error.WriteLine($"crosscheck: no tables were read from '{path}':");
+            CommandSupport.Fail(outcome.Problem!, io);
             foreach (var e in x.Problems.Where(p => p.IsError)) io.Error.WriteLine($"  {e.Where.Compact}: {e.Message}");
             return ExitCodes.InputError;
         }
-        if (Directory.Exists(outDir) && Directory.EnumerateFileSystemEntries(outDir).Any() && !force
-            && Directory.EnumerateFiles(outDir, "*.csv").Any())
+        PrintFound(x, io);
+        if (!outcome.Written)
         {
-            io.Error.WriteLine($"crosscheck: '{outDir}' already holds CSV files; give --force to replace the tables in it, or choose another folder.");
+            CommandSupport.Fail(outcome.Problem!, io);
             return ExitCodes.InputError;
         }
-
-        var built = SubmissionBuilder.Build(path, x.Tables, x.Problems, limits);
-        var files = ContractCsv.Render(x.Tables);
-        PrintFound(x, io);
-        if (!CommandSupport.TryWrite(outDir, () => WriteFolder(outDir, files), io)) return ExitCodes.InputError;
+        var files = outcome.Files;
         io.Output.WriteLine($"wrote {files.Count} table{(files.Count == 1 ? "" : "s")} to {outDir}: {string.Join(", ", files.Select(f => f.FileName))}");
 
-        foreach (var w in built.Warnings) io.Error.WriteLine($"warning: {w}");
+        var built = outcome.Built!;
+        CommandSupport.Warnings(built.Warnings, io);
         var errors = built.Errors.ToList();
         if (errors.Count == 0)
         {
             io.Output.WriteLine($"check the tables against the PDF, then run: crosscheck review {outDir}");
             return ExitCodes.Concur;
         }
-        io.Error.WriteLine($"crosscheck: the tables read from '{path}' have {errors.Count} problem{(errors.Count == 1 ? "" : "s")}; correct them in {outDir} and review the folder:");
+        CommandSupport.Fail($"the tables read from '{path}' have {errors.Count} problem{(errors.Count == 1 ? "" : "s")}; correct them in {outDir} and review the folder:", io);
         foreach (var e in errors) io.Error.WriteLine($"  {e.Where.Compact}: {e.Message}");
         return ExitCodes.InputError;
     }
@@ -87,19 +79,5 @@ internal static class ExtractCommand
         if (x.Ignored.Count == 0) return;
         io.Output.WriteLine("not read:");
         foreach (var i in x.Ignored) io.Output.WriteLine($"  {i.Where.Citation}: {i.What}");
-    }
-
-    /// <summary>Writes every file atomically, then removes tables of the format the folder held from an earlier run.</summary>
-    private static void WriteFolder(string dir, IReadOnlyList<ContractFile> files)
-    {
-        Directory.CreateDirectory(dir);
-        // The file names are the format's table names; ChildPath makes sure each stays a plain name inside the folder.
-        foreach (var f in files) AtomicFile.WriteText(SubmissionNames.ChildPath(dir, f.FileName), f.Content);
-        var written = files.Select(f => f.FileName).ToHashSet(StringComparer.OrdinalIgnoreCase);
-        foreach (var stale in Directory.EnumerateFiles(dir, "*.csv"))
-        {
-            string name = Path.GetFileName(stale);
-            if (!written.Contains(name) && ContractCsv.IsTableName(Path.GetFileNameWithoutExtension(name))) File.Delete(stale);
-        }
     }
 }

@@ -1,6 +1,8 @@
 using System.CommandLine;
 using System.Globalization;
+using CrossCheck.Jobs;
 using CrossCheck.Register;
+using CrossCheck.Review;
 using Spectre.Console;
 
 namespace CrossCheck.Cli.Commands;
@@ -46,20 +48,9 @@ internal static class HistoryCommand
 
     private static ReviewRegister? OpenExisting(string path, CliIo io)
     {
-        if (!File.Exists(path))
-        {
-            io.Error.WriteLine($"crosscheck: there is no register at '{path}' ('crosscheck screen' and 'crosscheck review --register' create one).");
-            return null;
-        }
-        try
-        {
-            return ReviewRegister.Open(path);
-        }
-        catch (RegisterException ex)
-        {
-            io.Error.WriteLine($"crosscheck: {ex.Message}");
-            return null;
-        }
+        if (RegisterJob.TryOpenExisting(path, out var register, out var problem)) return register;
+        CommandSupport.Fail(problem, io);
+        return null;
     }
 
     private static int Run(string? reference, string path, CliIo io)
@@ -114,9 +105,15 @@ internal static class HistoryCommand
 
     private static int Export(string path, bool findings, string? outPath, CliIo io)
     {
-        using var register = OpenExisting(path, io);
-        if (register is null) return ExitCodes.InputError;
-        return CommandSupport.Emit(outPath, findings ? register.ExportFindingsCsv() : register.ExportReviewsCsv(), io) ? ExitCodes.Concur : ExitCodes.InputError;
+        var (text, written, problem) = RegisterJob.Export(path, findings, outPath);
+        if (problem is not null)
+        {
+            CommandSupport.Fail(problem, io);
+            return ExitCodes.InputError;
+        }
+        if (text is not null) io.Output.Write(text);
+        if (written is not null) io.Error.WriteLine($"wrote {written}");
+        return ExitCodes.Concur;
     }
 
     private static int Check(string path, CliIo io)

@@ -1,8 +1,7 @@
 using System.CommandLine;
 using CrossCheck.Common;
 using CrossCheck.Import;
-using CrossCheck.Memo;
-using CrossCheck.Register;
+using CrossCheck.Jobs;
 using CrossCheck.Review;
 using Spectre.Console;
 
@@ -50,97 +49,28 @@ internal static class ReviewCommand
 
     private static int Run(Request r, CliIo io)
     {
-        bool json = r.Format == "json";
-        bool pdf = r.Format == "pdf";
-        string? browser = null;
-        if (pdf && (browser = PdfPrinter.FindBrowser()) is null)
+        var format = r.Format switch { "html" => ReviewFormat.Html, "pdf" => ReviewFormat.Pdf, "json" => ReviewFormat.Json, _ => ReviewFormat.Markdown };
+        var outcome = new ReviewJob().Run(new ReviewRequest(r.Path, r.Options, format)
         {
-            io.Error.WriteLine($"crosscheck: {PdfPrinter.MissingBrowserMessage}");
-            return ExitCodes.InputError;
-        }
-        string? templateText = null;
-        if (r.Template is not null)
+            Limits = r.Limits, OutputPath = r.Out, TemplatePath = r.Template, RegisterPath = r.Register,
+        });
+        CommandSupport.Warnings(outcome.Warnings, io);
+        if (outcome.Text is not null) io.Output.Write(outcome.Text);
+        switch (outcome.Status)
         {
-            if (json) { io.Error.WriteLine("crosscheck: --template applies to md and html memos, not json."); return ExitCodes.InputError; }
-            if (!File.Exists(r.Template)) { io.Error.WriteLine($"crosscheck: template '{r.Template}' does not exist."); return ExitCodes.InputError; }
-            templateText = File.ReadAllText(r.Template);
-            try
-            {
-                MemoRenderer.Validate(templateText, r.Template);
-            }
-            catch (MemoTemplateException ex)
-            {
-                io.Error.WriteLine($"crosscheck: the memo template has an error: {ex.Message}");
+            case ReviewJobStatus.Refused:
+                CommandSupport.Fail(outcome.Problem!, io);
                 return ExitCodes.InputError;
-            }
-        }
-
-        var outcome = ReviewPipeline.Run(r.Path, r.Options, r.Limits);
-        foreach (var w in outcome.Warnings) io.Error.WriteLine($"warning: {w}");
-        if (outcome.Review is not { } review)
-        {
-            if (json) _ = CommandSupport.Emit(r.Out, ReviewJson.WriteInputErrors(r.Path, outcome.Errors), io, announce: r.Out is not null);
-            CommandSupport.ReportErrors(r.Path, outcome, io);
-            return ExitCodes.InputError;
-        }
-
-        RoundComparison? rounds = null;
-        if (r.Register is not null)
-        {
-            try
-            {
-                using var register = ReviewRegister.Open(r.Register);
-                rounds = register.Record(review, review.ReferenceOr(SubmissionNames.BaseName(r.Path)), SubmissionNames.DisplayName(r.Path),
-                    InputHash.Compute(r.Path));
-            }
-            catch (RegisterException ex)
-            {
-                io.Error.WriteLine($"crosscheck: {ex.Message}");
+            case ReviewJobStatus.InputError:
+                if (outcome.WrittenTo is not null) io.Error.WriteLine($"wrote {outcome.WrittenTo}");
+                if (outcome.Problem is not null) CommandSupport.Fail(outcome.Problem, io);
+                CommandSupport.ReportErrors(r.Path, outcome.Errors, outcome.StructureProblem, io);
                 return ExitCodes.InputError;
-            }
         }
-
-        string content;
-        try
-        {
-            content = json ? ReviewJson.Write(review, rounds) : RenderMemo(review, r.Format is "html" or "pdf" ? MemoFormat.Html : MemoFormat.Markdown, templateText, r.Template, rounds);
-        }
-        catch (MemoTemplateException ex)
-        {
-            io.Error.WriteLine($"crosscheck: the memo template has an error: {ex.Message}");
-            return ExitCodes.InputError;
-        }
-        string? target = r.Out ?? (json ? null : DefaultMemoPath(r.Path, r.Format));
-        if (pdf)
-        {
-            byte[] printed;
-            try
-            {
-                printed = PdfPrinter.Print(content, browser!);
-            }
-            catch (PdfPrintException ex)
-            {
-                io.Error.WriteLine($"crosscheck: the PDF memo could not be printed: {ex.Message} Write it with --format html and print it from a browser instead.");
-                return ExitCodes.InputError;
-            }
-            if (!CommandSupport.TryWrite(target!, () => AtomicFile.WriteBytes(target!, printed), io)) return ExitCodes.InputError;
-        }
-        else if (!CommandSupport.Emit(target, content, io, announce: false))
-        {
-            return ExitCodes.InputError;
-        }
-        if (!r.Quiet && !(json && target is null)) PrintSummary(review, rounds, target, io);
+        var review = outcome.Review!;
+        if (!r.Quiet && outcome.Text is null) PrintSummary(review, outcome.Rounds, outcome.WrittenTo, io);
         return review.Verdict == Verdict.Concur ? ExitCodes.Concur : ExitCodes.Comments;
     }
-
-    internal static string RenderMemo(ReviewResult review, MemoFormat format, string? templateText, string? templateName, RoundComparison? rounds = null)
-    {
-        var model = MemoExtensions.Build(review, format, rounds);
-        return templateText is null ? MemoRenderer.Render(model, format) : MemoRenderer.Render(model, templateText, templateName ?? "template");
-    }
-
-    private static string DefaultMemoPath(string submission, string format) =>
-        $"{SubmissionNames.SafeStem(SubmissionNames.BaseName(submission))}-review.{format}";
 
     private static void PrintSummary(ReviewResult review, RoundComparison? rounds, string? memoPath, CliIo io)
     {

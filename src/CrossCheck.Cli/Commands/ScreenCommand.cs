@@ -1,6 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
-using CrossCheck.Common;
+using CrossCheck.Jobs;
 using CrossCheck.Memo;
 using CrossCheck.Register;
 using CrossCheck.Review;
@@ -63,31 +63,19 @@ internal static class ScreenCommand
             io.Error.WriteLine("crosscheck: give --register or --no-register, not both.");
             return ExitCodes.InputError;
         }
-        (string Text, string Name)? template = null;
-        if (templatePath is not null)
+        MemoTemplateFile? template = null;
+        if (templatePath is not null && !MemoTemplateFile.TryLoad(templatePath, out template, out var problem))
         {
-            if (!File.Exists(templatePath)) { io.Error.WriteLine($"crosscheck: template '{templatePath}' does not exist."); return ExitCodes.InputError; }
-            string text = File.ReadAllText(templatePath);
-            try
-            {
-                MemoRenderer.Validate(text, templatePath);
-            }
-            catch (MemoTemplateException ex)
-            {
-                io.Error.WriteLine($"crosscheck: the memo template has an error: {ex.Message}");
-                return ExitCodes.InputError;
-            }
-            template = (text, templatePath);
+            CommandSupport.Fail(problem, io);
+            return ExitCodes.InputError;
         }
-        string full = Path.TrimEndingDirectorySeparator(Path.GetFullPath(folder));
-        string name = Path.GetFileName(full) is { Length: > 0 } n ? n : "submissions";
-        outDir ??= $"{SubmissionNames.SafeStem(name)}-screen";
-        if (string.Equals(Path.TrimEndingDirectorySeparator(Path.GetFullPath(outDir)), full, StringComparison.Ordinal))
+        outDir ??= Screener.DefaultOutputFolder(folder);
+        if (Screener.IsScreenedFolder(folder, outDir))
         {
             io.Error.WriteLine("crosscheck: --out must not be the folder screened (its summary.csv would be taken for a submission next time).");
             return ExitCodes.InputError;
         }
-        if (!noRegister) registerPath ??= Path.Combine(Path.GetDirectoryName(full) ?? full, ReviewRegister.DefaultFileName);
+        if (!noRegister) registerPath ??= Screener.DefaultRegisterPath(folder);
         var options = new ScreenOptions(review, outDir, format == "md" ? MemoFormat.Markdown : MemoFormat.Html, jobs, registerPath, template) { Limits = limits };
 
         var console = CommandSupport.Console(io);

@@ -1,6 +1,7 @@
 using System.CommandLine;
 using System.Globalization;
 using CrossCheck.Common;
+using CrossCheck.Jobs;
 using CrossCheck.Memo;
 using Spectre.Console;
 
@@ -9,22 +10,13 @@ namespace CrossCheck.Cli.Commands;
 /// <summary><c>crosscheck solve SUBMISSION</c>: prints the recomputed end moments.</summary>
 internal static class SolveCommand
 {
-    /// <summary>
-    /// Recomputing a model needs no claims, and without a diagnosis to run a large frame costs little (the skyline
-    /// solver handles 100,000 unknowns in about a second), so solve reads far bigger structures than review.
-    /// </summary>
-    private static readonly Import.InputLimits SolveLimits = Import.InputLimits.Default with
-    {
-        ClaimsRequired = false, MaxMembers = 50_000, MaxJoints = 100_000, MaxRows = 200_000,
-    };
-
     public static Command Create(CliIo io)
     {
         var submission = new Argument<string>("submission") { Description = "A folder of CSV tables, a single CSV file with [table] sections, or a text PDF." };
         var format = new Option<string>("--format", "-f") { Description = "Output format.", DefaultValueFactory = _ => "table" };
         format.AcceptOnlyFromAmong("table", "csv", "json");
         var output = new Option<string?>("--out", "-o") { Description = "Write to this file instead of standard output." };
-        var limitOptions = new LimitOptions(SolveLimits);
+        var limitOptions = new LimitOptions(SolveJob.Limits);
         var cmd = new Command("solve", "Recompute every member end moment of a submission with the independent stiffness solver.")
         {
             submission, format, output,
@@ -40,34 +32,35 @@ internal static class SolveCommand
 
     private static int Run(string path, string format, string? outPath, Import.InputLimits limits, CliIo io)
     {
-        var s = CommandSupport.Read(path, io, limits: limits);
-        if (s is null) return ExitCodes.InputError;
-        var result = CommandSupport.Solve(s, io);
-        if (result is null) return ExitCodes.InputError;
-        var report = new SolveReport(s, result);
-        foreach (var note in result.Notes) io.Error.WriteLine($"note: {note}");
+        var outcome = SolveJob.Run(path, limits);
+        CommandSupport.Warnings(outcome.Warnings, io);
+        if (outcome.Report is not { } report)
+        {
+            CommandSupport.ReportErrors(path, outcome.Errors, outcome.StructureProblem, io);
+            return ExitCodes.InputError;
+        }
+        foreach (var note in report.Result.Notes) io.Error.WriteLine($"note: {note}");
+        string content;
         switch (format)
         {
             case "csv":
-                if (!CommandSupport.Emit(outPath, report.ToCsv(), io)) return ExitCodes.InputError;
+                content = report.ToCsv();
                 break;
             case "json":
-                if (!CommandSupport.Emit(outPath, report.ToJson(), io)) return ExitCodes.InputError;
+                content = report.ToJson();
                 break;
             default:
-                if (outPath is not null)
-                {
-                    var sw = new StringWriter(CultureInfo.InvariantCulture);
-                    RenderTable(report, new CliIo(sw, io.Error, false));
-                    if (!CommandSupport.Emit(outPath, sw.ToString(), io)) return ExitCodes.InputError;
-                }
-                else
+                if (outPath is null)
                 {
                     RenderTable(report, io);
+                    return ExitCodes.Concur;
                 }
+                var sw = new StringWriter(CultureInfo.InvariantCulture);
+                RenderTable(report, new CliIo(sw, io.Error, false));
+                content = sw.ToString();
                 break;
         }
-        return ExitCodes.Concur;
+        return CommandSupport.Emit(outPath, content, io) ? ExitCodes.Concur : ExitCodes.InputError;
     }
 
     private static void RenderTable(SolveReport report, CliIo io)

@@ -1,3 +1,4 @@
+using System.Diagnostics.CodeAnalysis;
 using System.Globalization;
 using CrossCheck.Model;
 
@@ -38,7 +39,8 @@ public sealed class FrameSolver
     }
 
     /// <summary>Analyses every load case, returning false with the reason instead of throwing.</summary>
-    public bool TrySolve(StructureModel model, IReadOnlyList<LoadCase> cases, out AnalysisResult? result, out StructureException? problem)
+    public bool TrySolve(StructureModel model, IReadOnlyList<LoadCase> cases, [NotNullWhen(true)] out AnalysisResult? result,
+        [NotNullWhen(false)] out StructureException? problem)
     {
         try
         {

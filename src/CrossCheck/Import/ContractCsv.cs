@@ -1,5 +1,5 @@
 using System.Globalization;
-using System.Text;
+using CrossCheck.Common;
 
 namespace CrossCheck.Import;
 
@@ -12,8 +12,9 @@ public sealed record ContractFile(string FileName, string Content, IReadOnlyList
 /// <summary>
 /// Writes tables (as read from a PDF, or any <see cref="RawTable"/>) as the CSV files of the folder container:
 /// one file per table, the format's column names in the format's order, each unit in brackets in the header
-/// (including units that were given outside the header), numbers in their plain form. A comment line says where
-/// each table was read. Reading the folder back gives the same submission.
+/// (including units that were given outside the header), numbers as they were read. A comment line says where
+/// each table was read. Reading the folder back gives the same submission. Written by <see cref="CsvOut"/>: a text cell
+/// a spreadsheet would take for a formula is defused.
 /// </summary>
 public static class ContractCsv
 {
@@ -38,15 +39,22 @@ public static class ContractCsv
                 chosen[col] = (i, col.Type == ColumnType.Number && !string.IsNullOrEmpty(unit) ? unit : null);
             }
             var columns = spec.Columns.Where(chosen.ContainsKey).ToList();
-            var sb = new StringBuilder();
-            if (Where(t) is { Length: > 0 } where) sb.Append("# read from ").Append(where).Append('\n');
-            sb.Append(string.Join(",", columns.Select(c => Quote(chosen[c].Unit is { } u ? $"{c.Name} [{u}]" : c.Name)))).Append('\n');
+            using var csv = new CsvOut('#', NeedsQuotes);
+            if (Where(t) is { Length: > 0 } where) csv.Comment(" read from " + where);
+            csv.Header([.. columns.Select(c => chosen[c].Unit is { } u ? $"{c.Name} [{u}]" : c.Name)]);
             foreach (var row in t.Rows)
             {
                 if (row.IsBlank) continue;
-                sb.Append(string.Join(",", columns.Select(c => Quote(row.Cell(chosen[c].Index).Trim())))).Append('\n');
+                foreach (var c in columns)
+                {
+                    string cell = row.Cell(chosen[c].Index).Trim();
+                    // A number stays as it is (a spreadsheet cannot run it, and reading it back must give the same number).
+                    if (c.Type == ColumnType.Number && NumberText.TryParse(cell, false, out _)) csv.Numeral(cell);
+                    else csv.Text(cell);
+                }
+                csv.End();
             }
-            files.Add(new ContractFile($"{spec.Name}.csv", sb.ToString(), dropped));
+            files.Add(new ContractFile($"{spec.Name}.csv", csv.ToString(), dropped));
         }
         return files;
     }
@@ -70,10 +78,9 @@ public static class ContractCsv
         return $"{t.File} {string.Join(", ", parts)}";
     }
 
-    /// <summary>RFC 4180 quoting when a cell needs it; a first cell starting with <c>#</c> is quoted too.</summary>
-    private static string Quote(string s)
-    {
-        bool needs = s.Length > 0 && (s.IndexOfAny([',', '"', '\n', '\r', ';']) >= 0 || s[0] == '#' || char.IsWhiteSpace(s[0]) || char.IsWhiteSpace(s[^1]));
-        return needs ? "\"" + s.Replace("\"", "\"\"", StringComparison.Ordinal) + "\"" : s;
-    }
+    /// <summary>
+    /// Cells quoted beyond what RFC 4180 asks: a <c>;</c> (a reader might take the file for semicolon-separated) and
+    /// white space at either end (a reader trims it).
+    /// </summary>
+    private static bool NeedsQuotes(string s) => s.Length > 0 && (s.Contains(';') || char.IsWhiteSpace(s[0]) || char.IsWhiteSpace(s[^1]));
 }

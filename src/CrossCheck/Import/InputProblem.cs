@@ -1,3 +1,4 @@
+using System.Diagnostics.CodeAnalysis;
 using CrossCheck.Model;
 
 namespace CrossCheck.Import;
@@ -22,6 +23,7 @@ public sealed record InputProblem(SourceRef Where, string Message, ProblemSeveri
 /// <summary>The submission read from its files, or the problems that stopped it being read.</summary>
 public sealed record ImportResult(Submission? Submission, IReadOnlyList<InputProblem> Problems)
 {
+    [MemberNotNullWhen(true, nameof(Submission))]
     public bool Succeeded => Submission is not null && !Problems.Any(p => p.IsError);
     public IEnumerable<InputProblem> Errors => Problems.Where(p => p.IsError);
     public IEnumerable<InputProblem> Warnings => Problems.Where(p => !p.IsError);

@@ -34,7 +34,7 @@ public sealed class MemoModel
         CheckedBy = s.Info.CheckedBy ?? "—";
         SubmissionDate = s.Info.Date ?? "—";
         Reviewer = o.Reviewer ?? "";
-        ReviewDate = (o.Date ?? DateOnly.FromDateTime(DateTime.Today)).ToString("yyyy-MM-dd", CultureInfo.InvariantCulture);
+        ReviewDate = Clock.Iso(o.Date ?? Clock.Today(TimeProvider.System));
         ToolVersion = ToolInfo.Version;
         Source = s.Source;
         Verdict = review.Verdict.Words();
@@ -166,7 +166,7 @@ public sealed class MemoModel
     /// <summary>The comparison with the previous round when the review was recorded in a register (else <see cref="MemoRounds.None"/>).</summary>
     public MemoRounds Rounds { get; init; } = MemoRounds.None;
 
-    /// <summary>Extra sections later stages add (diagrams, working tables), as pre-rendered blocks by format.</summary>
+    /// <summary>Appendices (the reference working table), as pre-rendered blocks by format.</summary>
     public IReadOnlyList<MemoAppendix> Appendices { get; init; } = [];
 
     /// <summary>
@@ -290,7 +290,7 @@ public sealed record MemoCause(string Code, string Confidence, string Explains, 
     public string Title { get; init; } = "";
 }
 
-/// <summary>A block a later stage adds to the memo (e.g. diagrams), already rendered for Markdown and HTML.</summary>
+/// <summary>An appendix of the memo (the reference working table), already rendered for Markdown and HTML.</summary>
 public sealed record MemoAppendix(string Title, string Markdown, string Html);
 
 public sealed class MemoCase

@@ -1,5 +1,5 @@
 using System.Globalization;
-using CrossCheck.Register;
+using CrossCheck.Review;
 
 namespace CrossCheck.Memo;
 

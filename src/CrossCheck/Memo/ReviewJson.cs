@@ -1,7 +1,6 @@
 using CrossCheck.Common;
 using CrossCheck.Import;
 using CrossCheck.Model;
-using CrossCheck.Register;
 using CrossCheck.Review;
 
 namespace CrossCheck.Memo;
@@ -51,7 +50,7 @@ public static class ReviewJson
                 .Str("signConvention", s.Info.SignConvention.Code()).Bool("signConventionStated", s.Info.SignConventionStated)
             .EndObj()
             .Str("reviewer", review.Options.Reviewer)
-            .Str("date", (review.Options.Date ?? DateOnly.FromDateTime(DateTime.Today)).ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture))
+            .Str("date", Clock.Iso(review.Options.Date ?? Clock.Today(TimeProvider.System)))
             .Obj("tolerance")
                 .Num("absolute", review.Options.AbsoluteTolerance).Num("relative", review.Options.RelativeTolerance).Num("minorRelative", review.Options.MinorRelativeTolerance)
             .EndObj()

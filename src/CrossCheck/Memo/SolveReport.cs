@@ -1,5 +1,3 @@
-using System.Globalization;
-using System.Text;
 using CrossCheck.Analysis;
 using CrossCheck.Common;
 using CrossCheck.Model;
@@ -47,13 +45,13 @@ public sealed class SolveReport
         ? "sagging positive (internal bending moment)"
         : "clockwise positive (moment on the member end)";
 
+    /// <summary>One row per member end; names from the submission are defused for spreadsheets (<see cref="CsvOut"/>).</summary>
     public string ToCsv()
     {
-        var sb = new StringBuilder();
-        sb.Append(CultureInfo.InvariantCulture, $"case,member,at,moment [{MomentUnit}]\n");
-        foreach (var r in EndMoments)
-            sb.Append(CultureInfo.InvariantCulture, $"{Csv(r.Case)},{Csv(r.Member)},{Csv(r.At)},{Fmt.Number(r.Moment, "0.######")}\n");
-        return sb.ToString();
+        using var csv = new CsvOut();
+        csv.Header("case", "member", "at", $"moment [{MomentUnit}]");
+        foreach (var r in EndMoments) csv.Text(r.Case).Text(r.Member).Text(r.At).Number(r.Moment).End();
+        return csv.ToString();
     }
 
     public string ToJson()
@@ -91,7 +89,4 @@ public sealed class SolveReport
     }
 
     private static double Round(double v, int digits = 6) { double r = Math.Round(v, digits, MidpointRounding.AwayFromZero); return r == 0 ? 0 : r; }
-
-    private static string Csv(string s) =>
-        s.IndexOfAny([',', '"', '\n', '\r']) >= 0 ? "\"" + s.Replace("\"", "\"\"") + "\"" : s;
 }

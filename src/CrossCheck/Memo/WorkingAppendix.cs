@@ -8,18 +8,17 @@ using CrossCheck.Review;
 namespace CrossCheck.Memo;
 
 /// <summary>
-/// The reference moment-distribution working table printed on request (<c>--show-working</c>): CrossCheck's own
-/// Hardy Cross distribution of every case, carried until the carry-overs fall below 0.1 moment units as is usual by
-/// hand, with the sway corrections, so an author can compare it row by row with their own.
+/// The appendix with the reference moment-distribution working table (<c>--show-working</c>): formats
+/// <see cref="ReviewResult.Working"/>, CrossCheck's own Hardy Cross distribution of every case with the sway corrections.
 /// </summary>
 public static class WorkingAppendix
 {
-    public static IEnumerable<MemoAppendix> For(ReviewResult review, MemoFormat format)
+    public static IEnumerable<MemoAppendix> For(ReviewResult review)
     {
         ArgumentNullException.ThrowIfNull(review);
-        if (!review.Options.ShowWorking) yield break;
+        if (review.Working is not { } working) yield break;
         var s = review.Submission;
-        if (s.Model.Axial != AxialBehaviour.Rigid)
+        if (!working.Available)
         {
             yield return new MemoAppendix("Appendix: reference moment distribution",
                 "Not available: moment distribution assumes axially rigid members and this submission asks for elastic axial behaviour.",
@@ -29,24 +28,20 @@ public static class WorkingAppendix
         var md = new StringBuilder();
         var html = new StringBuilder();
         var mu = s.Info.Units.Moment;
+        string stop = Fmt.Number(ReferenceWorking.StopBelow, "0.###");
         md.Append("Reference working by CrossCheck (Hardy Cross, simultaneous balancing, modified stiffness 3EI/L at pinned far ends, ")
-          .Append($"stopped when every carry-over is below 0.1 {mu.Symbol}, then a final balance). Moments in {mu.Symbol}, clockwise on the member end.\n");
-        html.Append($"<p class=\"muted\">Reference working by CrossCheck (Hardy Cross, simultaneous balancing, modified stiffness 3EI/L at pinned far ends, stopped when every carry-over is below 0.1 {Esc(mu.Symbol)}, then a final balance). Moments in {Esc(mu.Symbol)}, clockwise on the member end.</p>\n");
-        foreach (var c in s.Cases)
+          .Append($"stopped when every carry-over is below {stop} {mu.Symbol}, then a final balance). Moments in {mu.Symbol}, clockwise on the member end.\n");
+        html.Append($"<p class=\"muted\">Reference working by CrossCheck (Hardy Cross, simultaneous balancing, modified stiffness 3EI/L at pinned far ends, stopped when every carry-over is below {stop} {Esc(mu.Symbol)}, then a final balance). Moments in {Esc(mu.Symbol)}, clockwise on the member end.</p>\n");
+        foreach (var c in working.Cases)
         {
-            DistributionResult result;
-            try
+            if (c.Result is not { } result)
             {
-                result = MomentDistribution.Run(s.Model, c, new DistributionOptions(StopWhenCarryOversBelow: 0.1 * mu.ToSi));
-            }
-            catch (NotSupportedException ex)
-            {
-                md.Append($"\n### Load case {c.Id}\n\n{ex.Message}\n");
-                html.Append($"<h3>Load case {Esc(c.Id)}</h3><p>{Esc(ex.Message)}</p>\n");
+                md.Append($"\n### Load case {c.Case}\n\n{c.Problem}\n");
+                html.Append($"<h3>Load case {Esc(c.Case)}</h3><p>{Esc(c.Problem ?? "")}</p>\n");
                 continue;
             }
-            md.Append($"\n### Load case {c.Id}\n");
-            html.Append($"<h3>Load case {Esc(c.Id)}</h3>\n");
+            md.Append($"\n### Load case {c.Case}\n");
+            html.Append($"<h3>Load case {Esc(c.Case)}</h3>\n");
             Table(result.NoSway, mu, md, html, s.Model);
             foreach (var sw in result.Sway)
             {
@@ -60,9 +55,9 @@ public static class WorkingAppendix
                 html.Append($"<p>Sway correction: {Esc(sw.Label)}, used {Fmt.Number(sw.Factor, "0.####")} times (from the storey equilibrium equation).</p>\n");
                 Table(sw.Table, mu, md, html, s.Model);
             }
-            var final = result.NoSway.Columns.Select(col => result.Moment(col.Member, col.End)).ToList();
-            md.Append("\nFinal moments: ").Append(string.Join(", ", result.NoSway.Columns.Select((col, i) => $"{Cell(col, s.Model)} {Fmt.Number(mu.FromSi(final[i]))}"))).Append('\n');
-            html.Append("<p><strong>Final moments:</strong> ").Append(Esc(string.Join(", ", result.NoSway.Columns.Select((col, i) => $"{Cell(col, s.Model)} {Fmt.Number(mu.FromSi(final[i]))}")))).Append("</p>\n");
+            string final = string.Join(", ", result.NoSway.Columns.Select((col, i) => $"{Cell(col, s.Model)} {Fmt.Number(mu.FromSi(c.Final[i]))}"));
+            md.Append("\nFinal moments: ").Append(final).Append('\n');
+            html.Append("<p><strong>Final moments:</strong> ").Append(Esc(final)).Append("</p>\n");
         }
         yield return new MemoAppendix("Appendix: reference moment distribution", md.ToString(), html.ToString());
     }

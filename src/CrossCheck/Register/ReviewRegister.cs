@@ -33,13 +33,15 @@ public sealed class ReviewRegister : IDisposable
         "ends_unmatched, major_flags, minor_flags, top_cause, finding_count";
 
     private readonly SqliteConnection _connection;
+    private readonly TimeProvider _time;
     private readonly Lock _gate = new();
 
-    private ReviewRegister(string path, SqliteConnection connection, int schemaVersion)
+    private ReviewRegister(string path, SqliteConnection connection, int schemaVersion, TimeProvider time)
     {
         Path = path;
         _connection = connection;
         SchemaVersion = schemaVersion;
+        _time = time;
     }
 
     /// <summary>The register file (full path).</summary>
@@ -55,10 +57,12 @@ public sealed class ReviewRegister : IDisposable
     internal Action<long>? AfterReviewRow { get; set; }
 
     /// <summary>Opens (creating if needed) the register at <paramref name="path"/> and brings its schema up to date.</summary>
+    /// <param name="path">The register file.</param>
+    /// <param name="time">The clock for the time each review is recorded (and the review date when a review has none).</param>
     /// <exception cref="RegisterException">The file is not a CrossCheck register, was written by a newer version, or cannot be opened.</exception>
-    public static ReviewRegister Open(string path) => Open(path, RegisterSchema.Migrations, TimeSpan.FromSeconds(30));
+    public static ReviewRegister Open(string path, TimeProvider? time = null) => Open(path, RegisterSchema.Migrations, TimeSpan.FromSeconds(30), time);
 
-    internal static ReviewRegister Open(string path, IReadOnlyList<Migration> migrations, TimeSpan busyTimeout)
+    internal static ReviewRegister Open(string path, IReadOnlyList<Migration> migrations, TimeSpan busyTimeout, TimeProvider? time = null)
     {
         ArgumentNullException.ThrowIfNull(path);
         string full = System.IO.Path.GetFullPath(path);
@@ -81,7 +85,7 @@ public sealed class ReviewRegister : IDisposable
             Execute(connection, null, "PRAGMA synchronous = NORMAL");
             Execute(connection, null, "PRAGMA foreign_keys = ON");
             int version = Migrate(connection, path, migrations);
-            return new ReviewRegister(full, connection, version);
+            return new ReviewRegister(full, connection, version, time ?? TimeProvider.System);
         }
         catch (SqliteException ex)
         {
@@ -218,35 +222,38 @@ public sealed class ReviewRegister : IDisposable
         return problems;
     });
 
-    /// <summary>The <c>reviews</c> table as CSV, one row per review.</summary>
+    /// <summary>The <c>reviews</c> table as CSV, one row per review (text from submissions defused for spreadsheets, <see cref="CsvOut"/>).</summary>
     public string ExportReviewsCsv()
     {
-        var csv = new CsvText().Row("id", "reference", "round", "revision", "title", "submission", "source", "review_date", "recorded_at", "reviewer",
+        using var csv = new CsvOut();
+        csv.Header("id", "reference", "round", "revision", "title", "submission", "source", "review_date", "recorded_at", "reviewer",
             "tool_version", "abs_tolerance", "rel_tolerance", "minor_tolerance", "moment_unit", "input_hash", "verdict", "ends_agree", "ends_minor",
             "ends_discrepant", "ends_missing", "ends_unmatched", "major_flags", "minor_flags", "top_cause", "findings");
         foreach (var r in Reviews())
-            csv.Row(CsvText.Number(r.Id), CsvText.Text(r.Reference), CsvText.Number(r.Round), CsvText.Text(r.Revision), CsvText.Text(r.Title),
-                CsvText.Text(r.Submission), CsvText.Text(r.Source), r.ReviewDate, r.RecordedAt, CsvText.Text(r.Reviewer), r.ToolVersion,
-                CsvText.Number(r.AbsoluteTolerance), CsvText.Number(r.RelativeTolerance), CsvText.Number(r.MinorRelativeTolerance), r.MomentUnit,
-                r.InputHash, r.Verdict, CsvText.Number(r.EndsAgree), CsvText.Number(r.EndsMinor), CsvText.Number(r.EndsDiscrepant),
-                CsvText.Number(r.EndsMissing), CsvText.Number(r.EndsUnmatched), CsvText.Number(r.MajorFlags), CsvText.Number(r.MinorFlags),
-                r.TopCause, CsvText.Number(r.FindingCount));
+            csv.Number(r.Id).Text(r.Reference).Number(r.Round).Text(r.Revision).Text(r.Title).Text(r.Submission).Text(r.Source).Text(r.ReviewDate)
+                .Text(r.RecordedAt).Text(r.Reviewer).Text(r.ToolVersion).Number(r.AbsoluteTolerance).Number(r.RelativeTolerance)
+                .Number(r.MinorRelativeTolerance).Text(r.MomentUnit).Text(r.InputHash).Text(r.Verdict).Number(r.EndsAgree).Number(r.EndsMinor)
+                .Number(r.EndsDiscrepant).Number(r.EndsMissing).Number(r.EndsUnmatched).Number(r.MajorFlags).Number(r.MinorFlags).Text(r.TopCause)
+                .Number(r.FindingCount).End();
         return csv.ToString();
     }
 
     /// <summary>Every finding as CSV, one row per finding, with the review it belongs to.</summary>
     public string ExportFindingsCsv() => Read(tx =>
     {
-        var csv = new CsvText().Row("review_id", "reference", "round", "review_date", "comment_id", "kind", "severity", "case", "where", "comment", "source");
+        using var csv = new CsvOut();
+        csv.Header("review_id", "reference", "round", "review_date", "comment_id", "kind", "severity", "case", "where", "comment", "source");
         using var cmd = Command(tx, """
             SELECT r.id, r.reference, r.round, r.review_date, f.comment_id, f.kind, f.severity, f.load_case, f.place, f.message, f.source
             FROM findings f JOIN reviews r ON r.id = f.review_id ORDER BY r.id, f.seq
             """);
         using var r = cmd.ExecuteReader();
         while (r.Read())
-            csv.Row(CsvText.Number(r.GetInt64(0)), CsvText.Text(r.GetString(1)), CsvText.Number(r.GetInt32(2)), r.GetString(3), r.GetString(4),
-                r.GetString(5), r.GetString(6), CsvText.Text(r.GetString(7)), CsvText.Text(r.GetString(8)), CsvText.Text(r.GetString(9)),
-                CsvText.Text(r.GetString(10)));
+        {
+            csv.Number(r.GetInt64(0)).Text(r.GetString(1)).Number(r.GetInt32(2));
+            for (int i = 3; i <= 10; i++) csv.Text(r.GetString(i));
+            csv.End();
+        }
         return csv.ToString();
     });
 
@@ -289,8 +296,7 @@ public sealed class ReviewRegister : IDisposable
             """);
         Bind(cmd, ("$reference", reference), ("$round", round), ("$revision", s.Info.Revision), ("$title", s.Info.Title),
             ("$submission", submissionName), ("$source", s.Source),
-            ("$date", (o.Date ?? DateOnly.FromDateTime(DateTime.Today)).ToString("yyyy-MM-dd", CultureInfo.InvariantCulture)),
-            ("$recorded", DateTime.UtcNow.ToString("yyyy-MM-ddTHH:mm:ss.fffZ", CultureInfo.InvariantCulture)),
+            ("$date", Clock.Iso(o.Date ?? Clock.Today(_time))), ("$recorded", Clock.UtcStamp(_time)),
             ("$reviewer", o.Reviewer), ("$tool", ToolInfo.Version), ("$abs", o.AbsoluteTolerance), ("$rel", o.RelativeTolerance),
             ("$minor", o.MinorRelativeTolerance), ("$unit", s.Info.Units.Moment.Symbol), ("$hash", hash), ("$verdict", review.Verdict.Json()),
             ("$agree", review.CountEnds(EndStatus.Agree)), ("$eminor", review.CountEnds(EndStatus.Minor)),

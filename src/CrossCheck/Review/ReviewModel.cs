@@ -247,6 +247,9 @@ public sealed record ReviewResult(
     /// </summary>
     public AnalysisResult? Analysis { get; init; }
 
+    /// <summary>CrossCheck's own moment distribution for the memo's appendix, when it was asked for (<see cref="ReviewOptions.ShowWorking"/>).</summary>
+    public ReferenceWorking? Working { get; init; }
+
     public IEnumerable<EndMomentFinding> AllEndMoments => Cases.SelectMany(c => c.EndMoments);
     public IEnumerable<Flag> AllFlags => Cases.SelectMany(c => c.Flags);
 }

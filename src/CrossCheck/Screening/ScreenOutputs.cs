@@ -1,7 +1,6 @@
 using System.Globalization;
 using CrossCheck.Common;
 using CrossCheck.Memo;
-using CrossCheck.Register;
 using CrossCheck.Review;
 
 namespace CrossCheck.Screening;
@@ -40,18 +39,18 @@ public static class ScreenOutputs
     public static string SummaryCsv(ScreenReport report)
     {
         ArgumentNullException.ThrowIfNull(report);
-        var csv = new CsvText().Row("submission", "outcome", "title", "reference", "revision", "round", "discrepant_ends", "minor_ends", "missing_ends",
+        using var csv = new CsvOut();
+        csv.Header("submission", "outcome", "title", "reference", "revision", "round", "discrepant_ends", "minor_ends", "missing_ends",
             "unmatched_ends", "major_flags", "minor_flags", "comments", "top_finding", "group", "closed", "persisting", "new", "memo", "error");
         foreach (var r in report.Rows)
         {
             var v = r.Review;
-            string N(int? x) => x is int i ? CsvText.Number(i) : "";
-            csv.Row(CsvText.Text(r.Name), OutcomeWord(r.Outcome), CsvText.Text(v?.Submission.Info.Title), CsvText.Text(r.Reference),
-                CsvText.Text(v?.Submission.Info.Revision), N(r.Rounds?.Review.Round),
-                N(v?.CountEnds(EndStatus.Discrepant)), N(v?.CountEnds(EndStatus.Minor)), N(v?.CountEnds(EndStatus.Missing)),
-                N(v?.CountEnds(EndStatus.Unmatched)), N(v?.CountFlags(Severity.Major)), N(v?.CountFlags(Severity.Minor)), N(v?.Comments.Count),
-                v is null ? "" : r.TopFinding, r.Group.Label, N(r.Rounds?.Closed.Count), N(r.Rounds?.Persisting.Count), N(r.Rounds?.New.Count),
-                r.MemoFile, CsvText.Text(r.ErrorText));
+            csv.Text(r.Name).Text(OutcomeWord(r.Outcome)).Text(v?.Submission.Info.Title).Text(r.Reference).Text(v?.Submission.Info.Revision)
+                .Number(r.Rounds?.Review.Round)
+                .Number(v?.CountEnds(EndStatus.Discrepant)).Number(v?.CountEnds(EndStatus.Minor)).Number(v?.CountEnds(EndStatus.Missing))
+                .Number(v?.CountEnds(EndStatus.Unmatched)).Number(v?.CountFlags(Severity.Major)).Number(v?.CountFlags(Severity.Minor)).Number(v?.Comments.Count)
+                .Text(v is null ? "" : r.TopFinding).Text(r.Group.Label).Number(r.Rounds?.Closed.Count).Number(r.Rounds?.Persisting.Count)
+                .Number(r.Rounds?.New.Count).Text(r.MemoFile).Text(r.ErrorText).End();
         }
         return csv.ToString();
     }
@@ -71,7 +70,7 @@ public sealed class ScreenIndexModel
         var o = report.Options.Review;
         Folder = Path.GetFileName(Path.TrimEndingDirectorySeparator(report.Folder));
         FolderPath = report.Folder;
-        ReviewDate = (o.Date ?? DateOnly.FromDateTime(DateTime.Today)).ToString("yyyy-MM-dd", CultureInfo.InvariantCulture);
+        ReviewDate = Clock.Iso(o.Date ?? Clock.Today(TimeProvider.System));
         Reviewer = o.Reviewer ?? "(not stated — use --reviewer)";
         ToolVersion = ToolInfo.Version;
         AbsoluteTolerance = Fmt.Number(o.AbsoluteTolerance, "0.0##");

@@ -1,6 +1,6 @@
 using CrossCheck.Import;
+using CrossCheck.Jobs;
 using CrossCheck.Memo;
-using CrossCheck.Register;
 using CrossCheck.Review;
 
 namespace CrossCheck.Screening;
@@ -122,17 +122,20 @@ public sealed record ScreenStages(TimeSpan Review, TimeSpan Register, TimeSpan M
 /// <param name="Format">Memo format.</param>
 /// <param name="Parallelism">Submissions reviewed at once; 0 for one per processor.</param>
 /// <param name="RegisterPath">The register to record every review in, or null for none.</param>
-/// <param name="MemoTemplate">A firm's own memo template (text and name for messages), or null for the shipped one.</param>
+/// <param name="MemoTemplate">A firm's own memo template (<see cref="MemoTemplateFile.TryLoad"/>), or null for the shipped one.</param>
 public sealed record ScreenOptions(
     ReviewOptions Review,
     string OutputFolder,
     MemoFormat Format = MemoFormat.Html,
     int Parallelism = 0,
     string? RegisterPath = null,
-    (string Text, string Name)? MemoTemplate = null)
+    MemoTemplateFile? MemoTemplate = null)
 {
     /// <summary>Bounds on reading each submission (defaults when null).</summary>
     public InputLimits? Limits { get; init; }
+
+    /// <summary>The clock for the review date (when <see cref="ReviewOptions.Date"/> gives none), the register and the timings.</summary>
+    public TimeProvider Time { get; init; } = TimeProvider.System;
 }
 
 /// <summary>Groups submissions by their most likely cause when the diagnosis found one, otherwise by their main finding's kind.</summary>

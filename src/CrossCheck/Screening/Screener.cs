@@ -1,7 +1,8 @@
-using System.Diagnostics;
 using System.Text;
+using System.Threading.Channels;
 using CrossCheck.Common;
 using CrossCheck.Import;
+using CrossCheck.Jobs;
 using CrossCheck.Memo;
 using CrossCheck.Model;
 using CrossCheck.Register;
@@ -9,7 +10,7 @@ using CrossCheck.Review;
 
 namespace CrossCheck.Screening;
 
-/// <summary>Hears how a screen progresses. Calls are serialised by the screener (never two at once).</summary>
+/// <summary>Hears how a screen progresses. Calls come from one task at a time (never two at once).</summary>
 public interface IScreenProgress
 {
     /// <summary>The folder holds <paramref name="submissions"/> submissions.</summary>
@@ -23,14 +24,42 @@ public interface IScreenProgress
 }
 
 /// <summary>
-/// Screens a folder of submissions: reviews them in parallel, records each review in the register (in name order,
-/// one transaction each), writes a memo per submission and then <c>summary.csv</c> and <c>index.html</c>. A
-/// submission that cannot be read becomes a row with its error; nothing stops the batch.
+/// Screens a folder of submissions with the review job's stages (<see cref="ReviewJob"/>): reviews them in parallel,
+/// records each review in the register (in name order, one transaction each), writes a memo per submission as soon as
+/// its review is recorded, and then <c>summary.csv</c> and <c>index.html</c>. A submission that cannot be read becomes a
+/// row with its error; nothing stops the batch.
 /// </summary>
+/// <remarks>
+/// The stages are joined by channels: the indices to review feed <c>--jobs</c> reviewers, whose results come back to
+/// the calling task; the recorder takes the reviews in name order on a task of its own and passes each index on once
+/// it is recorded; twice as many memo writers as reviewers take them from there (every file is flushed to disk before
+/// it replaces the old one, and a core would idle while its writer waits for the disk), and their rows come back to
+/// the calling task. Progress is reported only from the calling task, so its calls never overlap.
+/// </remarks>
 public static class Screener
 {
     public const string SummaryFile = "summary.csv";
     public const string IndexFile = "index.html";
+
+    /// <summary>Where the outputs go when no folder is given: <c>&lt;folder name&gt;-screen</c> in the current folder.</summary>
+    public static string DefaultOutputFolder(string folder)
+    {
+        string full = Path.TrimEndingDirectorySeparator(Path.GetFullPath(folder));
+        string name = Path.GetFileName(full) is { Length: > 0 } n ? n : "submissions";
+        return $"{SubmissionNames.SafeStem(name)}-screen";
+    }
+
+    /// <summary>The register when none is given: <see cref="ReviewRegister.DefaultFileName"/> beside the folder screened.</summary>
+    public static string DefaultRegisterPath(string folder)
+    {
+        string full = Path.TrimEndingDirectorySeparator(Path.GetFullPath(folder));
+        return Path.Combine(Path.GetDirectoryName(full) ?? full, ReviewRegister.DefaultFileName);
+    }
+
+    /// <summary>True when <paramref name="outputFolder"/> is the folder screened (its summary would be taken for a submission next time).</summary>
+    public static bool IsScreenedFolder(string folder, string outputFolder) =>
+        string.Equals(Path.TrimEndingDirectorySeparator(Path.GetFullPath(outputFolder)), Path.TrimEndingDirectorySeparator(Path.GetFullPath(folder)),
+            StringComparison.Ordinal);
 
     /// <exception cref="DirectoryNotFoundException">The folder does not exist.</exception>
     /// <exception cref="RegisterException">The register cannot be opened.</exception>
@@ -40,40 +69,55 @@ public static class Screener
     {
         ArgumentNullException.ThrowIfNull(folder);
         ArgumentNullException.ThrowIfNull(options);
-        var clock = Stopwatch.StartNew();
+        // The stages run on the thread pool; this thread only waits (no synchronisation context is involved).
+        return Task.Run(() => RunAsync(folder, options, progress, cancel), cancel).GetAwaiter().GetResult();
+    }
+
+    private static async Task<ScreenReport> RunAsync(string folder, ScreenOptions options, IScreenProgress? progress, CancellationToken cancel)
+    {
+        var time = options.Time;
+        long start = time.GetTimestamp();
         string outDir = Path.TrimEndingDirectorySeparator(Path.GetFullPath(options.OutputFolder));
-        if (string.Equals(outDir, Path.TrimEndingDirectorySeparator(Path.GetFullPath(folder)), StringComparison.Ordinal))
+        if (IsScreenedFolder(folder, outDir))
             throw new ArgumentException("the output folder must not be the folder screened (its summary.csv would be taken for a submission next time).", nameof(options));
         var exclude = new List<string> { outDir };
         if (options.RegisterPath is not null) exclude.Add(options.RegisterPath);
         var found = SubmissionFinder.Find(folder, exclude);
         Directory.CreateDirectory(outDir);
-        using var register = options.RegisterPath is null ? null : ReviewRegister.Open(options.RegisterPath);
+        var job = new ReviewJob(time);
+        // One date for the whole batch, even one that runs past midnight.
+        options = options with { Review = job.Dated(options.Review) };
+        using var register = options.RegisterPath is null ? null : ReviewRegister.Open(options.RegisterPath, time);
         int parallelism = options.Parallelism > 0 ? options.Parallelism : Environment.ProcessorCount;
         var items = found.Items;
-        var gate = new Lock();
-        int reviewed = 0, written = 0;
-        lock (gate) progress?.Begin(items.Count);
+        progress?.Begin(items.Count);
 
-        var stage = Stopwatch.StartNew();
-        var timings = new List<TimeSpan>();
-
-        // 1. Review every submission, in parallel.
+        // 1. Review every submission, in parallel; the results come back here (in the order they finish).
+        long stage = time.GetTimestamp();
         var reviews = new Reviewed[items.Count];
-        var parallel = new ParallelOptions { MaxDegreeOfParallelism = parallelism, CancellationToken = cancel };
-        Parallel.For(0, items.Count, parallel, i =>
+        var toReview = Channel.CreateBounded<int>(new BoundedChannelOptions(Math.Max(1, items.Count)) { SingleWriter = true });
+        for (int i = 0; i < items.Count; i++) toReview.Writer.TryWrite(i);
+        toReview.Writer.Complete();
+        var reviewed = Channel.CreateUnbounded<(int Index, Reviewed Result)>(new UnboundedChannelOptions { SingleReader = true });
+        var reviewers = Workers(parallelism, reviewed.Writer, async () =>
         {
-            reviews[i] = ReviewOne(items[i], options.Review, options.Limits);
-            lock (gate) progress?.Reviewed(items[i], reviews[i].Outcome, ++reviewed);
+            await foreach (int i in toReview.Reader.ReadAllAsync(cancel).ConfigureAwait(false))
+                await reviewed.Writer.WriteAsync((i, ReviewOne(job, items[i], options.Review, options.Limits)), cancel).ConfigureAwait(false);
         });
-
-        timings.Add(stage.Elapsed);
-        stage.Restart();
+        int done = 0;
+        await foreach (var (i, result) in reviewed.Reader.ReadAllAsync(cancel).ConfigureAwait(false))
+        {
+            reviews[i] = result;
+            progress?.Reviewed(items[i], result.Outcome, ++done);
+        }
+        await reviewers.ConfigureAwait(false);
+        var reviewTime = time.GetElapsedTime(stage);
+        stage = time.GetTimestamp();
 
         // 2. The key each one's rounds are tracked by; a reference several submissions share is qualified by their names.
         var notes = new List<string>(found.Skipped);
         var keys = new string?[items.Count];
-        for (int i = 0; i < items.Count; i++) keys[i] = reviews[i].Review?.Review?.ReferenceOr(items[i].BaseName);
+        for (int i = 0; i < items.Count; i++) keys[i] = reviews[i].Review?.Review is { } rv ? rv.ReferenceOr(items[i].BaseName) : null;
         foreach (var shared in Enumerable.Range(0, items.Count).Where(i => keys[i] is not null).GroupBy(i => keys[i]!, StringComparer.Ordinal)
                      .Where(g => g.Count() > 1).OrderBy(g => g.Key, StringComparer.Ordinal))
         {
@@ -81,81 +125,78 @@ public static class Screener
             foreach (int i in shared) keys[i] = $"{shared.Key} / {items[i].Name}";
         }
 
-        // 3 and 4. Record in the register, one transaction per review, in name order (items are sorted) so ids follow the
-        // names, on a thread of its own; meanwhile write the memos (or the lists of input errors) in parallel, taking the
-        // items in order, each memo as soon as its review is recorded (the memo shows the comparison with the previous
-        // round). Every file is flushed to disk before it replaces the old one, and a core would idle while its worker
-        // waits for the disk: twice as many writers as cores keep both busy.
+        // 3. Record in the register, one transaction per review, in name order (items are sorted) so that ids follow the
+        // names, on a task of its own; each index goes on to the memo writers once its review is recorded (the memo shows
+        // the comparison with the previous round).
         var rounds = new RoundComparison?[items.Count];
         var problems = new string?[items.Count];
-        var recordGate = new object();
-        int recordedUpTo = register is null ? items.Count : 0;
-        bool recorderStopped = register is null;
-        Exception? recorderFault = null;
+        var recorded = Channel.CreateUnbounded<int>(new UnboundedChannelOptions { SingleWriter = true });
         var registerTime = TimeSpan.Zero;
-        var recorder = register is null ? null : new Thread(() =>
+        var recorder = Workers(1, recorded.Writer, () =>
         {
-            try
+            for (int i = 0; i < items.Count; i++)
             {
-                for (int i = 0; i < items.Count; i++)
+                cancel.ThrowIfCancellationRequested();
+                if (register is not null && reviews[i].Review?.Review is { } review)
                 {
-                    cancel.ThrowIfCancellationRequested();
-                    if (reviews[i].Review?.Review is { } review)
+                    try
                     {
-                        try
-                        {
-                            rounds[i] = register.Record(review, keys[i]!, items[i].Name, reviews[i].Hash);
-                        }
-                        catch (RegisterException ex)
-                        {
-                            problems[i] = $"not recorded in the register: {ex.Message}";
-                        }
+                        rounds[i] = register.Record(review, keys[i]!, items[i].Name, reviews[i].Hash);
                     }
-                    lock (recordGate) { recordedUpTo = i + 1; Monitor.PulseAll(recordGate); }
+                    catch (RegisterException ex)
+                    {
+                        problems[i] = $"not recorded in the register: {ex.Message}";
+                    }
                 }
+                recorded.Writer.TryWrite(i);
             }
-            catch (Exception ex)
-            {
-                recorderFault = ex;
-            }
-            finally
-            {
-                lock (recordGate) { recorderStopped = true; registerTime = stage.Elapsed; Monitor.PulseAll(recordGate); }
-            }
-        })
-        { IsBackground = true, Name = "register" };
-        recorder?.Start();
+            registerTime = time.GetElapsedTime(stage);
+            return Task.CompletedTask;
+        });
 
+        // 4. Write the memos (or the lists of input errors) as their reviews are recorded; the rows come back here.
         var rows = new ScreenRow[items.Count];
-        var writers = new ParallelOptions { MaxDegreeOfParallelism = 2 * parallelism, CancellationToken = cancel };
-        try
+        var written = Channel.CreateUnbounded<int>(new UnboundedChannelOptions { SingleReader = true });
+        var writers = Workers(2 * parallelism, written.Writer, async () =>
         {
-            Parallel.ForEach(System.Collections.Concurrent.Partitioner.Create(Enumerable.Range(0, items.Count),
-                System.Collections.Concurrent.EnumerablePartitionerOptions.NoBuffering), writers, i =>
+            await foreach (int i in recorded.Reader.ReadAllAsync(cancel).ConfigureAwait(false))
             {
-                if (reviews[i].Review?.Review is not null)
-                    lock (recordGate)
-                        while (recordedUpTo <= i && !recorderStopped) Monitor.Wait(recordGate);
                 rows[i] = WriteOne(items[i], reviews[i], keys[i], rounds[i], problems[i], outDir, options);
-                lock (gate) progress?.Written(rows[i], ++written);
-            });
-        }
-        finally
-        {
-            recorder?.Join();
-        }
-        if (recorderFault is not null)
-            System.Runtime.ExceptionServices.ExceptionDispatchInfo.Capture(recorderFault).Throw();
-        timings.Add(registerTime);
+                await written.Writer.WriteAsync(i, cancel).ConfigureAwait(false);
+            }
+        });
+        done = 0;
+        await foreach (int i in written.Reader.ReadAllAsync(cancel).ConfigureAwait(false)) progress?.Written(rows[i], ++done);
+        await recorder.ConfigureAwait(false);
+        await writers.ConfigureAwait(false);
+        var memoTime = time.GetElapsedTime(stage);
+        stage = time.GetTimestamp();
 
-        timings.Add(stage.Elapsed);
-        stage.Restart();
         var ordered = rows.OrderByDescending(r => r.Outcome).ThenBy(r => r.Name, StringComparer.Ordinal).ToList();
         var report = new ScreenReport(Path.GetFullPath(folder), outDir, register?.Path, options, ordered, ScreenGrouping.Groups(ordered), notes,
-            clock.Elapsed, parallelism);
+            time.GetElapsedTime(start), parallelism);
         AtomicFile.WriteText(SubmissionNames.ChildPath(outDir, SummaryFile), ScreenOutputs.SummaryCsv(report));
         AtomicFile.WriteText(SubmissionNames.ChildPath(outDir, IndexFile), ScreenOutputs.IndexHtml(report));
-        return report with { Elapsed = clock.Elapsed, Stages = new ScreenStages(timings[0], timings[1], timings[2], stage.Elapsed) };
+        return report with { Elapsed = time.GetElapsedTime(start), Stages = new ScreenStages(reviewTime, registerTime, memoTime, time.GetElapsedTime(stage)) };
+    }
+
+    /// <summary>
+    /// Runs <paramref name="count"/> copies of <paramref name="work"/> on the thread pool and completes
+    /// <paramref name="output"/> when the last has finished (with the first fault, so that its reader sees it too).
+    /// </summary>
+    private static async Task Workers<T>(int count, ChannelWriter<T> output, Func<Task> work)
+    {
+        var tasks = Enumerable.Range(0, count).Select(_ => Task.Run(work)).ToArray();
+        try
+        {
+            await Task.WhenAll(tasks).ConfigureAwait(false);
+            output.TryComplete();
+        }
+        catch (Exception ex)
+        {
+            output.TryComplete(ex);
+            throw;
+        }
     }
 
     private sealed record Reviewed(ReviewOutcome? Review, string? Hash, string? Fault)
@@ -165,11 +206,11 @@ public static class Screener
             : r.Verdict switch { Verdict.Concur => ScreenOutcome.Concur, Verdict.ConcurWithComments => ScreenOutcome.Comments, _ => ScreenOutcome.Revise };
     }
 
-    private static Reviewed ReviewOne(ScreenItem item, ReviewOptions options, InputLimits? limits)
+    private static Reviewed ReviewOne(ReviewJob job, ScreenItem item, ReviewOptions options, InputLimits? limits)
     {
         try
         {
-            var outcome = ReviewPipeline.Run(item.Path, options, limits ?? InputLimits.Default);
+            var outcome = job.Review(item.Path, options, limits);
             return new Reviewed(outcome, outcome.Succeeded ? InputHash.Compute(item.Path) : null, null);
         }
         catch (Exception ex) when (ex is not OutOfMemoryException)
@@ -207,13 +248,12 @@ public static class Screener
             }
             return new ScreenRow(item, outcome, null, r.Review.Errors, null, null, written, new ScreenGroupKey(ScreenGroupKind.InputError, "input-error"), problem);
         }
-        string ext = options.Format == MemoFormat.Html ? "html" : "md";
-        string memoFile = $"{item.Stem}-review.{ext}";
+        var format = options.Format == MemoFormat.Html ? ReviewFormat.Html : ReviewFormat.Markdown;
+        string memoFile = $"{item.Stem}-review.{ReviewJob.Extension(format)}";
         string? memo = null;
         try
         {
-            var model = MemoExtensions.Build(review, options.Format, rounds);
-            string text = options.MemoTemplate is { } t ? MemoRenderer.Render(model, t.Text, t.Name) : MemoRenderer.Render(model, options.Format);
+            string text = ReviewJob.Render(review, format, options.MemoTemplate, rounds);
             AtomicFile.WriteText(SubmissionNames.ChildPath(outDir, memoFile), text);
             memo = memoFile;
         }

@@ -1,4 +1,5 @@
 using System.Diagnostics;
+using CrossCheck.Jobs;
 using CrossCheck.Register;
 using CrossCheck.Review;
 using CrossCheck.Screening;
@@ -35,7 +36,7 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
     {
         using var t = new TempSubmission();
         string db = Path.Combine(t.Folder, "reg.db");
-        var review = ReviewPipeline.Run(WrongSubmission(t), Options).Review!;
+        var review = new ReviewJob().Review(WrongSubmission(t), Options).Review!;
         using (ReviewRegister.Open(db)) { }
         var tasks = Enumerable.Range(0, 2).Select(w => Task.Run(() =>
         {
@@ -90,7 +91,7 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
         using var t = new TempSubmission();
         string db = Path.Combine(t.Folder, "reg.db");
         string calc = WrongSubmission(t);
-        using (var r = ReviewRegister.Open(db)) r.Record(ReviewPipeline.Run(calc, Options).Review!, "PAUSED", "calc.csv", "sha256:before");
+        using (var r = ReviewRegister.Open(db)) r.Record(new ReviewJob().Review(calc, Options).Review!, "PAUSED", "calc.csv", "sha256:before");
 
         using var probe = ChildProcess.Tools("register-pause", db, calc);
         try
@@ -114,7 +115,7 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
         Count(db, "SELECT count(*) FROM reviews").ShouldBe(1);
         using var after = ReviewRegister.Open(db);
         after.Check().ShouldBeEmpty();
-        var next = after.Record(ReviewPipeline.Run(calc, Options).Review!, "PAUSED", "calc.csv", "sha256:after");
+        var next = after.Record(new ReviewJob().Review(calc, Options).Review!, "PAUSED", "calc.csv", "sha256:after");
         next.Review.Round.ShouldBe(2, "the killed review took no round");
         after.Reviews().Count.ShouldBe(2);
     }

@@ -1,6 +1,7 @@
 using System.Text.Json;
 using CrossCheck.Cli;
 using CrossCheck.Import;
+using CrossCheck.Jobs;
 using CrossCheck.Register;
 using CrossCheck.Review;
 using CrossCheck.Tests.Support;
@@ -52,7 +53,7 @@ public class ResubmissionTests
     private static readonly string Round3 = Calc("C", [("1", "AB", "A")], []);
 
     private static ReviewResult ReviewOf(string path) =>
-        ReviewPipeline.Run(path, new ReviewOptions(Reviewer: "E. Rounds", Date: new DateOnly(2026, 12, 1))).Review!;
+        new ReviewJob().Review(path, new ReviewOptions(Reviewer: "E. Rounds", Date: new DateOnly(2026, 12, 1))).Review!;
 
     [Fact]
     public void Rounds_ClosedPersistingAndNewComments_AreTheOnesFixedKeptAndAdded()

@@ -1,4 +1,5 @@
 using CrossCheck.Cli;
+using CrossCheck.Jobs;
 using CrossCheck.Review;
 using CrossCheck.Tests.Support;
 
@@ -49,7 +50,7 @@ public class BadInputCatalogueTests
         using var t = new TempSubmission();
         string path = entry.Path(t.Folder);
         string where = entry.IsPdf ? entry.ResolvedWhere(path) : entry.Where;
-        var outcome = ReviewPipeline.Run(path, ReviewOptions.Default);
+        var outcome = new ReviewJob().Review(path, ReviewOptions.Default);
         string all = string.Join("\n", outcome.Errors.Concat(outcome.Warnings).Select(p => $"{p.Where.Compact}: {p.Message}"));
         Func<string, bool> Says = text => entry.Messages.Any(m => text.Contains(m, StringComparison.Ordinal));
         switch (entry.Outcome)

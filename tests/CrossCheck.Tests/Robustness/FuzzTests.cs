@@ -3,6 +3,7 @@ using System.Globalization;
 using System.Text.RegularExpressions;
 using CrossCheck.Import;
 using CrossCheck.Import.Pdf;
+using CrossCheck.Jobs;
 using CrossCheck.Memo;
 using CrossCheck.Review;
 using CrossCheck.Tests.Import.Pdf;
@@ -188,7 +189,7 @@ internal static partial class Fuzz
 
     private static bool Run(string path)
     {
-        var outcome = ReviewPipeline.Run(path, ReviewOptions.Default, Limits);
+        var outcome = new ReviewJob().Review(path, ReviewOptions.Default, Limits);
         foreach (var p in outcome.Errors.Concat(outcome.Warnings)) Messages.AddOrUpdate(Shape(p.Message), 1, (_, k) => k + 1);
         if (outcome.Review is not { } review)
         {

@@ -1,4 +1,5 @@
 using System.Globalization;
+using CrossCheck.Jobs;
 using CrossCheck.Review;
 using CrossCheck.Tests.Support;
 using static CrossCheck.Tests.Support.HandMethods;
@@ -123,7 +124,7 @@ public class WorkingTableDemoTests
     [InlineData("school-hall.pdf", "C.O. 2", "school-hall.pdf p.2 line 11")]
     public void StudentTable_FirstWrongCellAndCause(string demo, string row, string citation)
     {
-        var outcome = ReviewPipeline.Run(CliRunner.Demo(demo), new ReviewOptions(Date: new DateOnly(2026, 12, 1)));
+        var outcome = new ReviewJob().Review(CliRunner.Demo(demo), new ReviewOptions(Date: new DateOnly(2026, 12, 1)));
         var review = outcome.Review.ShouldNotBeNull(string.Join("\n", outcome.Errors));
         var c = review.Cases.ShouldHaveSingleItem();
         var first = c.Audit.ShouldNotBeNull().First.ShouldNotBeNull();

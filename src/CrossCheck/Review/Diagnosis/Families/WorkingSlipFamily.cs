@@ -14,7 +14,7 @@ internal sealed class WorkingSlipFamily : IHypothesisFamily
         var knock = audit.KnockOns.ToDictionary(k => new EndKey(k.Member, k.End), k => k.KnockOn);
         var predicted = x.Keys.Select((k, i) => x.Recomputed[i] + knock.GetValueOrDefault(k)).ToArray();
         yield return new Hypothesis(CauseCode.DistributionArithmetic, 1, predicted,
-            $"An arithmetic slip in the moment-distribution table: row '{first.Row}', column {first.Column} ({first.Source.Citation}) does not follow from the cells before it, and the error is carried into the final moments.")
+            $"In the moment-distribution table, row '{first.Row}', column {first.Column} ({first.Source.Citation}) does not follow from the cells before it, and the error is carried into the final moments.")
         {
             Evidence = "Correct that cell and carry the distribution on from there.",
             Identity = $"distribution-arithmetic|{x.Case.Id}|{first.Row}|{first.Column}",
