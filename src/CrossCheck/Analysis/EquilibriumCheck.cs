@@ -119,7 +119,7 @@ internal static class EquilibriumCheck
     /// <summary>
     /// The verdict of the numerical sanity layer: results whose forces are out of balance beyond
     /// <see cref="NumericalLimits.EquilibriumResidual"/> are not returned at all, since the claims must not be judged
-    /// against them; an ill-conditioned matrix is noted with its condition estimate and the stiffest contrast.
+    /// against them; an ill-conditioned matrix is noted with its condition number and the stiffest contrast.
     /// </summary>
     /// <exception cref="StructureException">A case fails the equilibrium check.</exception>
     public static void Verify(NumericalReport report, List<string> notes)
@@ -135,7 +135,7 @@ internal static class EquilibriumCheck
                 : $"the recovered forces of the whole structure leave {NumericalReport.Scientific(worst.Global)} of the applied load unbalanced";
             throw new StructureException(
                 $"The independent analysis failed its own equilibrium check: in case {worst.Case}, {where} " +
-                $"(the limit is {NumericalReport.Scientific(NumericalLimits.EquilibriumResidual)}; condition estimate of the stiffness matrix " +
+                $"(the limit is {NumericalReport.Scientific(NumericalLimits.EquilibriumResidual)}; condition number of the stiffness matrix about " +
                 $"{NumericalReport.Scientific(report.ConditionEstimate)}).{contrast} Its results cannot be trusted, so the claims were not judged against them. " +
                 "Check E, I and A (and their units) for typing errors.", worst.AtJoint, worst.Direction);
         }

@@ -4,8 +4,8 @@ namespace CrossCheck.Analysis;
 
 /// <summary>
 /// The constraints of one analysis: supports, support movements, moment-free joints and axially rigid members
-/// (<see cref="Kinematics.Constraints"/>), plus the holds a braced analysis or the solver adds. The holds are
-/// remembered, since equilibrium is not checked in a held direction.
+/// (<see cref="Kinematics.Constraints"/>), plus the holds of a braced analysis. The holds are remembered, since
+/// equilibrium is not checked in a held direction.
 /// </summary>
 internal sealed class FrameConstraints
 {
@@ -27,9 +27,8 @@ internal sealed class FrameConstraints
     /// <param name="model">The structure.</param>
     /// <param name="cases">The load cases (a couple on a joint that cannot carry moment is refused).</param>
     /// <param name="holdTranslations">Hold every translation the supports and rigid members leave free (braced analysis).</param>
-    /// <param name="extra">Further DOF to hold.</param>
     /// <exception cref="StructureException">A couple no member can resist, or support movements that contradict rigid members.</exception>
-    public static FrameConstraints Build(StructureModel model, IReadOnlyList<LoadCase> cases, bool holdTranslations, IEnumerable<int> extra)
+    public static FrameConstraints Build(StructureModel model, IReadOnlyList<LoadCase> cases, bool holdTranslations)
     {
         // A couple on a joint that cannot carry moment is an error before anything else.
         foreach (var joint in Kinematics.MomentFreeJoints(model))
@@ -46,11 +45,6 @@ internal sealed class FrameConstraints
                 cs.Add(new Dictionary<int, double> { [dof] = 1 }, 0, ("braced", dof, 0), out _);
                 held.Add(dof);
             }
-        foreach (var dof in extra)
-        {
-            cs.Add(new Dictionary<int, double> { [dof] = 1 }, 0, ("added", dof, 0), out _);
-            held.Add(dof);
-        }
         return new FrameConstraints(cs, held);
     }
 }

@@ -30,6 +30,9 @@ internal sealed class FrameLayout
     /// <summary>Number of joint DOF (3 per joint), before constraints.</summary>
     public int DofCount { get; }
 
+    /// <summary>The mean member length (m; 1 without members): the length that makes translations comparable with rotations.</summary>
+    public double ReferenceLength => Elements.Length > 0 ? Elements.Average(e => e.Length) : 1;
+
     private MemberElement BuildElement(Member m)
     {
         if (!JointIndex.TryGetValue(m.Start, out int s) || !JointIndex.TryGetValue(m.End, out int e))

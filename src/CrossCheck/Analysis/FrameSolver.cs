@@ -12,9 +12,9 @@ namespace CrossCheck.Analysis;
 /// solution (<see cref="FrameSolution"/> through <see cref="ILinearSolver"/>, with <see cref="MechanismSearch"/>) and
 /// recovery (<see cref="FrameRecovery"/>, verified by <see cref="EquilibriumCheck"/>).
 /// Supports, prescribed movements and axially rigid members are constraints eliminated exactly; end hinges are
-/// condensed out of the member stiffness. A free movement that no load drives (for example a beam on rollers only,
-/// under vertical load) is restrained and noted; a free movement that a load drives is reported as a mechanism naming
-/// the joint and direction.
+/// condensed out of the member stiffness. A structure that cannot stand is refused whatever its loads: a loose part
+/// naming its members, a mechanism naming the joints and directions that are free (a beam on rollers only is refused
+/// even under vertical load alone).
 /// </remarks>
 public sealed class FrameSolver
 {
@@ -34,9 +34,10 @@ public sealed class FrameSolver
         ArgumentNullException.ThrowIfNull(cases);
         var frame = new FrameLayout(model);
         frame.CheckConnectivity();
+        MechanismSearch.RefuseLooseParts(frame);
         var perCase = cases.Select(c => (Case: c, Local: LoadAssembly.LocalActions(frame, c))).ToList();
         var solution = FrameSolution.Solve(frame, perCase, _linear, holdTranslations);
-        var notes = solution.Notes;
+        var notes = new List<string>();
         var results = new List<CaseResult>();
         var balance = new List<CaseEquilibrium>();
         for (int c = 0; c < perCase.Count; c++)
@@ -46,10 +47,12 @@ public sealed class FrameSolver
             results.Add(recovered.Result);
             balance.Add(EquilibriumCheck.Balance(frame, perCase[c].Case, recovered, solution.Constraints.Held, holdTranslations));
         }
-        double condition = 1 / Math.Max(solution.Factor.MinPivotRatio, 1e-300);
-        var report = new NumericalReport(condition, StiffnessContrast.Of(model), balance);
+        var report = new NumericalReport(solution.ConditionNumber, StiffnessContrast.Of(model), balance)
+        {
+            SmallestPivotRatio = solution.Factor.MinPivotRatio,
+        };
         EquilibriumCheck.Verify(report, notes);
-        return new AnalysisResult(model, results, notes, condition) { Numerics = report };
+        return new AnalysisResult(model, results, notes, solution.ConditionNumber) { Numerics = report };
     }
 
     /// <summary>Analyses every load case, returning false with the reason instead of throwing.</summary>

@@ -36,9 +36,9 @@ internal static class LoadAssembly
         return new CaseLoads(actions, fixedActions);
     }
 
-    /// <summary>Full load vector F − Σ Tᵀ·f_fixed and its reduction Tᵀ(F − K·d0).</summary>
+    /// <summary>The load vector F − Σ Tᵀ·f_fixed reduced onto the independent unknowns: Tᵀ(F − K·d0).</summary>
     /// <exception cref="StructureException">A load acts on a joint that does not exist.</exception>
-    public static (double[] Full, double[] Reduced) ReducedLoad(FrameLayout frame, Transformation t, LoadCase loadCase, CaseLoads local)
+    public static double[] ReducedLoad(FrameLayout frame, Transformation t, LoadCase loadCase, CaseLoads local)
     {
         var f = new double[frame.DofCount];
         foreach (var jl in loadCase.JointLoads)
@@ -67,7 +67,6 @@ internal static class LoadAssembly
             for (int a = 0; a < 6; a++) f[e.Dofs[a]] -= g[a];
         }
         // Subtract K·d0 for prescribed movements.
-        var full = (double[])f.Clone();
         if (t.Constants.Any(c => c != 0))
         {
             foreach (var e in elements)
@@ -82,6 +81,6 @@ internal static class LoadAssembly
                 }
             }
         }
-        return (full, t.Reduce(f));
+        return t.Reduce(f);
     }
 }
