@@ -49,7 +49,7 @@ internal sealed record LocalCouple(Load Origin, double A, double C) : LocalActio
 
 internal static class LocalLoads
 {
-    /// <summary>Resolves a member load given in global directions into local actions.</summary>
+    /// <summary>Resolves a member load given in global directions into local actions, through its <see cref="MemberLoad.Shape"/>.</summary>
     public static LocalAction Resolve(MemberLoad load, double cos, double sin)
     {
         // Local axes in global components: ex = (c, s), ey = (−s, c).
@@ -59,22 +59,22 @@ internal static class LocalLoads
             return ((gx * cos) + (gy * sin), (-gx * sin) + (gy * cos));
         }
 
-        switch (load)
+        switch (load.Shape())
         {
-            case PointLoad p:
+            case ConcentratedForce p:
             {
                 var (ux, uy) = Components(p.Direction);
                 return new LocalPoint(load, p.A, p.P * ux, p.P * uy);
             }
-            case DistributedLoad d:
+            case LinearlyVaryingLoad d:
             {
                 var (ux, uy) = Components(d.Direction);
                 return new LocalDistributed(load, d.A, d.B, d.WStart * ux, d.WEnd * ux, d.WStart * uy, d.WEnd * uy);
             }
-            case MemberCouple c:
+            case ConcentratedCouple c:
                 // Clockwise positive in the submission; anticlockwise positive here.
                 return new LocalCouple(load, c.A, -c.M);
-            case LockedEndMoments e:
+            case LockedEnds e:
                 return new LocalEndMoments(load, -e.StartMoment, -e.EndMoment);
             default:
                 throw new NotSupportedException($"Load kind {load.GetType().Name} is not supported on members.");
@@ -87,7 +87,13 @@ internal static class LocalLoads
 /// wrong fixed-end moment. Clockwise positive, N·m. Not part of the submission format.
 /// </summary>
 public sealed record LockedEndMoments(string Case, string Member, double StartMoment, double EndMoment, SourceRef Source)
-    : MemberLoad(Case, Member, Source);
+    : MemberLoad(Case, Member, Source)
+{
+    public override MemberLoadShape Shape() => new LockedEnds(StartMoment, EndMoment);
+}
+
+/// <summary>The shape of <see cref="LockedEndMoments"/>: end moments that act only through the fixed-end actions.</summary>
+internal sealed record LockedEnds(double StartMoment, double EndMoment) : MemberLoadShape;
 
 /// <summary>Local form of <see cref="LockedEndMoments"/> (anticlockwise end moments).</summary>
 internal sealed record LocalEndMoments(Load Origin, double M1, double M2) : LocalAction(Origin)

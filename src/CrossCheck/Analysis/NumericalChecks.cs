@@ -13,8 +13,21 @@ public static class NumericalLimits
     /// <summary>A member this many times stiffer (EI/L, or EA/L) than a member it meets is reported.</summary>
     public const double StiffnessContrast = 1e6;
 
-    /// <summary>A condition estimate (1 / smallest scaled pivot) above this is reported.</summary>
+    /// <summary>
+    /// A condition number of the stiffness matrix above this is reported (<see cref="NumericalReport.ConditionEstimate"/>:
+    /// a 1-norm estimate, translations measured in the mean member length). An elimination without scaling loses about
+    /// log₁₀ κ of the 16 significant digits of double precision; above 10¹⁰ fewer than 6 would be left, too few to
+    /// trust a comparison at the review's 10⁻² band with the equilibrium check's 10⁻⁶ margin. CrossCheck scales the
+    /// matrix before factorising and verifies every result by equilibrium, so it loses fewer; a spread this wide is
+    /// reported because in practice it is a typing or unit slip in E, I or A. Ordinary frames stay below about 10⁵.
+    /// </summary>
     public const double ConditionEstimate = 1e10;
+
+    /// <summary>
+    /// A smallest pivot of the (Jacobi-scaled) factorisation below this fraction of its diagonal entry is reported: the
+    /// scaled matrix itself is then nearly singular, whatever the condition number of the unscaled one.
+    /// </summary>
+    public const double SmallestPivotRatio = 1e-10;
 
     /// <summary>
     /// Largest out-of-balance force (or moment) at a free joint direction, or of the whole structure, as a fraction
@@ -78,13 +91,32 @@ public sealed record CaseEquilibrium(string Case, double Joint, string? AtJoint,
 /// The numerical sanity of an analysis: how well conditioned its stiffness matrix was and how closely every case's
 /// recovered forces satisfy equilibrium at every joint and for the structure as a whole.
 /// </summary>
-/// <param name="ConditionEstimate">1 / smallest scaled pivot of the factorisation (a lower bound on the condition number).</param>
+/// <param name="ConditionEstimate">
+/// The condition number κ₁ = ‖K̃‖₁·‖K̃⁻¹‖₁ of the reduced stiffness matrix, estimated by Hager's method as refined by
+/// Higham from a few solves with the factorisation already made (a lower bound, usually exact or within a factor of 3).
+/// K̃ is the stiffness matrix with translations measured in units of the mean member length, so that every entry is a
+/// moment: the number measures how far apart the structure's stiffnesses are, not a mix of units, and grows in
+/// proportion to the contrast between a very stiff member and the rest. (It replaces the reciprocal of the smallest
+/// scaled pivot, which stays near 1 when one member is far stiffer than its neighbours; that indicator is
+/// <see cref="SmallestPivotRatio"/>.)
+/// </param>
 /// <param name="Contrast">The largest stiffness ratio between members meeting at a joint.</param>
 /// <param name="Cases">The equilibrium residual of every case.</param>
 public sealed record NumericalReport(double ConditionEstimate, StiffnessContrast? Contrast, IReadOnlyList<CaseEquilibrium> Cases)
 {
-    /// <summary>The matrix is ill-conditioned or the stiffnesses of neighbouring members differ by more than <see cref="NumericalLimits.StiffnessContrast"/>.</summary>
-    public bool IllConditioned => ConditionEstimate > NumericalLimits.ConditionEstimate || Contrast?.Ratio >= NumericalLimits.StiffnessContrast;
+    /// <summary>
+    /// Smallest pivot of the factorisation divided by its diagonal entry (the factorisations work on a Jacobi-scaled
+    /// copy): near zero means the scaled matrix itself is nearly singular. 1 when not known.
+    /// </summary>
+    public double SmallestPivotRatio { get; init; } = 1;
+
+    /// <summary>
+    /// The condition number exceeds <see cref="NumericalLimits.ConditionEstimate"/>, the scaled factorisation met a
+    /// pivot below <see cref="NumericalLimits.SmallestPivotRatio"/>, or the stiffnesses of neighbouring members differ by
+    /// more than <see cref="NumericalLimits.StiffnessContrast"/>.
+    /// </summary>
+    public bool IllConditioned => ConditionEstimate > NumericalLimits.ConditionEstimate || SmallestPivotRatio < NumericalLimits.SmallestPivotRatio
+                                  || Contrast?.Ratio >= NumericalLimits.StiffnessContrast;
 
     /// <summary>The worst case residual (0 when there are no cases).</summary>
     public CaseEquilibrium? WorstCase => Cases.OrderByDescending(c => c.Worst).FirstOrDefault();
@@ -95,7 +127,7 @@ public sealed record NumericalReport(double ConditionEstimate, StiffnessContrast
     public bool Trusted => Cases.All(c => c.Trusted);
 
     /// <summary>
-    /// One sentence on an ill-conditioned analysis for the reviewer: the contrast or the condition estimate, and that
+    /// One sentence on an ill-conditioned analysis for the reviewer: the contrast and the condition number, and that
     /// the results passed the equilibrium check.
     /// </summary>
     public string Describe()
@@ -103,7 +135,7 @@ public sealed record NumericalReport(double ConditionEstimate, StiffnessContrast
         string head = Contrast is { } k && k.Ratio >= NumericalLimits.StiffnessContrast
             ? $"Member {k.Stiffer} is {Scientific(k.Ratio)} times stiffer ({k.Measure}) than member {k.Softer}, which meets it at joint {k.Joint}"
             : "The stiffness matrix is ill-conditioned";
-        return $"{head} (condition estimate of the stiffness matrix {Scientific(ConditionEstimate)}). Every result was verified by equilibrium " +
+        return $"{head} (condition number of the stiffness matrix about {Scientific(ConditionEstimate)}). Every result was verified by equilibrium " +
                $"(largest out-of-balance {Words(WorstResidual)} of the applied loads), but stiffnesses this different are usually a typing or unit error in E, I or A.";
     }
 

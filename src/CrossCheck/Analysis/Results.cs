@@ -227,10 +227,10 @@ public sealed class AnalysisResult
     public StructureModel Model { get; }
     public IReadOnlyList<CaseResult> Cases { get; }
 
-    /// <summary>Assumptions the solver had to make (e.g. a restraint added against an unloaded free movement).</summary>
+    /// <summary>What the reviewer should know about the analysis (e.g. an ill-conditioned stiffness matrix).</summary>
     public IReadOnlyList<string> Notes { get; }
 
-    /// <summary>Rough conditioning indicator: 1 / smallest scaled pivot of the factorisation.</summary>
+    /// <summary>Condition number of the stiffness matrix, as <see cref="NumericalReport.ConditionEstimate"/>.</summary>
     public double ConditionEstimate { get; }
 
     /// <summary>

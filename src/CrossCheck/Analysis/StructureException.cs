@@ -1,8 +1,8 @@
 namespace CrossCheck.Analysis;
 
 /// <summary>
-/// The structure cannot be analysed as given: a mechanism, a disconnected joint, a couple on a joint that
-/// cannot carry moment, or support movements that contradict axially rigid members. The message names
+/// The structure cannot be analysed as given: a mechanism (whatever the loads), a loose part, a disconnected joint,
+/// a couple on a joint that cannot carry moment, or support movements that contradict axially rigid members. The message names
 /// the joint and direction involved; it is meant for the reviewer, not a stack trace.
 /// </summary>
 public sealed class StructureException : Exception
@@ -12,6 +12,12 @@ public sealed class StructureException : Exception
     public StructureException(string message, Exception inner) : base(message, inner) { }
 
     public StructureException(string message, string? joint, string? direction) : base(message)
+    {
+        Joint = joint;
+        Direction = direction;
+    }
+
+    public StructureException(string message, string? joint, string? direction, Exception inner) : base(message, inner)
     {
         Joint = joint;
         Direction = direction;

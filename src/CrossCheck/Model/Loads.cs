@@ -16,11 +16,22 @@ public enum LoadDirection
 public abstract record Load(string Case, SourceRef Source);
 
 /// <summary>A load that acts on a member.</summary>
-public abstract record MemberLoad(string Case, string Member, SourceRef Source) : Load(Case, Source);
+public abstract record MemberLoad(string Case, string Member, SourceRef Source) : Load(Case, Source)
+{
+    /// <summary>
+    /// The load as the analysis takes it: one of the <see cref="MemberLoadShape"/>s (a concentrated force, a linearly
+    /// varying load or a concentrated couple). A member load one of them describes needs nothing new in the analysis:
+    /// fixed-end actions and the moment and shear along the member follow from the shape.
+    /// </summary>
+    public abstract MemberLoadShape Shape();
+}
 
 /// <summary>A concentrated force <paramref name="P"/> at distance <paramref name="A"/> along the member.</summary>
 public sealed record PointLoad(string Case, string Member, double P, double A, LoadDirection Direction, SourceRef Source)
-    : MemberLoad(Case, Member, Source);
+    : MemberLoad(Case, Member, Source)
+{
+    public override MemberLoadShape Shape() => new ConcentratedForce(A, P, Direction);
+}
 
 /// <summary>
 /// A distributed load per unit length along the member, varying linearly from <paramref name="WStart"/>
@@ -30,11 +41,31 @@ public sealed record DistributedLoad(string Case, string Member, double WStart, 
     : MemberLoad(Case, Member, Source)
 {
     public bool IsUniform => WStart == WEnd;
+
+    public override MemberLoadShape Shape() => new LinearlyVaryingLoad(A, B, WStart, WEnd, Direction);
 }
 
 /// <summary>A concentrated couple on a member, clockwise positive, at distance <paramref name="A"/>.</summary>
 public sealed record MemberCouple(string Case, string Member, double M, double A, SourceRef Source)
-    : MemberLoad(Case, Member, Source);
+    : MemberLoad(Case, Member, Source)
+{
+    public override MemberLoadShape Shape() => new ConcentratedCouple(A, M);
+}
+
+/// <summary>
+/// What a member load is to the analysis (see <see cref="MemberLoad.Shape"/>). Magnitudes in SI, positive in the
+/// stated direction; positions in metres from the member's start joint; couples clockwise positive.
+/// </summary>
+public abstract record MemberLoadShape;
+
+/// <summary>A force <paramref name="P"/> at <paramref name="A"/>.</summary>
+public sealed record ConcentratedForce(double A, double P, LoadDirection Direction) : MemberLoadShape;
+
+/// <summary>A load per unit length varying linearly from <paramref name="WStart"/> at <paramref name="A"/> to <paramref name="WEnd"/> at <paramref name="B"/>.</summary>
+public sealed record LinearlyVaryingLoad(double A, double B, double WStart, double WEnd, LoadDirection Direction) : MemberLoadShape;
+
+/// <summary>A couple <paramref name="M"/>, clockwise positive, at <paramref name="A"/>.</summary>
+public sealed record ConcentratedCouple(double A, double M) : MemberLoadShape;
 
 /// <summary>A load applied directly to a joint.</summary>
 public abstract record JointLoad(string Case, string Joint, SourceRef Source) : Load(Case, Source);
