@@ -16,10 +16,17 @@ public static class ExitCodes
 /// <summary>The command line: parses arguments, calls the library, returns an exit code. No logic of its own.</summary>
 public static class App
 {
-    public static int Run(string[] args, TextWriter output, TextWriter error)
+    /// <param name="args">The command line.</param>
+    /// <param name="output">Standard output.</param>
+    /// <param name="error">Standard error.</param>
+    /// <param name="environment">Reads an environment variable (the process's when null; tests give their own).</param>
+    public static int Run(string[] args, TextWriter output, TextWriter error, Func<string, string?>? environment = null)
     {
         ArgumentNullException.ThrowIfNull(args);
-        var io = new CliIo(output, error, ReferenceEquals(output, Console.Out) && !Console.IsOutputRedirected);
+        var io = new CliIo(output, error, ReferenceEquals(output, Console.Out) && !Console.IsOutputRedirected)
+        {
+            Variable = environment ?? Environment.GetEnvironmentVariable,
+        };
         var root = new RootCommand(
             "CrossCheck re-analyses the continuous beams and rigid frames of a calculation, checks the member end moments " +
             "its author claims, and writes a review memo. It checks analysis arithmetic only; the engineer of record stays responsible.");
@@ -78,4 +85,7 @@ public sealed class CliIo(TextWriter output, TextWriter error, bool interactive)
 
     /// <summary>True when standard output is a terminal (colours and progress bars allowed).</summary>
     public bool Interactive { get; } = interactive;
+
+    /// <summary>Reads an environment variable (<c>CROSSCHECK_REGISTER</c>).</summary>
+    public Func<string, string?> Variable { get; init; } = Environment.GetEnvironmentVariable;
 }

@@ -12,6 +12,7 @@ using CrossCheck.TestTools;
 //   time-screen N [SEED]                        screening throughput, one at a time and on every core
 //   register-pause REGISTER SUBMISSION          record a review and stop inside its transaction (to be killed)
 //   register-write REGISTER SUBMISSION N TAG    record N reviews as N rounds of reference TAG
+// REGISTER is a file path or a PostgreSQL URI or connection string.
 var inv = CultureInfo.InvariantCulture;
 if (args.Length == 0)
 {
@@ -48,7 +49,7 @@ switch (args[0])
         int n = int.Parse(args[3], inv);
         using var register = ReviewRegister.Open(args[1]);
         for (int i = 0; i < n; i++) register.Record(review, args[4], SubmissionNames.DisplayName(args[2]), $"{args[4]}-{Environment.ProcessId}-{i}");
-        Console.WriteLine($"recorded {n}");
+        Console.WriteLine($"recorded {n} ({register.Retries} run again after colliding with another writer)");
         return 0;
     }
     default:

@@ -9,7 +9,7 @@ namespace CrossCheck.Cli.Commands;
 
 /// <summary>
 /// <c>crosscheck history [REFERENCE]</c>: the rounds of one reference in the register (or every reference), and
-/// the register's maintenance commands (<c>crosscheck register export|check</c>).
+/// the register's maintenance commands (<c>crosscheck register export|check|copy</c>).
 /// </summary>
 internal static class HistoryCommand
 {
@@ -21,7 +21,7 @@ internal static class HistoryCommand
         {
             reference, register,
         };
-        cmd.SetAction(pr => Run(pr.GetValue(reference), pr.GetValue(register)!, io));
+        cmd.SetAction(pr => Run(pr.GetValue(reference), RegisterChoice.Resolve(pr.GetValue(register), io), io));
         return cmd;
     }
 
@@ -31,19 +31,23 @@ internal static class HistoryCommand
         var findings = new Option<bool>("--findings") { Description = "One row per finding (with its review) instead of one row per review." };
         var output = new Option<string?>("--out", "-o") { Description = "Write to this file instead of standard output." };
         var export = new Command("export", "Export the register as CSV.") { register, findings, output };
-        export.SetAction(pr => Export(pr.GetValue(register)!, pr.GetValue(findings), pr.GetValue(output), io));
+        export.SetAction(pr => Export(RegisterChoice.Resolve(pr.GetValue(register), io), pr.GetValue(findings), pr.GetValue(output), io));
 
         var register2 = RegisterOption();
-        var check = new Command("check", "Check the register file: SQLite integrity, every review's findings complete, rounds without gaps.") { register2 };
-        check.SetAction(pr => Check(pr.GetValue(register2)!, io));
+        var check = new Command("check", "Check the register: the database's own checks, every review's findings complete, rounds without gaps; prints a digest of its contents.") { register2 };
+        check.SetAction(pr => Check(RegisterChoice.Resolve(pr.GetValue(register2), io), io));
 
-        return new Command("register", "Work with the review register file (export it, check it).") { export, check };
+        var from = new Argument<string>("from") { Description = "The register to copy: an SQLite file, or a PostgreSQL URI or connection string." };
+        var to = new Argument<string>("to") { Description = "The register to copy into (created if needed; it must hold no reviews)." };
+        var copy = new Command("copy", "Copy a register into another, between SQLite and PostgreSQL either way, and check both hold the same rounds, comments and hashes.") { from, to };
+        copy.SetAction(pr => Copy(pr.GetValue(from)!, pr.GetValue(to)!, io));
+
+        return new Command("register", "Work with the review register (export it, check it, copy it between SQLite and PostgreSQL).") { export, check, copy };
     }
 
-    private static Option<string> RegisterOption() => new("--register")
+    private static Option<string?> RegisterOption() => new("--register")
     {
-        Description = $"The register file (default: {ReviewRegister.DefaultFileName} in the current folder).",
-        DefaultValueFactory = _ => ReviewRegister.DefaultFileName,
+        Description = RegisterChoice.Description($"{ReviewRegister.DefaultFileName} in the current folder"),
     };
 
     private static ReviewRegister? OpenExisting(string path, CliIo io)
@@ -57,6 +61,19 @@ internal static class HistoryCommand
     {
         using var register = OpenExisting(path, io);
         if (register is null) return ExitCodes.InputError;
+        try
+        {
+            return Print(reference, register, io);
+        }
+        catch (RegisterException ex)
+        {
+            CommandSupport.Fail(ex.Message, io);
+            return ExitCodes.InputError;
+        }
+    }
+
+    private static int Print(string? reference, ReviewRegister register, CliIo io)
+    {
         var console = CommandSupport.Console(io);
         if (reference is null)
         {
@@ -74,7 +91,7 @@ internal static class HistoryCommand
         var history = register.History(reference);
         if (history.Count == 0)
         {
-            io.Error.WriteLine($"crosscheck: the register '{path}' has no reviews of reference '{reference}' (run 'crosscheck history' for the list).");
+            io.Error.WriteLine($"crosscheck: the register {Quoted(register)} has no reviews of reference '{reference}' (run 'crosscheck history' for the list).");
             return ExitCodes.InputError;
         }
         console.MarkupLine($"[bold]{Markup.Escape(reference)}[/]: {history.Select(h => h.Review.Round).Distinct().Count()} round(s), {history.Count} review(s)");
@@ -120,15 +137,53 @@ internal static class HistoryCommand
     {
         using var register = OpenExisting(path, io);
         if (register is null) return ExitCodes.InputError;
-        var problems = register.Check();
+        IReadOnlyList<string> problems;
+        RegisterTally tally;
+        try
+        {
+            problems = register.Check();
+            tally = register.Tally();
+        }
+        catch (RegisterException ex)
+        {
+            CommandSupport.Fail(ex.Message, io);
+            return ExitCodes.InputError;
+        }
         if (problems.Count == 0)
         {
             io.Output.WriteLine($"{register.Path}: sound (schema version {register.SchemaVersion}, {register.Reviews().Count} reviews).");
+            io.Output.WriteLine($"{register.Path}: {Tally(tally)}");
             return ExitCodes.Concur;
         }
         foreach (var p in problems) io.Output.WriteLine($"{register.Path}: {p}");
         return ExitCodes.Comments;
     }
+
+    private static int Copy(string from, string to, CliIo io)
+    {
+        var outcome = RegisterJob.Copy(from, to);
+        if (outcome.Problem is not null)
+        {
+            CommandSupport.Fail(outcome.Problem, io);
+            return ExitCodes.InputError;
+        }
+        io.Output.WriteLine($"copied {N(outcome.Reviews)} reviews and {N(outcome.Findings)} findings from {outcome.From} to {outcome.To}.");
+        io.Output.WriteLine($"  from: {Tally(outcome.FromTally!)}");
+        io.Output.WriteLine($"  to:   {Tally(outcome.ToTally!)}");
+        foreach (var p in outcome.Problems) io.Output.WriteLine($"  check: {p}");
+        if (outcome.Verified)
+        {
+            io.Output.WriteLine("Both registers check sound and hold the same rounds, comments and hashes.");
+            return ExitCodes.Concur;
+        }
+        io.Output.WriteLine(outcome.Problems.Count > 0 ? "The copy does not check sound (above)." : "The two registers differ (another process wrote to the source meanwhile?).");
+        return ExitCodes.Comments;
+    }
+
+    private static string Tally(RegisterTally t) =>
+        $"{N(t.Reviews)} reviews of {N(t.References)} references, {N(t.Findings)} findings; contents {t.Digest[..23]}";
+
+    private static string Quoted(ReviewRegister r) => r.Location.Kind == RegisterKind.SqliteFile ? $"'{r.Location.Display}'" : r.Path;
 
     private static string Ids(IReadOnlyList<ComparedComment> list) => list.Count == 0 ? "none" : string.Join(", ", list.Select(c => c.Id));
 

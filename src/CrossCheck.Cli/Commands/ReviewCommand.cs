@@ -2,6 +2,7 @@ using System.CommandLine;
 using CrossCheck.Common;
 using CrossCheck.Import;
 using CrossCheck.Jobs;
+using CrossCheck.Register;
 using CrossCheck.Review;
 using Spectre.Console;
 
@@ -19,7 +20,8 @@ internal static class ReviewCommand
         var template = new Option<string?>("--template") { Description = "A Scriban template of your own for the md or html memo (html templates also serve pdf)." };
         var settings = new ReviewSettings();
         var quiet = new Option<bool>("--quiet", "-q") { Description = "Print no summary." };
-        var register = new Option<string?>("--register") { Description = "Record the review in this register file and compare it with the previous round of the same reference." };
+        var register = new Option<string?>("--register") { Description = RegisterChoice.Description("record nothing") + " Records the review and compares it with the previous round of the same reference." };
+        var noRegister = new Option<bool>("--no-register") { Description = $"Record nothing, even when {RegisterLocation.EnvironmentVariable} names a register." };
         var working = new Option<bool>("--show-working") { Description = "Add CrossCheck's own moment-distribution working table to the memo." };
         var limitOptions = new LimitOptions();
         var cmd = new Command("review", "Recompute the end moments, check the claimed numbers, and write a review memo.")
@@ -29,6 +31,7 @@ internal static class ReviewCommand
         settings.AddTo(cmd);
         cmd.Add(quiet);
         cmd.Add(register);
+        cmd.Add(noRegister);
         cmd.Add(working);
         limitOptions.AddTo(cmd);
         cmd.SetAction(pr =>
@@ -38,8 +41,9 @@ internal static class ReviewCommand
             options = options with { ShowWorking = pr.GetValue(working) };
             var limits = limitOptions.Read(pr, io);
             if (limits is null) return ExitCodes.InputError;
+            if (!RegisterChoice.TryResolve(pr.GetValue(register), pr.GetValue(noRegister), null, io, out var registerLocation)) return ExitCodes.InputError;
             return Run(new Request(pr.GetValue(submission)!, pr.GetValue(format)!, pr.GetValue(output), pr.GetValue(template), options,
-                pr.GetValue(quiet), pr.GetValue(register), limits), io);
+                pr.GetValue(quiet), registerLocation, limits), io);
         });
         return cmd;
     }

@@ -19,8 +19,8 @@ internal static class ScreenCommand
         var format = new Option<string>("--format", "-f") { Description = "Memo format: html or md.", DefaultValueFactory = _ => "html" };
         format.AcceptOnlyFromAmong("html", "md");
         var template = new Option<string?>("--template") { Description = "A Scriban template of your own for the memos." };
-        var register = new Option<string?>("--register") { Description = $"The review register (default: {ReviewRegister.DefaultFileName} beside the folder)." };
-        var noRegister = new Option<bool>("--no-register") { Description = "Record nothing; compare with no earlier round." };
+        var register = new Option<string?>("--register") { Description = RegisterChoice.Description($"{ReviewRegister.DefaultFileName} beside the folder") };
+        var noRegister = new Option<bool>("--no-register") { Description = $"Record nothing; compare with no earlier round (even when {RegisterLocation.EnvironmentVariable} is set)." };
         var jobs = new Option<int>("--jobs", "-j") { Description = "Submissions reviewed at once (default: one per processor).", DefaultValueFactory = _ => 0 };
         var quiet = new Option<bool>("--quiet", "-q") { Description = "Print only the totals." };
         var settings = new ReviewSettings();
@@ -58,11 +58,7 @@ internal static class ScreenCommand
             io.Error.WriteLine("crosscheck: --jobs must be 0 (one per processor) or more.");
             return ExitCodes.InputError;
         }
-        if (noRegister && registerPath is not null)
-        {
-            io.Error.WriteLine("crosscheck: give --register or --no-register, not both.");
-            return ExitCodes.InputError;
-        }
+        if (!RegisterChoice.TryResolve(registerPath, noRegister, Screener.DefaultRegisterPath(folder), io, out registerPath)) return ExitCodes.InputError;
         MemoTemplateFile? template = null;
         if (templatePath is not null && !MemoTemplateFile.TryLoad(templatePath, out template, out var problem))
         {
@@ -75,7 +71,6 @@ internal static class ScreenCommand
             io.Error.WriteLine("crosscheck: --out must not be the folder screened (its summary.csv would be taken for a submission next time).");
             return ExitCodes.InputError;
         }
-        if (!noRegister) registerPath ??= Screener.DefaultRegisterPath(folder);
         var options = new ScreenOptions(review, outDir, format == "md" ? MemoFormat.Markdown : MemoFormat.Html, jobs, registerPath, template) { Limits = limits };
 
         var console = CommandSupport.Console(io);

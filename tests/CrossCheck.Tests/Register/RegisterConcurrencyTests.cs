@@ -5,14 +5,13 @@ using CrossCheck.Review;
 using CrossCheck.Screening;
 using CrossCheck.Tests.Support;
 using CrossCheck.TestTools;
-using Microsoft.Data.Sqlite;
 using Xunit.Abstractions;
 
 namespace CrossCheck.Tests.Register;
 
 /// <summary>
-/// Several writers on one register, and writers killed in the middle: every review is recorded whole or not at all,
-/// and rounds stay numbered 1, 2, 3 ... without gaps or duplicates.
+/// Several writers on one register (threads, processes, whole screens), and writers killed in the middle, on both back
+/// ends: every review is recorded whole or not at all, and rounds stay numbered 1, 2, 3 ... without gaps or duplicates.
 /// </summary>
 public class RegisterConcurrencyTests(ITestOutputHelper log)
 {
@@ -22,89 +21,133 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
     private static string WrongSubmission(TempSubmission t) =>
         t.Write("calc.csv", SampleText.With(claims: "[end-moments]\ncase,member,at,moment\n1,AB,A,-60\n1,AB,B,0"));
 
-    private static long Count(string db, string sql)
-    {
-        using var c = new SqliteConnection(new SqliteConnectionStringBuilder { DataSource = db, Mode = SqliteOpenMode.ReadOnly, Pooling = false }.ToString());
-        c.Open();
-        using var cmd = c.CreateCommand();
-        cmd.CommandText = sql;
-        return (long)cmd.ExecuteScalar()!;
-    }
-
-    [Fact]
-    public async Task TwoConnectionsInOneProcess_RecordingTheSameReference_GiveUniqueContiguousRounds()
+    [Theory]
+    [InlineData(RegisterKind.SqliteFile)]
+    [PostgresData]
+    public async Task TwoConnectionsInOneProcess_RecordingTheSameReference_GiveUniqueContiguousRounds(RegisterKind kind)
     {
         using var t = new TempSubmission();
-        string db = Path.Combine(t.Folder, "reg.db");
+        using var db = TestRegister.Create(kind, t.Folder);
         var review = new ReviewJob().Review(WrongSubmission(t), Options).Review!;
-        using (ReviewRegister.Open(db)) { }
+        using (ReviewRegister.Open(db.Location)) { }
         var tasks = Enumerable.Range(0, 2).Select(w => Task.Run(() =>
         {
-            using var r = ReviewRegister.Open(db);
+            using var r = ReviewRegister.Open(db.Location);
             for (int i = 0; i < 30; i++) r.Record(review, "SHARED", "calc.csv", $"sha256:w{w}-{i}");
+            return r.Retries;
         })).ToArray();
-        await Task.WhenAll(tasks);
-        using var check = ReviewRegister.Open(db);
+        var retries = await Task.WhenAll(tasks);
+        log.WriteLine($"{kind}: writes run again after a collision: {retries.Sum()}");
+        using var check = ReviewRegister.Open(db.Location);
         check.Check().ShouldBeEmpty();
         check.History("SHARED").Select(h => h.Review.Round).ShouldBe(Enumerable.Range(1, 60));
     }
 
-    [Fact]
-    public void TwoProcesses_WritingAtOnce_BothSucceed()
+    /// <summary>
+    /// Two writers that read the same latest round: the first holds its transaction open after writing round 2; the
+    /// second, wanting round 2 too, must wait (SQLite: the write lock; PostgreSQL: the unique index on the round) and,
+    /// on PostgreSQL, collide and run again once the first commits — ending as round 3, never as a second round 2.
+    /// </summary>
+    [Theory]
+    [InlineData(RegisterKind.SqliteFile)]
+    [PostgresData]
+    public async Task AWriterThatWouldTakeTheSameRound_WaitsAndTakesTheNext(RegisterKind kind)
     {
         using var t = new TempSubmission();
-        string db = Path.Combine(t.Folder, "reg.db");
-        string calc = WrongSubmission(t);
-        var a = ChildProcess.Tools("register-write", db, calc, "40", "SHARED");
-        var b = ChildProcess.Tools("register-write", db, calc, "40", "SHARED");
-        var ra = ChildProcess.Finish(a);
-        var rb = ChildProcess.Finish(b);
-        ra.Code.ShouldBe(0, ra.Err);
-        rb.Code.ShouldBe(0, rb.Err);
-        using var r = ReviewRegister.Open(db);
-        r.Check().ShouldBeEmpty();
-        r.History("SHARED").Select(h => h.Review.Round).ShouldBe(Enumerable.Range(1, 80));
+        using var db = TestRegister.Create(kind, t.Folder);
+        var review = new ReviewJob().Review(WrongSubmission(t), Options).Review!;
+        using var first = ReviewRegister.Open(db.Location);
+        using var second = ReviewRegister.Open(db.Location);
+        first.Record(review, "RACE", "calc.csv", "sha256:r1").Review.Round.ShouldBe(1);
+
+        using var inside = new ManualResetEventSlim();
+        using var release = new ManualResetEventSlim();
+        first.AfterReviewRow = _ =>
+        {
+            inside.Set();
+            release.Wait(TimeSpan.FromSeconds(60)).ShouldBeTrue();
+        };
+        var a = Task.Run(() => first.Record(review, "RACE", "calc.csv", "sha256:a"));
+        inside.Wait(TimeSpan.FromSeconds(30)).ShouldBeTrue();
+        var b = Task.Run(() => second.Record(review, "RACE", "calc.csv", "sha256:b"));
+        (await Task.WhenAny(b, Task.Delay(700))).ShouldNotBe(b, "the second writer cannot record while the first holds round 2");
+        release.Set();
+        var (ra, rb) = (await a, await b);
+        ra.Review.Round.ShouldBe(2);
+        rb.Review.Round.ShouldBe(3);
+        rb.Previous!.Id.ShouldBe(ra.Review.Id, "set against the round the first writer recorded");
+        if (kind == RegisterKind.PostgreSql) second.Retries.ShouldBeGreaterThanOrEqualTo(1, "the second writer collided on the round and ran again");
+        first.Check().ShouldBeEmpty();
     }
 
-    [Fact]
-    public void TwoScreensOfOneRegister_AtTheSameTime_BothSucceed()
+    [Theory]
+    [InlineData(RegisterKind.SqliteFile)]
+    [PostgresData]
+    public void FourProcesses_WritingOneReferenceAtOnce_AllSucceed_WithUniqueRounds(RegisterKind kind)
+    {
+        using var t = new TempSubmission();
+        using var db = TestRegister.Create(kind, t.Folder);
+        string calc = WrongSubmission(t);
+        using (ReviewRegister.Open(db.Location)) { }
+        var writers = Enumerable.Range(0, 4).Select(_ => ChildProcess.Tools("register-write", db.Location, calc, "20", "SHARED")).ToList();
+        foreach (var w in writers)
+        {
+            var (code, output, err) = ChildProcess.Finish(w);
+            code.ShouldBe(0, err);
+            log.WriteLine(output.Trim());
+        }
+        using var r = ReviewRegister.Open(db.Location);
+        r.Check().ShouldBeEmpty();
+        var history = r.History("SHARED");
+        history.Select(h => h.Review.Round).ShouldBe(Enumerable.Range(1, 80), "80 different inputs: 80 rounds, none lost, none twice");
+        history.Select(h => h.Review.InputHash).Distinct().Count().ShouldBe(80);
+        r.Reviews().ShouldAllBe(x => r.Findings(x.Id).Count == x.FindingCount);
+    }
+
+    [Theory]
+    [InlineData(RegisterKind.SqliteFile)]
+    [PostgresData]
+    public void TwoScreensOfOneRegister_AtTheSameTime_BothSucceed(RegisterKind kind)
     {
         using var one = new GeneratedBatch(new BatchPlan(6, 1, 1, 1, 1, 2), seed: 21);
         using var two = new GeneratedBatch(new BatchPlan(6, 1, 1, 1, 1, 2), seed: 22);
-        string db = Path.Combine(one.Root, "shared.db");
-        var a = ChildProcess.Cli("screen", one.Folder, "--out", one.Out, "--register", db, "-q");
-        var b = ChildProcess.Cli("screen", two.Folder, "--out", two.Out, "--register", db, "-q");
+        using var db = TestRegister.Create(kind, one.Root, "shared.db");
+        var a = ChildProcess.Cli("screen", one.Folder, "--out", one.Out, "--register", db.Location, "-q");
+        var b = ChildProcess.Cli("screen", two.Folder, "--out", two.Out, "--register", db.Location, "-q");
         var ra = ChildProcess.Finish(a);
         var rb = ChildProcess.Finish(b);
         ra.Code.ShouldBe(2, ra.Err + ra.Out); // both batches hold broken submissions
         rb.Code.ShouldBe(2, rb.Err + rb.Out);
         ra.Out.ShouldContain("12 submissions: 6 concur, 1 concur with comments, 3 revise, 2 input errors");
         rb.Out.ShouldContain("12 submissions: 6 concur, 1 concur with comments, 3 revise, 2 input errors");
-        using var r = ReviewRegister.Open(db);
+        using var r = ReviewRegister.Open(db.Location);
         r.Check().ShouldBeEmpty();
         r.Reviews().Count.ShouldBe(20);
     }
 
-    [Fact]
-    public void AWriterKilledInsideItsTransaction_LeavesNoHalfReview()
+    [Theory]
+    [InlineData(RegisterKind.SqliteFile)]
+    [PostgresData]
+    public async Task AWriterKilledInsideItsTransaction_LeavesNoHalfReview(RegisterKind kind)
     {
         using var t = new TempSubmission();
-        string db = Path.Combine(t.Folder, "reg.db");
+        using var db = TestRegister.Create(kind, t.Folder);
         string calc = WrongSubmission(t);
-        using (var r = ReviewRegister.Open(db)) r.Record(new ReviewJob().Review(calc, Options).Review!, "PAUSED", "calc.csv", "sha256:before");
+        var review = new ReviewJob().Review(calc, Options).Review!;
+        using (var r = ReviewRegister.Open(db.Location)) r.Record(review, "PAUSED", "calc.csv", "sha256:before");
 
-        using var probe = ChildProcess.Tools("register-pause", db, calc);
+        using var probe = ChildProcess.Tools("register-pause", db.Location, calc);
+        Task<RoundComparison> other;
+        using var waiting = ReviewRegister.Open(db.Location);
         try
         {
             string? line = probe.StandardOutput.ReadLine(); // printed after the review row is written, before its findings
-            if (line is null) throw new Shouldly.ShouldAssertException("the probe ended early: " + probe.StandardError.ReadToEnd());
+            if (line is null) throw new ShouldAssertException("the probe ended early: " + probe.StandardError.ReadToEnd());
             line.ShouldStartWith("in-transaction ");
-            // Inside the transaction the probe holds the write lock: another writer cannot start one.
-            using var other = new SqliteConnection(new SqliteConnectionStringBuilder { DataSource = db, Pooling = false, DefaultTimeout = 1 }.ToString());
-            other.Open();
-            using var cmd = other.CreateCommand();
-            cmd.CommandText = "BEGIN IMMEDIATE";
-            Should.Throw<SqliteException>(() => cmd.ExecuteNonQuery()).SqliteErrorCode.ShouldBe(5); // SQLITE_BUSY
+            db.Scalar("SELECT count(*) FROM reviews").ShouldBe(1, "a review being written is not seen by others");
+            // Another writer of the same reference waits for the probe: SQLite's write lock, or the probe's claim on round 2.
+            other = Task.Run(() => waiting.Record(review, "PAUSED", "calc.csv", "sha256:after"));
+            (await Task.WhenAny(other, Task.Delay(700))).ShouldNotBe(other);
         }
         finally
         {
@@ -112,70 +155,60 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
         }
         probe.WaitForExit(10_000).ShouldBeTrue();
 
-        Count(db, "SELECT count(*) FROM reviews").ShouldBe(1);
-        using var after = ReviewRegister.Open(db);
-        after.Check().ShouldBeEmpty();
-        var next = after.Record(new ReviewJob().Review(calc, Options).Review!, "PAUSED", "calc.csv", "sha256:after");
+        var next = await other;
         next.Review.Round.ShouldBe(2, "the killed review took no round");
-        after.Reviews().Count.ShouldBe(2);
+        db.Scalar("SELECT count(*) FROM reviews").ShouldBe(2);
+        db.Scalar("SELECT count(*) FROM reviews WHERE input_hash = 'sha256:paused'").ShouldBe(0);
+        waiting.Check().ShouldBeEmpty();
+        waiting.Findings(next.Review.Id).Count.ShouldBe(next.Review.FindingCount);
     }
 
-    [Fact]
-    public void AScreenKilledMidBatch_LeavesAConsistentRegister_AndTheNextScreenCompletesIt()
+    [Theory]
+    [InlineData(RegisterKind.SqliteFile)]
+    [PostgresData]
+    public void AScreenKilledMidBatch_LeavesAConsistentRegister_AndTheNextScreenCompletesIt(RegisterKind kind)
     {
         using var batch = new GeneratedBatch(new BatchPlan(60, 10, 10, 5, 5, 0), seed: 31);
-        using var screen = ChildProcess.Cli("screen", batch.Folder, "--out", batch.Out, "--register", batch.Register, "-q", "--jobs", "1");
+        using var db = TestRegister.Create(kind, batch.Root, "crosscheck-register.db");
+        using var screen = ChildProcess.Cli("screen", batch.Folder, "--out", batch.Out, "--register", db.Location, "-q", "--jobs", "1");
         var clock = Stopwatch.StartNew();
-        SqliteConnection? reader = null;
         try
         {
-            // Kill it as soon as it has recorded a few reviews: the register phase is short, so poll on an open connection.
+            // Kill it as soon as it has recorded a few reviews: the register phase is short, so poll often.
             while (!screen.HasExited && clock.Elapsed < TimeSpan.FromSeconds(120))
             {
-                if (reader is null && File.Exists(batch.Register))
+                long recorded;
+                try
                 {
-                    reader = new SqliteConnection(new SqliteConnectionStringBuilder { DataSource = batch.Register, Mode = SqliteOpenMode.ReadOnly, Pooling = false }.ToString());
-                    reader.Open();
+                    recorded = db.Scalar("SELECT count(*) FROM reviews");
                 }
-                if (reader is not null)
+                catch (Exception ex) when (ex is Microsoft.Data.Sqlite.SqliteException or Npgsql.NpgsqlException)
                 {
-                    using var cmd = reader.CreateCommand();
-                    cmd.CommandText = "SELECT count(*) FROM reviews";
-                    try
-                    {
-                        if ((long)cmd.ExecuteScalar()! >= 3) break;
-                    }
-                    catch (SqliteException)
-                    {
-                        Thread.Sleep(1); // created, but its schema not yet committed
-                    }
+                    recorded = 0; // not created yet
                 }
-                else
-                {
-                    Thread.Sleep(1);
-                }
+                if (recorded >= 3) break;
+                Thread.Sleep(1);
             }
         }
         finally
         {
             if (!screen.HasExited) screen.Kill(entireProcessTree: true);
-            reader?.Dispose();
         }
         screen.WaitForExit(10_000).ShouldBeTrue();
         screen.ExitCode.ShouldNotBeInRange(0, 3, "the screen was killed before it finished");
 
-        using (var r = ReviewRegister.Open(batch.Register))
+        using (var r = ReviewRegister.Open(db.Location))
         {
             r.Check().ShouldBeEmpty();
             var recorded = r.Reviews();
             // Usually part-way through the register phase; under heavy load it may have recorded all 90 before the kill.
-            log.WriteLine($"killed after {clock.ElapsedMilliseconds} ms with {recorded.Count} of 90 reviews recorded (exit code {screen.ExitCode})");
+            log.WriteLine($"{kind}: killed after {clock.ElapsedMilliseconds} ms with {recorded.Count} of 90 reviews recorded (exit code {screen.ExitCode})");
             foreach (var review in recorded) r.Findings(review.Id).Count.ShouldBe(review.FindingCount);
         }
 
-        var rerun = ChildProcess.Finish(ChildProcess.Cli("screen", batch.Folder, "--out", batch.Out, "--register", batch.Register, "-q"));
+        var rerun = ChildProcess.Finish(ChildProcess.Cli("screen", batch.Folder, "--out", batch.Out, "--register", db.Location, "-q"));
         rerun.Code.ShouldBe(1, rerun.Err + rerun.Out);
-        using var final = ReviewRegister.Open(batch.Register);
+        using var final = ReviewRegister.Open(db.Location);
         final.Check().ShouldBeEmpty();
         // Every submission is now recorded; the ones the killed screen had recorded are repeats of their round 1.
         final.References().Count.ShouldBe(90);

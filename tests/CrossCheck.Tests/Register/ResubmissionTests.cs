@@ -55,11 +55,14 @@ public class ResubmissionTests
     private static ReviewResult ReviewOf(string path) =>
         new ReviewJob().Review(path, new ReviewOptions(Reviewer: "E. Rounds", Date: new DateOnly(2026, 12, 1))).Review!;
 
-    [Fact]
-    public void Rounds_ClosedPersistingAndNewComments_AreTheOnesFixedKeptAndAdded()
+    [Theory]
+    [InlineData(RegisterKind.SqliteFile)]
+    [PostgresData]
+    public void Rounds_ClosedPersistingAndNewComments_AreTheOnesFixedKeptAndAdded(RegisterKind kind)
     {
         using var t = new TempSubmission();
-        using var register = ReviewRegister.Open(Path.Combine(t.Folder, "reg.db"));
+        using var db = TestRegister.Create(kind, t.Folder);
+        using var register = ReviewRegister.Open(db.Location);
         string calc = Path.Combine(t.Folder, "calc.csv");
         RoundComparison Record(string text)
         {
@@ -107,11 +110,14 @@ public class ResubmissionTests
         register.Check().ShouldBeEmpty();
     }
 
-    [Fact]
-    public void ReviewCommand_WithARegister_MemoJsonAndHistoryShowTheRounds()
+    [Theory]
+    [InlineData(RegisterKind.SqliteFile)]
+    [PostgresData]
+    public void ReviewCommand_WithARegister_MemoJsonAndHistoryShowTheRounds(RegisterKind kind)
     {
         using var t = new TempSubmission();
-        string db = Path.Combine(t.Folder, "reg.db");
+        using var register = TestRegister.Create(kind, t.Folder);
+        string db = register.Location;
         string calc = Path.Combine(t.Folder, "calc.csv");
         string memo = Path.Combine(t.Folder, "memo.md");
         string[] common = ["--register", db, "--reviewer", "E. Rounds", "--date", "2026-12-01"];
@@ -178,15 +184,19 @@ public class ResubmissionTests
         CsvRecords.Parse(findings.Out).Count(r => r["comment_id"] == "EM-1-AB").ShouldBe(4);
         var check = CliRunner.Run("register", "check", "--register", db);
         check.ExitCode.ShouldBe(ExitCodes.Concur);
-        check.Out.ShouldContain("sound (schema version 1, 4 reviews)");
+        check.Out.ShouldContain($"sound (schema version {ReviewRegister.LatestSchemaVersion}, 4 reviews)");
+        check.Out.ShouldContain($"4 reviews of 1 references, {CsvRecords.Parse(findings.Out).Count} findings; contents sha256:");
     }
 
-    [Fact]
-    public void Screen_ResubmittedFolder_IndexAndSummaryShowTheRounds()
+    [Theory]
+    [InlineData(RegisterKind.SqliteFile)]
+    [PostgresData]
+    public void Screen_ResubmittedFolder_IndexAndSummaryShowTheRounds(RegisterKind kind)
     {
         using var t = new TempSubmission();
         string subs = Path.Combine(t.Folder, "inbox");
-        string db = Path.Combine(t.Folder, "reg.db");
+        using var register = TestRegister.Create(kind, t.Folder);
+        string db = register.Location;
         Directory.CreateDirectory(subs);
         File.WriteAllText(Path.Combine(subs, "loading-bay.csv"), Round1);
         CliRunner.Run("screen", subs, "--out", Path.Combine(t.Folder, "out1"), "--register", db, "-q").ExitCode.ShouldBe(ExitCodes.Comments);

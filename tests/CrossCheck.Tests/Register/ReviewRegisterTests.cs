@@ -41,14 +41,17 @@ public class ReviewRegisterTests
         Pragma<long>(path, "application_id").ShouldBe(0x43434B52);
     }
 
-    [Fact]
-    public void Record_KeepsEveryFieldAndEveryFindingWithItsCommentId()
+    [Theory]
+    [InlineData(RegisterKind.SqliteFile)]
+    [PostgresData]
+    public void Record_KeepsEveryFieldAndEveryFindingWithItsCommentId(RegisterKind kind)
     {
         using var t = new TempSubmission();
+        using var db = TestRegister.Create(kind, t.Folder);
         var review = Review(Wrong);
         review.Verdict.ShouldBe(Verdict.Revise);
         review.Comments.Count.ShouldBeGreaterThan(0);
-        using var r = ReviewRegister.Open(Path.Combine(t.Folder, "reg.db"));
+        using var r = ReviewRegister.Open(db.Location);
         var c = r.Record(review, "PC-1", "calc.csv", "sha256:abc");
 
         var row = r.Reviews().ShouldHaveSingleItem();
@@ -81,11 +84,14 @@ public class ReviewRegisterTests
         c.New.Select(x => x.Id).ShouldBe(review.Comments.Select(x => x.Id));
     }
 
-    [Fact]
-    public void SameFilesAgain_AreARepeatOfTheRound_ChangedFiles_ANewRound()
+    [Theory]
+    [InlineData(RegisterKind.SqliteFile)]
+    [PostgresData]
+    public void SameFilesAgain_AreARepeatOfTheRound_ChangedFiles_ANewRound(RegisterKind kind)
     {
         using var t = new TempSubmission();
-        using var r = ReviewRegister.Open(Path.Combine(t.Folder, "reg.db"));
+        using var db = TestRegister.Create(kind, t.Folder);
+        using var r = ReviewRegister.Open(db.Location);
         r.Record(Review(Wrong), "PC-1", "calc.csv", "sha256:1").Review.Round.ShouldBe(1);
         var again = r.Record(Review(Wrong), "PC-1", "calc.csv", "sha256:1");
         again.Review.Round.ShouldBe(1);
@@ -101,11 +107,14 @@ public class ReviewRegisterTests
         r.References().Select(x => (x.Reference, x.Rounds, x.Reviews)).ShouldBe([("PC-1", 2, 3), ("PC-2", 2, 2)]);
     }
 
-    [Fact]
-    public void Export_GivesOneRowPerReview_AndOnePerFinding()
+    [Theory]
+    [InlineData(RegisterKind.SqliteFile)]
+    [PostgresData]
+    public void Export_GivesOneRowPerReview_AndOnePerFinding(RegisterKind kind)
     {
         using var t = new TempSubmission();
-        using var r = ReviewRegister.Open(Path.Combine(t.Folder, "reg.db"));
+        using var db = TestRegister.Create(kind, t.Folder);
+        using var r = ReviewRegister.Open(db.Location);
         var wrong = Review(Wrong);
         r.Record(wrong, "PC-1", "calc.csv", "sha256:1");
         r.Record(Review(Right), "PC-1", "calc.csv", "sha256:2");
@@ -142,40 +151,87 @@ public class ReviewRegisterTests
         Should.Throw<RegisterException>(() => ReviewRegister.Open(Path.Combine(t.Folder, "no", "such", "reg.db"))).Message.ShouldContain("does not exist");
     }
 
-    [Fact]
-    public void Migrations_RunOnceInOrder_KeepTheData_AndANewerRegisterIsRefused()
+    [Theory]
+    [InlineData(RegisterKind.SqliteFile)]
+    [PostgresData]
+    public void Migrations_RunOnceInOrder_KeepTheData_AndANewerRegisterIsRefused(RegisterKind kind)
     {
         using var t = new TempSubmission();
-        string path = Path.Combine(t.Folder, "reg.db");
+        using var db = TestRegister.Create(kind, t.Folder);
         var v1 = RegisterSchema.Migrations;
         var v2 = v1.Append(new Migration(v1[^1].Version + 1, "a note per review", "ALTER TABLE reviews ADD COLUMN note TEXT")).ToList();
-        using (var r = ReviewRegister.Open(path, v1, TimeSpan.FromSeconds(5)))
+        using (var r = ReviewRegister.Open(db.Location, v1, TimeSpan.FromSeconds(5)))
             r.Record(Review(Wrong), "PC-1", "calc.csv", "sha256:1");
-        using (var r = ReviewRegister.Open(path, v2, TimeSpan.FromSeconds(5)))
+        using (var r = ReviewRegister.Open(db.Location, v2, TimeSpan.FromSeconds(5)))
         {
             r.SchemaVersion.ShouldBe(v2[^1].Version);
             r.Reviews().ShouldHaveSingleItem().Reference.ShouldBe("PC-1");
             r.Record(Review(Right), "PC-1", "calc.csv", "sha256:2").Review.Round.ShouldBe(2);
         }
-        using (var r = ReviewRegister.Open(path, v2, TimeSpan.FromSeconds(5)))
+        using (var r = ReviewRegister.Open(db.Location, v2, TimeSpan.FromSeconds(5)))
             r.Reviews().Count.ShouldBe(2); // opening again applies nothing twice (ALTER would fail)
-        Pragma<long>(path, "user_version").ShouldBe(v2[^1].Version);
-        Should.Throw<RegisterException>(() => ReviewRegister.Open(path)).Message.ShouldContain("written by a newer CrossCheck");
+        db.Scalar("SELECT count(note) FROM reviews").ShouldBe(0, "the column the extra migration added is there");
+        long before = db.Scalar("SELECT count(*) FROM reviews");
+        var refused = Should.Throw<RegisterException>(() => ReviewRegister.Open(db.Location));
+        refused.Message.ShouldContain("written by a newer CrossCheck");
+        refused.Message.ShouldContain("Nothing was written");
+        db.Scalar("SELECT count(*) FROM reviews").ShouldBe(before);
     }
 
-    [Fact]
-    public void AFailingMigration_LeavesTheRegisterAsItWas()
+    /// <summary>A register made by the first release (schema version 1, before reviews were numbered within their round) opens and keeps counting.</summary>
+    [Theory]
+    [InlineData(RegisterKind.SqliteFile)]
+    [PostgresData]
+    public void AVersion1Register_IsUpdated_ItsReviewsNumberedWithinTheirRounds(RegisterKind kind)
     {
         using var t = new TempSubmission();
-        string path = Path.Combine(t.Folder, "reg.db");
-        using (var r = ReviewRegister.Open(path)) r.Record(Review(Wrong), "PC-1", "calc.csv", "sha256:1");
+        using var db = TestRegister.Create(kind, t.Folder);
+        var v1 = RegisterSchema.Migrations.Take(1).ToList();
+        using (var r = ReviewRegister.Open(db.Location, v1, TimeSpan.FromSeconds(5)))
+        {
+            // The first release's insert, by hand: two reviews of round 1 (the same files twice), one of round 2.
+            foreach (var (round, hash) in new[] { (1, "sha256:a"), (1, "sha256:a"), (2, "sha256:b") })
+                r.Write(tx =>
+                {
+                    tx.Execute("""
+                        INSERT INTO reviews (reference, round, submission, source, review_date, recorded_at, tool_version, abs_tolerance, rel_tolerance,
+                            minor_tolerance, moment_unit, input_hash, verdict, ends_agree, ends_minor, ends_discrepant, ends_missing, ends_unmatched,
+                            major_flags, minor_flags, finding_count)
+                        VALUES ('OLD-1', @round, 'calc.csv', 'calc.csv', '2026-11-02', '2026-11-02T09:00:00.000Z', '0.9', 0.1, 0.01, 0.05, 'kN·m',
+                            @hash, 'concur', 4, 0, 0, 0, 0, 0, 0, 0)
+                        """, ("@round", round), ("@hash", hash));
+                    return 0;
+                });
+        }
+        if (kind == RegisterKind.SqliteFile) Pragma<long>(db.Location, "user_version").ShouldBe(1);
+        using var updated = ReviewRegister.Open(db.Location);
+        updated.SchemaVersion.ShouldBe(ReviewRegister.LatestSchemaVersion);
+        updated.Check().ShouldBeEmpty();
+        db.Scalar("SELECT count(*) FROM reviews WHERE round = 1 AND round_review = 2").ShouldBe(1);
+        updated.History("OLD-1").Select(h => (h.Review.Round, h.Repeat)).ShouldBe([(1, false), (1, true), (2, false)]);
+        var again = updated.Record(Review(Right), "OLD-1", "calc.csv", "sha256:b");
+        (again.Review.Round, again.Repeat, again.Previous!.Round).ShouldBe((2, true, 1));
+        updated.Record(Review(Right), "OLD-1", "calc.csv", "sha256:c").Review.Round.ShouldBe(3);
+        updated.Check().ShouldBeEmpty();
+    }
+
+    [Theory]
+    [InlineData(RegisterKind.SqliteFile)]
+    [PostgresData]
+    public void AFailingMigration_LeavesTheRegisterAsItWas(RegisterKind kind)
+    {
+        using var t = new TempSubmission();
+        using var db = TestRegister.Create(kind, t.Folder);
+        using (var r = ReviewRegister.Open(db.Location)) r.Record(Review(Wrong), "PC-1", "calc.csv", "sha256:1");
         var broken = RegisterSchema.Migrations
-            .Append(new Migration(RegisterSchema.Migrations[^1].Version + 1, "two steps, the second wrong", "CREATE TABLE extra (x); ALTER TABLE nowhere ADD COLUMN y"))
+            .Append(new Migration(RegisterSchema.Migrations[^1].Version + 1, "two steps, the second wrong",
+                "CREATE TABLE extra (x integer); ALTER TABLE nowhere ADD COLUMN y integer"))
             .ToList();
-        Should.Throw<RegisterException>(() => ReviewRegister.Open(path, broken, TimeSpan.FromSeconds(5))).Message.ShouldContain("updating the schema");
-        Pragma<long>(path, "user_version").ShouldBe(ReviewRegister.LatestSchemaVersion);
-        using var again = ReviewRegister.Open(path);
+        Should.Throw<RegisterException>(() => ReviewRegister.Open(db.Location, broken, TimeSpan.FromSeconds(5))).Message.ShouldContain("updating the schema");
+        using var again = ReviewRegister.Open(db.Location);
+        again.SchemaVersion.ShouldBe(ReviewRegister.LatestSchemaVersion);
         again.Reviews().Count.ShouldBe(1);
         again.Check().ShouldBeEmpty();
+        Should.Throw<Exception>(() => db.Scalar("SELECT count(*) FROM extra")); // the first step was rolled back with the second
     }
 }
