@@ -12,11 +12,12 @@ using CrossCheck.TestTools;
 //   time-screen N [SEED]                        screening throughput, one at a time and on every core
 //   register-pause REGISTER SUBMISSION          record a review and stop inside its transaction (to be killed)
 //   register-write REGISTER SUBMISSION N TAG    record N reviews as N rounds of reference TAG
+//   register-stats REGISTER                      reviews, references, rounds, duplicates and check problems (for the benchmark)
 // REGISTER is a file path or a PostgreSQL URI or connection string.
 var inv = CultureInfo.InvariantCulture;
 if (args.Length == 0)
 {
-    Console.Error.WriteLine("usage: generate DIR N [SEED] | time-screen N [SEED] | register-pause REGISTER SUBMISSION | register-write REGISTER SUBMISSION N TAG");
+    Console.Error.WriteLine("usage: generate DIR N [SEED] | time-screen N [SEED] | register-pause REGISTER SUBMISSION | register-write REGISTER SUBMISSION N TAG | register-stats REGISTER");
     return 2;
 }
 switch (args[0])
@@ -48,13 +49,33 @@ switch (args[0])
         var review = ReviewOf(args[2]);
         int n = int.Parse(args[3], inv);
         using var register = ReviewRegister.Open(args[1]);
+        var clock = Stopwatch.StartNew();
         for (int i = 0; i < n; i++) register.Record(review, args[4], SubmissionNames.DisplayName(args[2]), $"{args[4]}-{Environment.ProcessId}-{i}");
-        Console.WriteLine($"recorded {n} ({register.Retries} run again after colliding with another writer)");
+        Console.WriteLine($"recorded {n} in {clock.Elapsed.TotalSeconds.ToString("0.000", inv)} s ({register.Retries} run again after colliding with another writer)");
         return 0;
     }
+    case "register-stats" when args.Length == 2:
+        return RegisterStats(args[1]);
     default:
         Console.Error.WriteLine($"unknown or incomplete command: {string.Join(' ', args)}");
         return 2;
+}
+
+// One line the benchmark reads: what the register holds and whether any round was lost or taken twice.
+static int RegisterStats(string location)
+{
+    using var register = ReviewRegister.OpenExisting(RegisterLocation.Parse(location));
+    var reviews = register.Reviews();
+    var problems = register.Check();
+    var byReference = reviews.GroupBy(r => r.Reference, StringComparer.Ordinal).ToList();
+    // A round taken twice: two reviews of one round with different input files. A lost round: a gap in 1..n.
+    int doubled = reviews.GroupBy(r => (r.Reference, r.Round)).Count(g => g.Select(r => r.InputHash).Distinct(StringComparer.Ordinal).Count() > 1);
+    int gaps = byReference.Count(g => !g.Select(r => r.Round).Distinct().Order().SequenceEqual(Enumerable.Range(1, g.Select(r => r.Round).Distinct().Count())));
+    var rounds = byReference.Select(g => g.Max(r => r.Round)).ToList();
+    Console.WriteLine($"reviews {reviews.Count} references {byReference.Count} rounds-per-reference {(rounds.Count == 0 ? 0 : rounds.Min())}..{(rounds.Count == 0 ? 0 : rounds.Max())} " +
+                      $"doubled-rounds {doubled} references-with-gaps {gaps} check-problems {problems.Count}");
+    foreach (var p in problems.Take(5)) Console.WriteLine("  " + p);
+    return problems.Count == 0 && doubled == 0 && gaps == 0 ? 0 : 1;
 }
 
 static ReviewResult ReviewOf(string path)

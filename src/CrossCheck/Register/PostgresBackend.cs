@@ -34,6 +34,9 @@ internal sealed class PostgresBackend : RegisterBackend
 
     public override DbTransaction BeginWrite(DbConnection connection) => ((NpgsqlConnection)connection).BeginTransaction(IsolationLevel.RepeatableRead);
 
+    // READ COMMITTED: the statements after the advisory lock see a schema another process committed while this one waited.
+    public override DbTransaction BeginSchema(DbConnection connection) => ((NpgsqlConnection)connection).BeginTransaction(IsolationLevel.ReadCommitted);
+
     public override DbTransaction BeginRead(DbConnection connection) => ((NpgsqlConnection)connection).BeginTransaction(IsolationLevel.RepeatableRead);
 
     public override bool IsWriteClash(Exception ex) => ex is PostgresException p && p.SqlState switch

@@ -40,6 +40,9 @@ internal abstract class RegisterBackend : IDisposable
     /// <summary>A transaction that writes: it holds its snapshot, and a clash with another writer shows as <see cref="IsWriteClash"/>.</summary>
     public abstract DbTransaction BeginWrite(DbConnection connection);
 
+    /// <summary>The transaction that brings the schema up to date (after <see cref="LockSchema"/>, it must see what others committed).</summary>
+    public virtual DbTransaction BeginSchema(DbConnection connection) => BeginWrite(connection);
+
     /// <summary>A transaction that only reads: one consistent snapshot, no lock that would hold up a writer.</summary>
     public abstract DbTransaction BeginRead(DbConnection connection);
 

@@ -15,7 +15,7 @@ internal static class SchemaMigrator
     public static int Migrate(RegisterBackend backend, DbConnection connection, IReadOnlyList<Migration> migrations, bool create)
     {
         int latest = RegisterSchema.Latest(migrations);
-        using var tx = new RegisterTx(connection, backend.BeginWrite(connection));
+        using var tx = new RegisterTx(connection, backend.BeginSchema(connection));
         backend.LockSchema(tx);
         var state = backend.ReadSchema(tx);
         if (state.Foreign is not null) throw new RegisterException(state.Foreign);

@@ -17,19 +17,39 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
 {
     private static readonly ReviewOptions Options = new(Reviewer: "F. Parallel", Date: new DateOnly(2026, 12, 1));
 
-    /// <summary>A wrong submission, so that every recorded review carries findings.</summary>
-    private static string WrongSubmission(TempSubmission t) =>
-        t.Write("calc.csv", SampleText.With(claims: "[end-moments]\ncase,member,at,moment\n1,AB,A,-60\n1,AB,B,0"));
+    /// <summary>A folder with a wrong submission (so that every recorded review carries findings), its review, and a register.</summary>
+    private sealed class Scene : IDisposable
+    {
+        private readonly TempSubmission _t = new();
+
+        public Scene(RegisterKind kind)
+        {
+            Calc = _t.Write("calc.csv", SampleText.With(claims: "[end-moments]\ncase,member,at,moment\n1,AB,A,-60\n1,AB,B,0"));
+            Review = new ReviewJob().Review(Calc, Options).Review!;
+            Db = TestRegister.Create(kind, _t.Folder);
+            using (ReviewRegister.Open(Db.Location)) { }
+        }
+
+        public string Calc { get; }
+
+        public ReviewResult Review { get; }
+
+        public TestRegister Db { get; }
+
+        public void Dispose()
+        {
+            Db.Dispose();
+            _t.Dispose();
+        }
+    }
 
     [Theory]
     [InlineData(RegisterKind.SqliteFile)]
     [PostgresData]
     public async Task TwoConnectionsInOneProcess_RecordingTheSameReference_GiveUniqueContiguousRounds(RegisterKind kind)
     {
-        using var t = new TempSubmission();
-        using var db = TestRegister.Create(kind, t.Folder);
-        var review = new ReviewJob().Review(WrongSubmission(t), Options).Review!;
-        using (ReviewRegister.Open(db.Location)) { }
+        using var scene = new Scene(kind);
+        var (db, review) = (scene.Db, scene.Review);
         var tasks = Enumerable.Range(0, 2).Select(w => Task.Run(() =>
         {
             using var r = ReviewRegister.Open(db.Location);
@@ -53,9 +73,8 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
     [PostgresData]
     public async Task AWriterThatWouldTakeTheSameRound_WaitsAndTakesTheNext(RegisterKind kind)
     {
-        using var t = new TempSubmission();
-        using var db = TestRegister.Create(kind, t.Folder);
-        var review = new ReviewJob().Review(WrongSubmission(t), Options).Review!;
+        using var scene = new Scene(kind);
+        var (db, review) = (scene.Db, scene.Review);
         using var first = ReviewRegister.Open(db.Location);
         using var second = ReviewRegister.Open(db.Location);
         first.Record(review, "RACE", "calc.csv", "sha256:r1").Review.Round.ShouldBe(1);
@@ -80,15 +99,33 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
         first.Check().ShouldBeEmpty();
     }
 
+    /// <summary>Screens started together on a new register: one creates the tables, the others wait and find them made.</summary>
+    [Theory]
+    [InlineData(RegisterKind.SqliteFile)]
+    [PostgresData]
+    public async Task SixWritersOpeningANewRegisterAtOnce_AllOpenIt(RegisterKind kind)
+    {
+        using var t = new TempSubmission();
+        using var db = TestRegister.Create(kind, t.Folder);
+        using var go = new ManualResetEventSlim();
+        var opens = Enumerable.Range(0, 6).Select(_ => Task.Run(() =>
+        {
+            go.Wait();
+            using var r = ReviewRegister.Open(db.Location);
+            return r.SchemaVersion;
+        })).ToArray();
+        go.Set();
+        (await Task.WhenAll(opens)).ShouldAllBe(v => v == ReviewRegister.LatestSchemaVersion);
+        db.Scalar("SELECT count(*) FROM reviews").ShouldBe(0);
+    }
+
     [Theory]
     [InlineData(RegisterKind.SqliteFile)]
     [PostgresData]
     public void FourProcesses_WritingOneReferenceAtOnce_AllSucceed_WithUniqueRounds(RegisterKind kind)
     {
-        using var t = new TempSubmission();
-        using var db = TestRegister.Create(kind, t.Folder);
-        string calc = WrongSubmission(t);
-        using (ReviewRegister.Open(db.Location)) { }
+        using var scene = new Scene(kind);
+        var (db, calc) = (scene.Db, scene.Calc);
         var writers = Enumerable.Range(0, 4).Select(_ => ChildProcess.Tools("register-write", db.Location, calc, "20", "SHARED")).ToList();
         foreach (var w in writers)
         {
@@ -130,10 +167,8 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
     [PostgresData]
     public async Task AWriterKilledInsideItsTransaction_LeavesNoHalfReview(RegisterKind kind)
     {
-        using var t = new TempSubmission();
-        using var db = TestRegister.Create(kind, t.Folder);
-        string calc = WrongSubmission(t);
-        var review = new ReviewJob().Review(calc, Options).Review!;
+        using var scene = new Scene(kind);
+        var (db, calc, review) = (scene.Db, scene.Calc, scene.Review);
         using (var r = ReviewRegister.Open(db.Location)) r.Record(review, "PAUSED", "calc.csv", "sha256:before");
 
         using var probe = ChildProcess.Tools("register-pause", db.Location, calc);

@@ -7,11 +7,14 @@ public static class CliRunner
 {
     public sealed record Outcome(int ExitCode, string Out, string Err);
 
-    public static Outcome Run(params string[] args)
+    public static Outcome Run(params string[] args) => RunWith(null, args);
+
+    /// <summary>Runs with an environment of its own (<paramref name="environment"/> maps variable names to values; others are unset).</summary>
+    public static Outcome RunWith(IReadOnlyDictionary<string, string>? environment, params string[] args)
     {
         var output = new StringWriter();
         var error = new StringWriter();
-        int code = App.Run(args, output, error);
+        int code = App.Run(args, output, error, environment is null ? null : name => environment.GetValueOrDefault(name));
         return new Outcome(code, output.ToString(), error.ToString());
     }
 
