@@ -25,11 +25,19 @@ internal abstract class RegisterBackend : IDisposable
     /// <summary>The register as it is shown: the full path of a file, or the host and database of a server.</summary>
     public abstract string Name { get; }
 
-    public static RegisterBackend For(RegisterLocation location, TimeSpan busyTimeout) => location.Kind switch
+    /// <exception cref="RegisterException">The driver refuses the connection's settings.</exception>
+    public static RegisterBackend For(RegisterLocation location, TimeSpan busyTimeout)
     {
-        RegisterKind.PostgreSql => new PostgresBackend(location),
-        _ => new SqliteBackend(location, busyTimeout),
-    };
+        if (location.Kind != RegisterKind.PostgreSql) return new SqliteBackend(location, busyTimeout);
+        try
+        {
+            return new PostgresBackend(location);
+        }
+        catch (Exception ex) when (ex is ArgumentException or InvalidOperationException or NotSupportedException)
+        {
+            throw new RegisterException(location.Redact($"{location.Display}: the connection's settings cannot be used: {ex.Message}"), ex);
+        }
+    }
 
     /// <summary>Refuses, before connecting, a register that reading must not create (a file that is not there).</summary>
     public abstract void RequireExisting();

@@ -83,7 +83,7 @@ public sealed class RegisterLocation
         {
             csb = new NpgsqlConnectionStringBuilder(text);
         }
-        catch (ArgumentException)
+        catch (Exception ex) when (ex is ArgumentException or FormatException or InvalidCastException or OverflowException)
         {
             // The driver's message may quote the text, password included: name the keys instead.
             var keys = text.Split(';', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries)

@@ -66,6 +66,6 @@ for backend in postgresql sqlite; do
     awk -v b="$backend" -v t="$test" -v r="$reviews" -v ms="$ms" -v x="$extra" 'BEGIN {
       printf "%-10s %-8s %5d reviews in %6.2f s = %6.1f reviews/s%s\n", b, t, r, ms / 1000, r / (ms / 1000), x }'
     echo "           $stats" | head -3
-    [ "$backend" = postgresql ] && pg dropdb "$db"
+    if [ "$backend" = postgresql ]; then pg dropdb "$db"; fi
   done
 done

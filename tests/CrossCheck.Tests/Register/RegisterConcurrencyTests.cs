@@ -127,6 +127,19 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
         using var scene = new Scene(kind);
         var (db, calc) = (scene.Db, scene.Calc);
         var writers = Enumerable.Range(0, 4).Select(_ => ChildProcess.Tools("register-write", db.Location, calc, "20", "SHARED")).ToList();
+        // While they write, every read sees whole reviews and rounds without gaps (one snapshot per read).
+        using (var reader = ReviewRegister.Open(db.Location))
+        {
+            int reads = 0;
+            while (writers.Any(w => !w.HasExited) && reads < 2000)
+            {
+                var seen = reader.History("SHARED");
+                seen.Select(h => h.Review.Round).ShouldBe(Enumerable.Range(1, seen.Count), $"read {reads}");
+                reader.Check().ShouldBeEmpty();
+                reads++;
+            }
+            log.WriteLine($"{kind}: {reads} consistent reads while the writers ran");
+        }
         foreach (var w in writers)
         {
             var (code, output, err) = ChildProcess.Finish(w);
