@@ -10,7 +10,7 @@ public sealed record RegisterFinding(string CommentId, string Kind, string Sever
 /// <summary>A reference in the register with its latest review.</summary>
 public sealed record RegisterReference(string Reference, int Rounds, int Reviews, RegisterReview Latest);
 
-/// <summary>A problem with the register file itself (not a CrossCheck register, written by a newer version, locked too long, ...).</summary>
+/// <summary>A problem with the register itself (not a CrossCheck register, written by a newer version, locked too long, a server that cannot be reached or refuses the user, ...), as a sentence for the user that names no password.</summary>
 public sealed class RegisterException : Exception
 {
     public RegisterException() { }
