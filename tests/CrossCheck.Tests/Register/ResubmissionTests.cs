@@ -159,7 +159,7 @@ public class ResubmissionTests
 
         var history = CliRunner.Run("history", "KY-LB-02", "--register", db);
         history.ExitCode.ShouldBe(ExitCodes.Concur, history.Err);
-        history.Out.ShouldContain("KY-LB-02: 2 round(s), 4 review(s)");
+        history.Out.ShouldContain("KY-LB-02: 2 rounds, 4 reviews");
         history.Out.ShouldContain("round 2 against round 1: closed EM-2-BC-B; persisting EM-1-AB; new EM-3-CD");
         history.Out.ShouldContain("2 (repeat)");
         CliRunner.Run("history", "--register", db).Out.ShouldContain("KY-LB-02");
