@@ -136,7 +136,7 @@ public sealed class ReviewJob(TimeProvider? time = null)
                 ReviewFailure.NotAnalysable, problem.Message);
         }
         var review = ReviewEngine.Review(s, analysis, options, warnings.Select(w => w.ToString()));
-        if (options.ShowWorking) review = review with { Working = ReferenceWorking.Compute(s) };
+        if (options.ShowWorking) review = review with { Working = ReferenceWorking.Compute(s, review) };
         return new ReviewOutcome(path, review, [], warnings);
     }
 
