@@ -17,7 +17,7 @@ public class WorkingTableAuditTests
     private static readonly double[] L = [5, 7.5, 4];
     private static readonly (double, double)[] Fem = [Udl(20, 5), Sum(Udl(12, 7.5), Point(60, 3, 7.5)), Point(45, 1.5, 4)];
 
-    private const string Beam = """
+    internal const string Beam = """
         [info]
         key,value
         force unit,kN
