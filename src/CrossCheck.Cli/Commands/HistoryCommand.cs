@@ -1,5 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
+using CrossCheck.Common;
 using CrossCheck.Jobs;
 using CrossCheck.Register;
 using CrossCheck.Review;
@@ -80,7 +81,8 @@ internal static class HistoryCommand
             var refs = register.References();
             if (refs.Count == 0) { console.WriteLine("The register holds no reviews yet."); return ExitCodes.Concur; }
             var t = new Table().Border(TableBorder.Simple);
-            foreach (var h in new[] { "reference", "rounds", "reviews", "latest round", "date", "verdict", "open comments" }) t.AddColumn(h);
+            foreach (var (h, right) in new[] { ("reference", false), ("rounds", true), ("reviews", true), ("latest", true), ("date", false), ("verdict", false), ("open comments", true) })
+                t.AddColumn(right ? new TableColumn(h).RightAligned() : new TableColumn(h));
             foreach (var r in refs)
                 t.AddRow(Markup.Escape(r.Reference), N(r.Rounds), N(r.Reviews), N(r.Latest.Round), Markup.Escape(r.Latest.ReviewDate),
                     Markup.Escape(r.Latest.Verdict), N(r.Latest.FindingCount));
@@ -94,22 +96,27 @@ internal static class HistoryCommand
             io.Error.WriteLine($"crosscheck: the register {Quoted(register)} has no reviews of reference '{reference}' (run 'crosscheck history' for the list).");
             return ExitCodes.InputError;
         }
-        console.MarkupLine($"[bold]{Markup.Escape(reference)}[/]: {history.Select(h => h.Review.Round).Distinct().Count()} round(s), {history.Count} review(s)");
+        int rounds = history.Select(h => h.Review.Round).Distinct().Count();
+        console.MarkupLine($"[bold]{Markup.Escape(reference)}[/]: {Words.Count(rounds, "round")}, {Words.Count(history.Count, "review")}");
+        // Fits a 100-column terminal: short headers, one column for closed / persisting / new, the input hash shortened.
         var table = new Table().Border(TableBorder.Simple);
-        foreach (var h in new[] { "round", "revision", "date", "reviewer", "verdict", "discrepant ends", "comments", "closed", "persisting", "new", "tool", "input" })
-            table.AddColumn(h);
+        foreach (var (h, right) in new[] { ("round", false), ("rev", false), ("date", false), ("reviewer", false), ("verdict", false), ("disc", true),
+                                            ("cmts", true), ("cl/pe/new", true), ("input", false) })
+        {
+            var column = new TableColumn(h).Padding(0, 0, 1, 0);
+            table.AddColumn(right ? column.RightAligned() : column);
+        }
         foreach (var h in history)
         {
             var r = h.Review;
-            bool first = h.Previous is null;
-            table.AddRow(N(r.Round) + (h.Repeat ? " (repeat)" : ""), Markup.Escape(r.Revision ?? "—"), Markup.Escape(r.ReviewDate), Markup.Escape(r.Reviewer ?? "—"),
-                Markup.Escape(r.Verdict), N(r.EndsDiscrepant), N(r.FindingCount), first ? "—" : N(h.Closed.Count), first ? "—" : N(h.Persisting.Count),
-                first ? "—" : N(h.New.Count), Markup.Escape(r.ToolVersion), Markup.Escape(Short(r.InputHash)));
+            string changes = h.Previous is null ? "—" : $"{N(h.Closed.Count)}/{N(h.Persisting.Count)}/{N(h.New.Count)}";
+            table.AddRow(N(r.Round) + (h.Repeat ? " rpt" : ""), Markup.Escape(Cut(r.Revision ?? "—", 4)), Markup.Escape(r.ReviewDate),
+                Markup.Escape(Cut(r.Reviewer ?? "—", 14)), Markup.Escape(r.Verdict), N(r.EndsDiscrepant), N(r.FindingCount), changes, Markup.Escape(Short(r.InputHash)));
         }
         console.Write(table);
         foreach (var h in history)
         {
-            string head = $"round {h.Review.Round}{(h.Repeat ? " (repeat)" : "")}";
+            string head = $"round {h.Review.Round}{(h.Repeat ? " (repeat)" : "")}{(h.Review.ToolVersion != ToolInfo.Version ? $" (CrossCheck {h.Review.ToolVersion})" : "")}";
             if (h.Previous is null)
             {
                 console.WriteLine($"{head}: raised {Ids(h.New)}");
@@ -151,7 +158,7 @@ internal static class HistoryCommand
         }
         if (problems.Count == 0)
         {
-            io.Output.WriteLine($"{register.Path}: sound (schema version {register.SchemaVersion}, {register.Reviews().Count} reviews).");
+            io.Output.WriteLine($"{register.Path}: sound (schema version {register.SchemaVersion}, {Words.Count(register.Reviews().Count, "review")}).");
             io.Output.WriteLine($"{register.Path}: {Tally(tally)}");
             return ExitCodes.Concur;
         }
@@ -167,7 +174,7 @@ internal static class HistoryCommand
             CommandSupport.Fail(outcome.Problem, io);
             return ExitCodes.InputError;
         }
-        io.Output.WriteLine($"copied {N(outcome.Reviews)} reviews and {N(outcome.Findings)} findings from {outcome.From} to {outcome.To}.");
+        io.Output.WriteLine($"copied {Words.Count(outcome.Reviews, "review")} and {Words.Count(outcome.Findings, "finding")} from {outcome.From} to {outcome.To}.");
         io.Output.WriteLine($"  from: {Tally(outcome.FromTally!)}");
         io.Output.WriteLine($"  to:   {Tally(outcome.ToTally!)}");
         foreach (var p in outcome.Problems) io.Output.WriteLine($"  check: {p}");
@@ -181,13 +188,15 @@ internal static class HistoryCommand
     }
 
     private static string Tally(RegisterTally t) =>
-        $"{N(t.Reviews)} reviews of {N(t.References)} references, {N(t.Findings)} findings; contents {t.Digest[..23]}";
+        $"{Words.Count(t.Reviews, "review")} of {Words.Count(t.References, "reference")}, {Words.Count(t.Findings, "finding")}; contents {t.Digest[..23]}";
 
     private static string Quoted(ReviewRegister r) => r.Location.Kind == RegisterKind.SqliteFile ? $"'{r.Location.Display}'" : r.Path;
 
     private static string Ids(IReadOnlyList<ComparedComment> list) => list.Count == 0 ? "none" : string.Join(", ", list.Select(c => c.Id));
 
-    private static string Short(string hash) => hash.StartsWith("sha256:", StringComparison.Ordinal) && hash.Length > 19 ? hash[7..19] : hash;
+    private static string Short(string hash) => hash.StartsWith("sha256:", StringComparison.Ordinal) && hash.Length > 15 ? hash[7..15] : hash;
+
+    private static string Cut(string text, int max) => text.Length <= max ? text : text[..(max - 1)] + "…";
 
     private static string N(int v) => v.ToString(CultureInfo.InvariantCulture);
 }

@@ -1,3 +1,5 @@
+using CrossCheck.Common;
+
 namespace CrossCheck.Register;
 
 /// <summary>
@@ -22,7 +24,7 @@ internal static class RegisterCopy
         {
             long existing = dst.Long("SELECT count(*) FROM reviews");
             if (existing > 0)
-                throw new RegisterException($"register {to.Path} already holds {existing} review(s); copy into a new or empty register.");
+                throw new RegisterException($"register {to.Path} already holds {Words.Count((int)existing, "review")}; copy into a new or empty register.");
             int reviews = 0, findings = 0;
             string names = string.Join(", ", Columns.Split(", ").Select(c => "@" + c));
             using (var insert = dst.Command($"INSERT INTO reviews ({Columns}) VALUES ({names})"))

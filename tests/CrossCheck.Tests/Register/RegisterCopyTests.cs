@@ -84,7 +84,7 @@ public class RegisterCopyTests
         CliRunner.Run(["review", CliRunner.Demo("footbridge.csv"), "--register", target.Location, "--out", Path.Combine(t.Folder, "x.md"), .. Common]);
         var r = CliRunner.Run("register", "copy", file, target.Location);
         r.ExitCode.ShouldBe(ExitCodes.InputError);
-        r.Err.ShouldContain("already holds 1 review(s); copy into a new or empty register");
+        r.Err.ShouldContain("already holds 1 review; copy into a new or empty register");
         target.Scalar("SELECT count(*) FROM reviews").ShouldBe(1);
         CliRunner.Run("register", "copy", file, file).Err.ShouldContain("onto itself");
     }

@@ -57,7 +57,7 @@ public class RegisterServerTests
         review.Out.ShouldContain("register: round 1 of DEMO-FB-01 (first round, repeat review)");
         CliRunner.RunWith(env, "review", Path.Combine(subs, "footbridge.csv"), "--out", Path.Combine(t.Folder, "memo.md"), "--no-register")
             .Out.ShouldNotContain("register:");
-        CliRunner.RunWith(env, "history", "DEMO-FB-01").Out.ShouldContain("DEMO-FB-01: 1 round(s), 2 review(s)");
+        CliRunner.RunWith(env, "history", "DEMO-FB-01").Out.ShouldContain("DEMO-FB-01: 1 round, 2 reviews");
         CliRunner.RunWith(env, "register", "check").Out.ShouldContain("sound (schema version");
         CsvRecords.Parse(CliRunner.RunWith(env, "register", "export").Out).Count.ShouldBe(2);
     }

@@ -41,40 +41,32 @@ internal interface IHypothesisFamily
 }
 
 /// <summary>What every hypothesis family of one case may use.</summary>
-internal sealed class DiagnosisContext
+/// <param name="s">The submission.</param>
+/// <param name="analysis">The independent analysis of it.</param>
+/// <param name="options">The reviewer's tolerances.</param>
+/// <param name="loadCase">The load case diagnosed.</param>
+/// <param name="review">The case's review (statuses, flags, the table audit).</param>
+/// <param name="ends">The ends compared: claimed, recomputed and with a resolved end.</param>
+internal sealed class DiagnosisContext(Submission s, AnalysisResult analysis, ReviewOptions options, LoadCase loadCase, CaseReview review,
+    List<EndMomentFinding> ends)
 {
     private readonly FrameSolver _solver = new();
     private StructureModel? _still;
 
-    public DiagnosisContext(Submission submission, AnalysisResult analysis, ReviewOptions options, LoadCase loadCase, CaseReview review,
-        List<EndMomentFinding> ends)
-    {
-        S = submission;
-        Analysis = analysis;
-        Options = options;
-        Case = loadCase;
-        Review = review;
-        Ends = ends;
-        Keys = ends.Select(e => e.Key!.Value).ToList();
-        Claimed = ends.Select(e => e.Claimed!.Value).ToArray();
-        Recomputed = ends.Select(e => e.Recomputed!.Value).ToArray();
-        Quote = new Quoting(submission);
-    }
-
-    public Submission S { get; }
+    public Submission S { get; } = s;
     public StructureModel Model => S.Model;
-    public AnalysisResult Analysis { get; }
-    public ReviewOptions Options { get; }
-    public LoadCase Case { get; }
-    public CaseReview Review { get; }
+    public AnalysisResult Analysis { get; } = analysis;
+    public ReviewOptions Options { get; } = options;
+    public LoadCase Case { get; } = loadCase;
+    public CaseReview Review { get; } = review;
 
     /// <summary>The ends compared, in the order of <see cref="Keys"/>, <see cref="Claimed"/> and <see cref="Recomputed"/>.</summary>
-    public List<EndMomentFinding> Ends { get; }
+    public List<EndMomentFinding> Ends { get; } = ends;
 
-    public List<EndKey> Keys { get; }
-    public double[] Claimed { get; }
-    public double[] Recomputed { get; }
-    public Quoting Quote { get; }
+    public List<EndKey> Keys { get; } = [.. ends.Select(e => e.Key!.Value)];
+    public double[] Claimed { get; } = [.. ends.Select(e => e.Claimed!.Value)];
+    public double[] Recomputed { get; } = [.. ends.Select(e => e.Recomputed!.Value)];
+    public Quoting Quote { get; } = new(s);
 
     /// <summary>The agreement band of the case (N·m).</summary>
     public double Agree => Review.AgreeTolerance;
@@ -103,16 +95,16 @@ internal sealed class DiagnosisContext
     /// <summary>A clockwise end moment in the author's unit and convention.</summary>
     public string EndMoment(double clockwise, MemberEnd end) => Quote.EndMoment(clockwise, end);
 
-    /// <summary>"point load 40 kN at 4 m (calc.csv line 33)".</summary>
+    /// <summary>"point load 40 kN at 4 m (calc.csv line 33)", from the load's shape (any load kind).</summary>
     public string Describe(MemberLoad load)
     {
         string where = load.Source.Citation;
-        return load switch
+        return load.Shape() switch
         {
-            PointLoad p => $"point load {Quote.LoadForce(p.P)} at {Quote.Length(p.A)} ({where})",
-            DistributedLoad d when d.IsUniform => $"uniform load {Quote.LineLoad(d.WStart)} ({where})",
-            DistributedLoad d => $"linear load {Quote.LineLoad(d.WStart)} to {Quote.LineLoad(d.WEnd)} ({where})",
-            MemberCouple c => $"couple {Quote.Moment(Math.Abs(c.M))} at {Quote.Length(c.A)} ({where})",
+            ConcentratedForce p => $"point load {Quote.LoadForce(p.P)} at {Quote.Length(p.A)} ({where})",
+            LinearlyVaryingLoad d when d.WStart == d.WEnd => $"uniform load {Quote.LineLoad(d.WStart)} ({where})",
+            LinearlyVaryingLoad d => $"linear load {Quote.LineLoad(d.WStart)} to {Quote.LineLoad(d.WEnd)} ({where})",
+            ConcentratedCouple c => $"couple {Quote.Moment(Math.Abs(c.M))} at {Quote.Length(c.A)} ({where})",
             _ => $"load ({where})",
         };
     }
