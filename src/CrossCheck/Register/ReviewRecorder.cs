@@ -20,26 +20,26 @@ internal static class ReviewRecorder
         bool repeat = latest is not null && hash != ReviewRegister.HashUnavailable && latest.Row.InputHash == hash;
         int round = latest is null ? 1 : repeat ? latest.Row.Round : latest.Row.Round + 1;
         int place = repeat ? latest!.RoundReview + 1 : 1;
-        long id = InsertReview(tx, time, review, reference, round, place, submissionName, hash);
-        afterReviewRow?.Invoke(id);
-        InsertFindings(tx, id, review.Comments);
-        var current = RegisterQueries.Reviews(tx, "WHERE id = @id", ("@id", id)).Single();
+        var current = InsertReview(tx, time, review, reference, round, place, submissionName, hash);
+        afterReviewRow?.Invoke(current.Row.Id);
+        InsertFindings(tx, current.Row.Id, review.Comments);
         return RegisterQueries.Compare(tx, current);
     }
 
-    private static long InsertReview(RegisterTx tx, TimeProvider time, ReviewResult review, string reference, int round, int place, string submissionName,
+    /// <summary>Inserts the review and reads it back as stored (one round trip: <c>RETURNING</c>).</summary>
+    private static StoredReview InsertReview(RegisterTx tx, TimeProvider time, ReviewResult review, string reference, int round, int place, string submissionName,
         string hash)
     {
         var s = review.Submission;
         var o = review.Options;
-        using var cmd = tx.Command("""
+        using var cmd = tx.Command($"""
             INSERT INTO reviews (reference, round, round_review, revision, title, submission, source, review_date, recorded_at, reviewer, tool_version,
                 abs_tolerance, rel_tolerance, minor_tolerance, moment_unit, input_hash, verdict, ends_agree, ends_minor, ends_discrepant,
                 ends_missing, ends_unmatched, major_flags, minor_flags, top_cause, finding_count)
             VALUES (@reference, @round, @place, @revision, @title, @submission, @source, @date, @recorded, @reviewer, @tool,
                 @abs, @rel, @minor, @unit, @hash, @verdict, @agree, @eminor, @discrepant,
                 @missing, @unmatched, @majorFlags, @minorFlags, @cause, @findings)
-            RETURNING id
+            RETURNING {RegisterQueries.ReviewColumns}
             """,
             ("@reference", reference), ("@round", round), ("@place", place), ("@revision", s.Info.Revision), ("@title", s.Info.Title),
             ("@submission", submissionName), ("@source", s.Source),
@@ -50,24 +50,38 @@ internal static class ReviewRecorder
             ("@discrepant", review.CountEnds(EndStatus.Discrepant)), ("@missing", review.CountEnds(EndStatus.Missing)),
             ("@unmatched", review.CountEnds(EndStatus.Unmatched)), ("@majorFlags", review.CountFlags(Severity.Major)),
             ("@minorFlags", review.CountFlags(Severity.Minor)), ("@cause", review.TopCause()?.Code), ("@findings", review.Comments.Count));
-        return Convert.ToInt64(cmd.ExecuteScalar(), CultureInfo.InvariantCulture);
+        using var r = cmd.ExecuteReader();
+        r.Read();
+        return RegisterQueries.ReadReview(r);
     }
+
+    /// <summary>Rows per INSERT: one statement (one round trip to a server) for a review's findings, within SQLite's bound on parameters.</summary>
+    private const int FindingsPerStatement = 200;
 
     private static void InsertFindings(RegisterTx tx, long reviewId, IReadOnlyList<ReviewComment> comments)
     {
-        if (comments.Count == 0) return;
-        using var cmd = tx.Command("""
-            INSERT INTO findings (review_id, seq, comment_id, kind, severity, load_case, place, message, source)
-            VALUES (@review, @seq, @id, @kind, @severity, @case, @place, @message, @source)
-            """);
-        var p = new[] { "@review", "@seq", "@id", "@kind", "@severity", "@case", "@place", "@message", "@source" }
-            .Select(n => RegisterTx.Add(cmd, n, "")).ToArray();
-        int seq = 0;
-        foreach (var c in comments)
+        for (int start = 0; start < comments.Count; start += FindingsPerStatement)
         {
-            int dash = c.Id.IndexOf('-', StringComparison.Ordinal);
-            object[] values = [reviewId, ++seq, c.Id, dash > 0 ? c.Id[..dash] : c.Id, c.Severity.Json(), c.Case, c.Where, c.Text, c.Source];
-            for (int i = 0; i < p.Length; i++) RegisterTx.Set(p[i], values[i]);
+            int count = Math.Min(FindingsPerStatement, comments.Count - start);
+            var rows = Enumerable.Range(0, count).Select(i => string.Create(CultureInfo.InvariantCulture,
+                $"(@review, @s{i}, @i{i}, @k{i}, @v{i}, @c{i}, @p{i}, @m{i}, @o{i})"));
+            using var cmd = tx.Command(
+                $"INSERT INTO findings (review_id, seq, comment_id, kind, severity, load_case, place, message, source) VALUES {string.Join(", ", rows)}",
+                ("@review", reviewId));
+            for (int i = 0; i < count; i++)
+            {
+                var c = comments[start + i];
+                int dash = c.Id.IndexOf('-', StringComparison.Ordinal);
+                string n = i.ToString(CultureInfo.InvariantCulture);
+                RegisterTx.Add(cmd, "@s" + n, start + i + 1);
+                RegisterTx.Add(cmd, "@i" + n, c.Id);
+                RegisterTx.Add(cmd, "@k" + n, dash > 0 ? c.Id[..dash] : c.Id);
+                RegisterTx.Add(cmd, "@v" + n, c.Severity.Json());
+                RegisterTx.Add(cmd, "@c" + n, c.Case);
+                RegisterTx.Add(cmd, "@p" + n, c.Where);
+                RegisterTx.Add(cmd, "@m" + n, c.Text);
+                RegisterTx.Add(cmd, "@o" + n, c.Source);
+            }
             cmd.ExecuteNonQuery();
         }
     }

@@ -4,7 +4,9 @@
 #     submissions with a comment line added (so every reference gets four rounds, recorded by four processes that race
 #     for them): reviews recorded per second of wall time, and the rounds checked (none lost, none taken twice);
 #  2. four register writers (tests/CrossCheck.TestTools `register-write`) recording W reviews each into one shared
-#     reference, the worst case for round numbering: register writes per second, collisions run again.
+#     reference, the worst case for round numbering: register writes per second, collisions run again;
+#  3. the same four writers, each into a reference of its own (the usual case: no two screens record one calculation).
+#     The writers' lines give each one's own recording time (without starting the process and reviewing).
 # PostgreSQL: the server in CROSSCHECK_BENCH_POSTGRES (an Npgsql connection string for a user who may create
 # databases), else a throwaway cluster started here (.ci/postgres.sh: Debian's postgresql, default settings, fsync on).
 # Usage (repository root): tests/CrossCheck.Benchmarks/scripts/register-concurrency.sh [N] [W]
@@ -41,7 +43,7 @@ now() { date +%s%N; }
 echo "register concurrency: 4 processes; $n submissions per screen, $w writes per writer; $(nproc) cores, load $(cut -d' ' -f1-3 /proc/loadavg)"
 echo "PostgreSQL $("$pgbin/postgres" --version | awk '{print $3}'); SQLite on $(df -T "$work" | awk 'NR==2 {print $2}') at $work"
 for backend in postgresql sqlite; do
-  for test in screens writers; do
+  for test in screens writers distinct; do
     if [ "$backend" = postgresql ]; then
       db="cc_bench_${test}_$$"; pg createdb "$db"; reg="$(database "$db")"
     else
@@ -53,7 +55,8 @@ for backend in postgresql sqlite; do
       if [ "$test" = screens ]; then
         "$cli" screen "$work/copy$i" --out "$work/out-$backend-$i" --register "$reg" --jobs 1 --date 2026-12-01 --quiet >"$work/$backend-$test-$i.log" 2>&1 &
       else
-        tools register-write "$reg" "$calc" "$w" SHARED >"$work/$backend-$test-$i.log" 2>&1 &
+        tag=SHARED; [ "$test" = distinct ] && tag="OWN-$i"
+        tools register-write "$reg" "$calc" "$w" "$tag" >"$work/$backend-$test-$i.log" 2>&1 &
       fi
       pids+=($!)
     done
@@ -62,7 +65,7 @@ for backend in postgresql sqlite; do
     stats="$(tools register-stats "$reg" || true)"
     reviews="$(echo "$stats" | awk '/^reviews/ {print $2}')"
     extra=""
-    [ "$test" = writers ] && extra="; run again after a collision: $(cat "$work/$backend-$test-"*.log | sed -n 's/.*(\([0-9]*\) run again.*/\1/p' | paste -sd+ | bc)"
+    [ "$test" != screens ] && extra="; run again after a collision: $(cat "$work/$backend-$test-"*.log | sed -n 's/.*(\([0-9]*\) run again.*/\1/p' | awk '{s += $1} END {print s + 0}'); each writer: $(sed -n 's/recorded [0-9]* in \([0-9.]*\) s.*/\1 s/p' "$work/$backend-$test-"*.log | paste -sd' ')"
     awk -v b="$backend" -v t="$test" -v r="$reviews" -v ms="$ms" -v x="$extra" 'BEGIN {
       printf "%-10s %-8s %5d reviews in %6.2f s = %6.1f reviews/s%s\n", b, t, r, ms / 1000, r / (ms / 1000), x }'
     echo "           $stats" | head -3
