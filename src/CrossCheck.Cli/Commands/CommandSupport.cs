@@ -1,3 +1,4 @@
+using CrossCheck.Common;
 using CrossCheck.Import;
 using CrossCheck.Jobs;
 using Spectre.Console;
@@ -27,10 +28,13 @@ internal static class CommandSupport
         foreach (var e in errors) io.Error.WriteLine($"  {e.Where.Compact}: {e.Message}");
     }
 
-    /// <summary>Writes to <paramref name="outPath"/> (atomically, by the library), or to standard output when it is null; false (after a message) when the file cannot be written.</summary>
+    /// <summary>
+    /// Writes to <paramref name="outPath"/> (atomically, by the library; a device or pipe is streamed into), or to standard output
+    /// when it is null or <c>-</c>; false (after a message) when the file cannot be written.
+    /// </summary>
     public static bool Emit(string? outPath, string content, CliIo io, bool announce = true)
     {
-        if (outPath is null) { io.Output.Write(content); return true; }
+        if (outPath is null || OutputTarget.IsStandardOutput(outPath)) { io.Output.Write(content); return true; }
         if (!JobOutput.TryWrite(outPath, content, out var problem))
         {
             Fail(problem, io);
@@ -38,6 +42,19 @@ internal static class CommandSupport
         }
         if (announce) io.Error.WriteLine($"wrote {outPath}");
         return true;
+    }
+
+    /// <summary>Bytes (a PDF memo) to standard output: the process's own stream when the command writes to the console.</summary>
+    public static void WriteBytes(byte[] bytes, CliIo io)
+    {
+        if (ReferenceEquals(io.Output, System.Console.Out))
+        {
+            io.Output.Flush();
+            using var stdout = System.Console.OpenStandardOutput();
+            stdout.Write(bytes);
+            return;
+        }
+        io.Output.Write(System.Text.Encoding.Latin1.GetString(bytes));
     }
 
     public static IAnsiConsole Console(CliIo io)

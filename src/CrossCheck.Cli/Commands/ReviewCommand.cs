@@ -56,6 +56,7 @@ internal static class ReviewCommand
         });
         CommandSupport.Warnings(outcome.Warnings, io);
         if (outcome.Text is not null) io.Output.Write(outcome.Text);
+        if (outcome.Bytes is not null) CommandSupport.WriteBytes(outcome.Bytes, io);
         switch (outcome.Status)
         {
             case ReviewJobStatus.Refused:
@@ -68,7 +69,7 @@ internal static class ReviewCommand
                 return ExitCodes.InputError;
         }
         var review = outcome.Review!;
-        if (!r.Quiet && outcome.Text is null) PrintSummary(review, outcome.Rounds, outcome.WrittenTo, io);
+        if (!r.Quiet && outcome.Text is null && outcome.Bytes is null) PrintSummary(review, outcome.Rounds, outcome.WrittenTo, io);
         return review.Verdict == Verdict.Concur ? ExitCodes.Concur : ExitCodes.Comments;
     }
 

@@ -32,6 +32,11 @@ internal static class SolveCommand
 
     private static int Run(string path, string format, string? outPath, Import.InputLimits limits, CliIo io)
     {
+        if (JobOutput.RefuseInput(outPath, path) is { } clash)
+        {
+            CommandSupport.Fail(clash, io);
+            return ExitCodes.InputError;
+        }
         var outcome = SolveJob.Run(path, limits);
         CommandSupport.Warnings(outcome.Warnings, io);
         if (outcome.Report is not { } report)

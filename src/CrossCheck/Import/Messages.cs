@@ -110,6 +110,9 @@ internal static class Messages
     public static string NoSections => "the file has no tables: a single-file submission introduces each table with a line such as [members]";
     public static string EmptyTable(string name) => F($"table '{name}' has no header row");
     public static string NotFound(string path) => F($"'{path}' does not exist");
+    public static string NotARegularFile(string what) => F($"the file is {what}; CrossCheck reads regular files only, so it was not read");
+    public static string OverTimeBudget(double seconds) =>
+        F($"the review took longer than the time limit of {seconds:0.#} s and was stopped; raise it with --time-limit, or split the submission");
     public static string Unsupported(string path) => F($"'{path}' is not a folder, a .csv file or a .pdf file");
 
     // ---- PDF input ----------------------------------------------------------------------------------
@@ -120,6 +123,8 @@ internal static class Messages
     public static string PdfNotPdf => "the file is not a PDF (it does not begin with '%PDF-'); give a text PDF, a CSV file or a folder of CSV tables";
     public static string PdfDamaged(string reason) =>
         F($"the PDF is damaged or uses features CrossCheck cannot read ({reason}); export the calculation again, or give its tables as CSV");
+    /// <summary>A PDF the PDF library failed on: its own words are not shown (they describe its internals, and may quote the file).</summary>
+    public static string PdfUnreadable => PdfDamaged("its structure could not be parsed");
     public static string PdfEncrypted =>
         "the PDF is encrypted with a password; CrossCheck cannot read it. Export an unprotected copy, or give the tables as CSV";
     public static string PdfNoPages => "the PDF has no pages";

@@ -33,11 +33,12 @@ public static class RegisterJob
     /// <returns>The outcome: the text (no path), the file written, or why not.</returns>
     public static (string? Text, string? WrittenTo, string? Problem) Export(string path, bool findings, string? outPath)
     {
+        if (JobOutput.RefuseInput(outPath, path) is { } clash) return (null, null, clash);
         if (!TryOpenExisting(path, out var register, out var problem)) return (null, null, problem);
         using (register)
         {
             string csv = findings ? register.ExportFindingsCsv() : register.ExportReviewsCsv();
-            if (outPath is null) return (csv, null, null);
+            if (outPath is null || Common.OutputTarget.IsStandardOutput(outPath)) return (csv, null, null);
             return JobOutput.TryWrite(outPath, csv, out problem) ? (null, outPath, null) : (null, null, problem);
         }
     }

@@ -67,6 +67,9 @@ public sealed class ReviewRegister : IDisposable
         ArgumentNullException.ThrowIfNull(path);
         string full = System.IO.Path.GetFullPath(path);
         if (Directory.Exists(full)) throw new RegisterException($"register '{path}' is a folder; give the path of a register file.");
+        // A device or a named pipe would hang SQLite or be overwritten by it (and its -wal file made beside /dev/null).
+        if (FileFacts.Of(full).Kind is not (FileKind.Regular or FileKind.Missing) and var kind)
+            throw new RegisterException($"register '{path}' is {FileFacts.Describe(kind)}; give the path of a register file.");
         string? dir = System.IO.Path.GetDirectoryName(full);
         if (dir is not null && !Directory.Exists(dir)) throw new RegisterException($"register '{path}': the folder '{dir}' does not exist.");
         var csb = new SqliteConnectionStringBuilder
