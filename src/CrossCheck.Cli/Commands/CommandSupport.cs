@@ -10,11 +10,29 @@ internal static class CommandSupport
 {
     public static void Warnings(IEnumerable<InputProblem> warnings, CliIo io)
     {
-        foreach (var w in warnings) io.Error.WriteLine($"warning: {w}");
+        foreach (var w in warnings) io.Error.WriteLine($"warning: {Clean(w.ToString())}");
     }
 
     /// <summary>A sentence for the user, after <c>crosscheck:</c>.</summary>
-    public static void Fail(string message, CliIo io) => io.Error.WriteLine($"crosscheck: {message}");
+    public static void Fail(string message, CliIo io) => io.Error.WriteLine($"crosscheck: {Clean(message)}");
+
+    /// <summary>Text from a submission, a file name or the register, safe for a terminal: no control characters (<see cref="TextSafety"/>).</summary>
+    public static string Clean(string? text) => TextSafety.Clean(text);
+
+    /// <summary>
+    /// Data as a table cell or part of a line: printed exactly as written — never read as console markup (<c>[red]</c>) or
+    /// as an emoji shortcode (<c>:warning:</c>, <c>info.csv:1:key:</c>) — with control characters removed.
+    /// </summary>
+    public static Text Cell(string? text, Style? style = null) => new(Clean(text), style ?? Style.Plain);
+
+    /// <summary>A line made of parts, each printed as written (see <see cref="Cell"/>).</summary>
+    public static void Line(IAnsiConsole console, params (string? Text, Style? Style)[] parts)
+    {
+        var line = new Paragraph();
+        foreach (var (text, style) in parts) line.Append(Clean(text), style ?? Style.Plain);
+        console.Write(line);
+        console.WriteLine();
+    }
 
     /// <summary>Prints why a submission has no result: the input problems, or why its structure cannot be analysed.</summary>
     public static void ReportErrors(string path, IReadOnlyList<InputProblem> errors, string? structureProblem, CliIo io)
@@ -25,7 +43,7 @@ internal static class CommandSupport
             return;
         }
         Fail($"'{path}' could not be read ({errors.Count} problem{(errors.Count == 1 ? "" : "s")}):", io);
-        foreach (var e in errors) io.Error.WriteLine($"  {e.Where.Compact}: {e.Message}");
+        foreach (var e in errors) io.Error.WriteLine($"  {Clean(e.Where.Compact)}: {Clean(e.Message)}");
     }
 
     /// <summary>

@@ -53,7 +53,23 @@ internal static class HistoryCommand
         return null;
     }
 
-    private static int Run(string? reference, string path, CliIo io)
+    /// <summary>A register that cannot be read (damaged, bad values, locked) is the user's to fix: a sentence and exit code 2.</summary>
+    private static int Guarded(CliIo io, Func<int> body)
+    {
+        try
+        {
+            return body();
+        }
+        catch (RegisterException ex)
+        {
+            CommandSupport.Fail(ex.Message, io);
+            return ExitCodes.InputError;
+        }
+    }
+
+    private static int Run(string? reference, string path, CliIo io) => Guarded(io, () => History(reference, path, io));
+
+    private static int History(string? reference, string path, CliIo io)
     {
         using var register = OpenExisting(path, io);
         if (register is null) return ExitCodes.InputError;
@@ -65,8 +81,8 @@ internal static class HistoryCommand
             var t = new Table().Border(TableBorder.Simple);
             foreach (var h in new[] { "reference", "rounds", "reviews", "latest round", "date", "verdict", "open comments" }) t.AddColumn(h);
             foreach (var r in refs)
-                t.AddRow(Markup.Escape(r.Reference), N(r.Rounds), N(r.Reviews), N(r.Latest.Round), Markup.Escape(r.Latest.ReviewDate),
-                    Markup.Escape(r.Latest.Verdict), N(r.Latest.FindingCount));
+                t.AddRow(C(r.Reference), C(N(r.Rounds)), C(N(r.Reviews)), C(N(r.Latest.Round)), C(r.Latest.ReviewDate), C(r.Latest.Verdict),
+                    C(N(r.Latest.FindingCount)));
             console.Write(t);
             return ExitCodes.Concur;
         }
@@ -77,7 +93,8 @@ internal static class HistoryCommand
             io.Error.WriteLine($"crosscheck: the register '{path}' has no reviews of reference '{reference}' (run 'crosscheck history' for the list).");
             return ExitCodes.InputError;
         }
-        console.MarkupLine($"[bold]{Markup.Escape(reference)}[/]: {history.Select(h => h.Review.Round).Distinct().Count()} round(s), {history.Count} review(s)");
+        CommandSupport.Line(console, (reference, new Style(decoration: Decoration.Bold)),
+            ($": {history.Select(h => h.Review.Round).Distinct().Count()} round(s), {history.Count} review(s)", null));
         var table = new Table().Border(TableBorder.Simple);
         foreach (var h in new[] { "round", "revision", "date", "reviewer", "verdict", "discrepant ends", "comments", "closed", "persisting", "new", "tool", "input" })
             table.AddColumn(h);
@@ -85,9 +102,9 @@ internal static class HistoryCommand
         {
             var r = h.Review;
             bool first = h.Previous is null;
-            table.AddRow(N(r.Round) + (h.Repeat ? " (repeat)" : ""), Markup.Escape(r.Revision ?? "—"), Markup.Escape(r.ReviewDate), Markup.Escape(r.Reviewer ?? "—"),
-                Markup.Escape(r.Verdict), N(r.EndsDiscrepant), N(r.FindingCount), first ? "—" : N(h.Closed.Count), first ? "—" : N(h.Persisting.Count),
-                first ? "—" : N(h.New.Count), Markup.Escape(r.ToolVersion), Markup.Escape(Short(r.InputHash)));
+            table.AddRow(C(N(r.Round) + (h.Repeat ? " (repeat)" : "")), C(r.Revision ?? "—"), C(r.ReviewDate), C(r.Reviewer ?? "—"),
+                C(r.Verdict), C(N(r.EndsDiscrepant)), C(N(r.FindingCount)), C(first ? "—" : N(h.Closed.Count)), C(first ? "—" : N(h.Persisting.Count)),
+                C(first ? "—" : N(h.New.Count)), C(r.ToolVersion), C(Short(r.InputHash)));
         }
         console.Write(table);
         foreach (var h in history)
@@ -95,15 +112,17 @@ internal static class HistoryCommand
             string head = $"round {h.Review.Round}{(h.Repeat ? " (repeat)" : "")}";
             if (h.Previous is null)
             {
-                console.WriteLine($"{head}: raised {Ids(h.New)}");
+                console.WriteLine(CommandSupport.Clean($"{head}: raised {Ids(h.New)}"));
                 continue;
             }
-            console.WriteLine($"{head} against round {h.Previous.Round}: closed {Ids(h.Closed)}; persisting {Ids(h.Persisting)}; new {Ids(h.New)}");
+            console.WriteLine(CommandSupport.Clean($"{head} against round {h.Previous.Round}: closed {Ids(h.Closed)}; persisting {Ids(h.Persisting)}; new {Ids(h.New)}"));
         }
         return ExitCodes.Concur;
     }
 
-    private static int Export(string path, bool findings, string? outPath, CliIo io)
+    private static int Export(string path, bool findings, string? outPath, CliIo io) => Guarded(io, () => ExportTo(path, findings, outPath, io));
+
+    private static int ExportTo(string path, bool findings, string? outPath, CliIo io)
     {
         var (text, written, problem) = RegisterJob.Export(path, findings, outPath);
         if (problem is not null)
@@ -116,7 +135,9 @@ internal static class HistoryCommand
         return ExitCodes.Concur;
     }
 
-    private static int Check(string path, CliIo io)
+    private static int Check(string path, CliIo io) => Guarded(io, () => CheckRegister(path, io));
+
+    private static int CheckRegister(string path, CliIo io)
     {
         using var register = OpenExisting(path, io);
         if (register is null) return ExitCodes.InputError;
@@ -126,7 +147,7 @@ internal static class HistoryCommand
             io.Output.WriteLine($"{register.Path}: sound (schema version {register.SchemaVersion}, {register.Reviews().Count} reviews).");
             return ExitCodes.Concur;
         }
-        foreach (var p in problems) io.Output.WriteLine($"{register.Path}: {p}");
+        foreach (var p in problems) io.Output.WriteLine(CommandSupport.Clean($"{register.Path}: {p}"));
         return ExitCodes.Comments;
     }
 
@@ -135,4 +156,6 @@ internal static class HistoryCommand
     private static string Short(string hash) => hash.StartsWith("sha256:", StringComparison.Ordinal) && hash.Length > 19 ? hash[7..19] : hash;
 
     private static string N(int v) => v.ToString(CultureInfo.InvariantCulture);
+
+    private static Spectre.Console.Rendering.IRenderable C(string? text) => CommandSupport.Cell(text);
 }

@@ -79,14 +79,15 @@ internal static class ReviewCommand
         var s = review.Submission;
         var mu = s.Info.Units.Moment;
         string colour = review.Verdict switch { Verdict.Concur => "green", Verdict.ConcurWithComments => "yellow", _ => "red" };
-        console.MarkupLine($"[bold]{Markup.Escape(s.Info.Title ?? s.Source)}[/]  verdict: [bold {colour}]{Markup.Escape(review.Verdict.Words())}[/]");
+        CommandSupport.Line(console, (s.Info.Title ?? s.Source, new Style(decoration: Decoration.Bold)), ("  verdict: ", null),
+            (review.Verdict.Words(), Style.Parse($"bold {colour}")));
         var counts = new Table().Border(TableBorder.Simple);
         foreach (var h in new[] { "case", "agree", "minor", "discrepant", "missing", "unmatched", "major flags", "minor flags", "likely cause" })
             counts.AddColumn(h);
         foreach (var c in review.Cases)
-            counts.AddRow(Markup.Escape(c.Case), $"{c.Count(EndStatus.Agree)}", $"{c.Count(EndStatus.Minor)}", $"{c.Count(EndStatus.Discrepant)}",
-                $"{c.Count(EndStatus.Missing)}", $"{c.Count(EndStatus.Unmatched)}", $"{c.Flags.Count(f => f.Severity == Severity.Major)}",
-                $"{c.Flags.Count(f => f.Severity == Severity.Minor)}", Markup.Escape(c.Causes.FirstOrDefault()?.Code ?? "—"));
+            counts.AddRow(CommandSupport.Cell(c.Case), Cell(c.Count(EndStatus.Agree)), Cell(c.Count(EndStatus.Minor)), Cell(c.Count(EndStatus.Discrepant)),
+                Cell(c.Count(EndStatus.Missing)), Cell(c.Count(EndStatus.Unmatched)), Cell(c.Flags.Count(f => f.Severity == Severity.Major)),
+                Cell(c.Flags.Count(f => f.Severity == Severity.Minor)), CommandSupport.Cell(c.Causes.FirstOrDefault()?.Code ?? "—"));
         console.Write(counts);
         var worst = review.AllEndMoments.Where(e => e.Status is EndStatus.Discrepant or EndStatus.Minor)
             .OrderByDescending(e => Math.Abs(e.Difference ?? 0)).Take(5).ToList();
@@ -95,17 +96,19 @@ internal static class ReviewCommand
             var t = new Table().Border(TableBorder.Simple).Title(Markup.Escape($"largest differences [{mu.Symbol}, clockwise]"));
             foreach (var h in new[] { "case", "member", "at", "claimed", "recomputed", "difference", "status" }) t.AddColumn(h);
             foreach (var e in worst)
-                t.AddRow(Markup.Escape(e.Case), Markup.Escape(e.Member), Markup.Escape(e.At), Fmt.Number(mu.FromSi(e.Claimed ?? 0)),
-                    Fmt.Number(mu.FromSi(e.Recomputed ?? 0)), Fmt.Number(mu.FromSi(e.Difference ?? 0)), e.Status.Json());
+                t.AddRow(CommandSupport.Cell(e.Case), CommandSupport.Cell(e.Member), CommandSupport.Cell(e.At), CommandSupport.Cell(Fmt.Number(mu.FromSi(e.Claimed ?? 0))),
+                    CommandSupport.Cell(Fmt.Number(mu.FromSi(e.Recomputed ?? 0))), CommandSupport.Cell(Fmt.Number(mu.FromSi(e.Difference ?? 0))), CommandSupport.Cell(e.Status.Json()));
             console.Write(t);
         }
         foreach (var f in review.AllFlags.Where(f => f.Severity != Severity.Info).Take(8))
-            console.MarkupLine($"  [{(f.Severity == Severity.Major ? "red" : "yellow")}]{f.Severity.Json()}[/] {Markup.Escape(f.Kind.Json())}, {Markup.Escape(f.Where)}");
+            CommandSupport.Line(console, ("  ", null), (f.Severity.Json(), Style.Parse(f.Severity == Severity.Major ? "red" : "yellow")), ($" {f.Kind.Json()}, {f.Where}", null));
         int more = review.AllFlags.Count(f => f.Severity != Severity.Info) - 8;
         if (more > 0) console.MarkupLine($"  ... and {more} more in the memo");
-        if (rounds is not null) console.MarkupLine(Markup.Escape(RoundsLine(rounds)));
-        if (memoPath is not null) console.MarkupLine($"memo: {Markup.Escape(memoPath)}");
+        if (rounds is not null) CommandSupport.Line(console, (RoundsLine(rounds), null));
+        if (memoPath is not null) CommandSupport.Line(console, ("memo: " + memoPath, null));
     }
+
+    private static Text Cell(int n) => CommandSupport.Cell(n.ToString(System.Globalization.CultureInfo.InvariantCulture));
 
     /// <summary>One line about the register round: <c>register: round 2 of DEMO-FB-01 — 2 closed, 1 persisting, 1 new (against round 1)</c>.</summary>
     internal static string RoundsLine(RoundComparison c) =>

@@ -19,7 +19,7 @@ public static partial class AtomicFile
     /// <summary>The longest file name in bytes most file systems allow.</summary>
     public const int MaxNameBytes = 255;
 
-    public static void WriteText(string path, string content) => WriteBytes(path, Utf8NoBom.GetBytes(content));
+    public static void WriteText(string path, string content, bool replaceSpecial = false) => WriteBytes(path, Utf8NoBom.GetBytes(content), replaceSpecial);
 
     /// <summary>
     /// Writes <paramref name="content"/> to <paramref name="path"/>: replaced whole when it is (or will be) a regular file,

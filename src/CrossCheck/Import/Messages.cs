@@ -110,6 +110,8 @@ internal static class Messages
     public static string NoSections => "the file has no tables: a single-file submission introduces each table with a line such as [members]";
     public static string EmptyTable(string name) => F($"table '{name}' has no header row");
     public static string NotFound(string path) => F($"'{path}' does not exist");
+    public static string ControlCharacters(int cells) =>
+        F($"{cells} cell(s) of this table held control characters (an escape sequence?); they were removed before the cells were read");
     public static string NotARegularFile(string what) => F($"the file is {what}; CrossCheck reads regular files only, so it was not read");
     public static string OverTimeBudget(double seconds) =>
         F($"the review took longer than the time limit of {seconds:0.#} s and was stopped; raise it with --time-limit, or split the submission");

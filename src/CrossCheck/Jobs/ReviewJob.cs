@@ -167,7 +167,7 @@ public sealed class ReviewJob(TimeProvider? time = null)
     public static string Key(ReviewResult review, string path)
     {
         ArgumentNullException.ThrowIfNull(review);
-        return review.ReferenceOr(SubmissionNames.BaseName(path));
+        return review.ReferenceOr(TextSafety.Clean(SubmissionNames.BaseName(path)));
     }
 
     /// <summary>The review as text: the memo (HTML for PDF, to be printed) or the JSON.</summary>
@@ -228,7 +228,7 @@ public sealed class ReviewJob(TimeProvider? time = null)
             try
             {
                 using var register = ReviewRegister.Open(request.RegisterPath, Time);
-                rounds = register.Record(review, Key(review, request.Path), SubmissionNames.DisplayName(request.Path), InputHash.Compute(request.Path));
+                rounds = register.Record(review, Key(review, request.Path), TextSafety.Clean(SubmissionNames.DisplayName(request.Path)), InputHash.Compute(request.Path));
             }
             catch (RegisterException ex)
             {

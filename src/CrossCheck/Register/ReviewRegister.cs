@@ -213,14 +213,29 @@ public sealed class ReviewRegister : IDisposable
         using (var r = cmd.ExecuteReader())
             while (r.Read())
                 if (r.GetInt32(3) != r.GetInt32(4))
-                    problems.Add($"review {r.GetInt64(0)} ({r.GetString(1)} round {r.GetInt32(2)}) should have {r.GetInt32(3)} findings but has {r.GetInt32(4)}");
+                    problems.Add($"review {r.GetInt64(0)} ({TextSafety.Clean(Convert.ToString(r.GetValue(1), CultureInfo.InvariantCulture))} round {r.GetInt32(2)}) should have {r.GetInt32(3)} findings but has {r.GetInt32(4)}");
         using (var cmd = Command(tx, "SELECT reference, group_concat(round) FROM (SELECT DISTINCT reference, round FROM reviews ORDER BY reference, round) GROUP BY reference"))
         using (var r = cmd.ExecuteReader())
             while (r.Read())
             {
-                var rounds = r.GetString(1).Split(',').Select(x => int.Parse(x, CultureInfo.InvariantCulture)).Order().ToList();
+                if (r.IsDBNull(0) || r.IsDBNull(1)) continue; // a row without a reference or round is reported below
+                var rounds = r.GetString(1).Split(',').Select(x => int.TryParse(x, NumberStyles.Integer, CultureInfo.InvariantCulture, out int n) ? n : 0).Order().ToList();
                 if (!rounds.SequenceEqual(Enumerable.Range(1, rounds.Count)))
-                    problems.Add($"reference {r.GetString(0)} has rounds {string.Join(", ", rounds)} (expected 1 to {rounds.Count})");
+                    problems.Add($"reference {TextSafety.Clean(r.GetString(0))} has rounds {string.Join(", ", rounds)} (expected 1 to {rounds.Count})");
+            }
+        // Values of the wrong kind (text where a count belongs, a missing verdict): what would make 'history' print nonsense.
+        using (var cmd = Command(tx, $"SELECT {ReviewColumns} FROM reviews ORDER BY id"))
+        using (var r = cmd.ExecuteReader())
+            while (r.Read())
+            {
+                try
+                {
+                    CheckValues(r);
+                }
+                catch (RegisterException ex)
+                {
+                    problems.Add(ex.Message);
+                }
             }
         return problems;
     });
@@ -382,6 +397,7 @@ public sealed class ReviewRegister : IDisposable
         var list = new List<RegisterReview>();
         while (r.Read())
         {
+            CheckValues(r);
             string? S(int i) => r.IsDBNull(i) ? null : r.GetString(i);
             list.Add(new RegisterReview(r.GetInt64(0), r.GetString(1), r.GetInt32(2), S(3), S(4), r.GetString(5), r.GetString(6), r.GetString(7),
                 r.GetString(8), S(9), r.GetString(10), r.GetDouble(11), r.GetDouble(12), r.GetDouble(13), r.GetString(14), r.GetString(15),
@@ -391,6 +407,33 @@ public sealed class ReviewRegister : IDisposable
         return list;
     }
 
+    // The storage class each column of ReviewColumns must hold: i integer, t text, T text or null, r real (SQLite keeps
+    // whatever a value is given, so a register edited by hand can hold text where a count belongs).
+    private const string ReviewColumnTypes = "itiTTttttTtrrrtttiiiiiiiTi";
+
+    /// <summary>Refuses a review row whose values are of the wrong kind or out of range (a register edited or damaged outside CrossCheck).</summary>
+    private void CheckValues(SqliteDataReader r)
+    {
+        for (int i = 0; i < ReviewColumnTypes.Length; i++)
+        {
+            char want = ReviewColumnTypes[i];
+            var type = r.GetFieldType(i);
+            bool ok = want switch
+            {
+                'i' => type == typeof(long) && (i == 0 || r.GetInt64(i) is >= 0 and <= int.MaxValue) && (i != 2 || r.GetInt64(i) >= 1),
+                'r' => type == typeof(double) || type == typeof(long),
+                'T' => type == typeof(string) || r.IsDBNull(i),
+                _ => type == typeof(string),
+            };
+            if (!ok)
+            {
+                string value = r.IsDBNull(i) ? "no value" : $"'{TextSafety.Clean(Convert.ToString(r.GetValue(i), CultureInfo.InvariantCulture) ?? "")}'";
+                throw new RegisterException(
+                    $"register '{Path}' is damaged: review {(r.GetFieldType(0) == typeof(long) ? r.GetInt64(0) : 0)} has {value} in '{r.GetName(i)}'. Run 'crosscheck register check', or use another register.");
+            }
+        }
+    }
+
     private List<RegisterFinding> QueryFindings(SqliteTransaction tx, long reviewId)
     {
         using var cmd = Command(tx, "SELECT comment_id, kind, severity, load_case, place, message, source FROM findings WHERE review_id = $id ORDER BY seq");
@@ -398,7 +441,11 @@ public sealed class ReviewRegister : IDisposable
         using var r = cmd.ExecuteReader();
         var list = new List<RegisterFinding>();
         while (r.Read())
+        {
+            for (int i = 0; i < 7; i++)
+                if (r.IsDBNull(i)) throw new RegisterException($"register '{Path}' is damaged: a finding of review {reviewId} has no value in '{r.GetName(i)}'. Run 'crosscheck register check'.");
             list.Add(new RegisterFinding(r.GetString(0), r.GetString(1), r.GetString(2), r.GetString(3), r.GetString(4), r.GetString(5), r.GetString(6)));
+        }
         return list;
     }
 
