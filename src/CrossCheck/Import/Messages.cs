@@ -187,5 +187,14 @@ internal static class Messages
     public static string WorkingNeedsStep => "table 'distribution' needs a column 'step' (DF, FEM, balance, carry-over, final)";
     public static string WorkingStepUnknown(string label) => F($"step \"{label}\" is not recognised (use DF, FEM, balance, carry-over or final)");
 
+    public static string CoincidentJoints(string first, string second, string at) =>
+        F($"joints '{first}' and '{second}' are at the same place ({at}); members that name one are not connected to members that name the other. Use one joint if they should be joined");
+    public static string ParallelMembers(string first, string second, string a, string b) =>
+        F($"members '{first}' and '{second}' both join '{a}' and '{b}'; their stiffnesses add (is one member entered twice?)");
+    public static string MemberThroughJoint(string member, string joint) =>
+        F($"joint '{joint}' lies on member '{member}' between its ends, but the member is not connected to it; split the member at '{joint}' if they should be joined (or two members overlap)");
+    public static string LookAlikeIds(string kind, string first, string second, string differences) =>
+        F($"{kind} ids '{first}' and '{second}' look alike but are different ids ({differences}); a reference to one does not reach the other");
+    public static string LoadOverNoLength => "'b' equals 'a': a distributed load over no length does nothing; give its extent, or use a point load";
     public static string NoJointsConnected(string id) => F($"joint '{id}' is not connected to any member");
 }

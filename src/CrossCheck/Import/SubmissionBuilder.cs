@@ -25,6 +25,7 @@ public sealed class SubmissionBuilder
         new MembersReader(),
         new BeamReader(),          // supports + spans
         new StructureAssembly(),   // the model from the geometry, checked as a whole
+        new ModelSanity(),         // coincident joints, members through joints or twice, look-alike ids: warnings
         new LoadsReader(),
         new EndMomentsReader(),
         new ReactionsReader(),
