@@ -137,6 +137,13 @@ public sealed class ReviewJob(TimeProvider? time = null)
         var warnings = new List<InputProblem>();
         using var budget = new CancellationTokenSource(limits.TimeBudget, Time);
         using var stop = CancellationTokenSource.CreateLinkedTokenSource(cancel, budget.Token);
+        long started = Time.GetTimestamp();
+        // Between the stages the clock is read too: a timer set for a moment may not have fired yet.
+        void Checkpoint()
+        {
+            stop.Token.ThrowIfCancellationRequested();
+            if (Time.GetElapsedTime(started) > limits.TimeBudget) throw new OperationCanceledException(budget.Token);
+        }
         try
         {
             // Reading a PDF has its own budget; it gets no more than the review's.
@@ -145,14 +152,14 @@ public sealed class ReviewJob(TimeProvider? time = null)
             warnings.AddRange(imported.Warnings);
             if (!imported.Succeeded) return new ReviewOutcome(path, null, imported.Errors.ToList(), warnings, ReviewFailure.Unreadable);
             var s = imported.Submission;
-            stop.Token.ThrowIfCancellationRequested();
+            Checkpoint();
             if (!new FrameSolver().TrySolve(s.Model, s.Cases, out var analysis, out var problem))
             {
                 return new ReviewOutcome(path, null, [new InputProblem(where, $"the structure cannot be analysed: {problem.Message}")], warnings,
                     ReviewFailure.NotAnalysable, problem.Message);
             }
             var review = ReviewEngine.Review(s, analysis, options, warnings.Select(w => w.ToString()), stop.Token);
-            stop.Token.ThrowIfCancellationRequested();
+            Checkpoint();
             if (options.ShowWorking) review = review with { Working = ReferenceWorking.Compute(s) };
             return new ReviewOutcome(path, review, [], warnings);
         }
