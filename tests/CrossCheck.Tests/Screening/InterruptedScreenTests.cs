@@ -9,6 +9,7 @@ using CrossCheck.Review;
 using CrossCheck.Screening;
 using CrossCheck.Tests.Support;
 using CrossCheck.TestTools;
+using CsCheck;
 using Microsoft.Data.Sqlite;
 
 namespace CrossCheck.Tests.Screening;
@@ -86,6 +87,40 @@ public class InterruptedScreenTests
         register.Reviews().Count.ShouldBe(8, "one review per readable submission: the resumed ones are not recorded again");
         register.Check().ShouldBeEmpty();
         second.Rows.Where(r => r.Review is not null).ShouldAllBe(r => r.Rounds != null && r.Rounds.Review.Round == 1);
+    }
+
+    /// <summary>Stops the screen once <paramref name="after"/> submissions have been reviewed.</summary>
+    private sealed class StopAfterReviewed(int after, CancellationTokenSource stop) : IScreenProgress
+    {
+        public void Begin(int submissions) { }
+
+        public void Reviewed(ScreenItem item, ScreenOutcome outcome, int done)
+        {
+            if (done >= after) stop.Cancel();
+        }
+
+        public void Written(ScreenRow row, int done) { }
+    }
+
+    [Fact]
+    public void Property_WhereverAScreenIsStopped_TheRerunLeavesEverySubmissionScreenedAndRecordedOnce()
+    {
+        Gen.Int[0, 6].Sample(after =>
+        {
+            using var batch = new GeneratedBatch(new BatchPlan(Correct: 2, Omitted: 1, WrongClaim: 1, SignFlip: 0, SwayOmitted: 0, Broken: 1), seed: 7 + after);
+            var options = new ScreenOptions(Options, batch.Out, MemoFormat.Markdown, 2, batch.Register);
+            using var stop = new CancellationTokenSource();
+            var first = Screener.Run(batch.Folder, options, new StopAfterReviewed(after, stop), stop.Token);
+            (first.Rows.Count + first.Pending.Count).ShouldBe(5);
+            Leftovers(batch.Out).ShouldBeEmpty();
+            var second = Screener.Run(batch.Folder, options);
+            second.Interrupted.ShouldBeFalse();
+            second.Rows.Count.ShouldBe(5);
+            second.Rows.Where(r => r.Review is not null).ShouldAllBe(r => r.MemoFile != null && File.Exists(Path.Combine(batch.Out, r.MemoFile)));
+            using var register = ReviewRegister.Open(batch.Register);
+            register.Reviews().Count.ShouldBe(first.Interrupted ? 4 : 8);
+            register.Check().ShouldBeEmpty();
+        }, iter: 5, threads: 1);
     }
 
     [Fact]
