@@ -12,6 +12,7 @@ using CrossCheck.TestTools;
 //   time-screen N [SEED]                        screening throughput, one at a time and on every core
 //   register-pause REGISTER SUBMISSION          record a review and stop inside its transaction (to be killed)
 //   register-write REGISTER SUBMISSION N TAG    record N reviews as N rounds of reference TAG
+//   hostile CLI_DLL [SEED]                      make a fresh set of hostile inputs, run each through the CLI, print the counts
 var inv = CultureInfo.InvariantCulture;
 if (args.Length == 0)
 {
@@ -51,6 +52,9 @@ switch (args[0])
         Console.WriteLine($"recorded {n}");
         return 0;
     }
+    case "hostile" when args.Length >= 2:
+        return HostileReport.Run(Path.GetFullPath(args[1]), args.Length > 2 ? int.Parse(args[2], inv) : 1,
+            Path.GetFullPath(Path.Combine(AppContext.BaseDirectory, "..", "..", "..", "..", "..", "fixtures", "demo", "shed-frame")));
     default:
         Console.Error.WriteLine($"unknown or incomplete command: {string.Join(' ', args)}");
         return 2;

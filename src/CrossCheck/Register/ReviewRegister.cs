@@ -168,6 +168,10 @@ public sealed class ReviewRegister : IDisposable
             {
                 throw new RegisterException(Describe(Path, ex), ex);
             }
+            catch (Exception ex) when (ex is InvalidCastException or OverflowException or InvalidOperationException or FormatException)
+            {
+                throw Damaged(ex);
+            }
         }
     }
 
@@ -212,8 +216,8 @@ public sealed class ReviewRegister : IDisposable
         using (var cmd = Command(tx, "SELECT r.id, r.reference, r.round, r.finding_count, (SELECT count(*) FROM findings f WHERE f.review_id = r.id) FROM reviews r"))
         using (var r = cmd.ExecuteReader())
             while (r.Read())
-                if (r.GetInt32(3) != r.GetInt32(4))
-                    problems.Add($"review {r.GetInt64(0)} ({TextSafety.Clean(Convert.ToString(r.GetValue(1), CultureInfo.InvariantCulture))} round {r.GetInt32(2)}) should have {r.GetInt32(3)} findings but has {r.GetInt32(4)}");
+                if (r.GetInt64(3) != r.GetInt64(4))
+                    problems.Add($"review {r.GetInt64(0)} ({TextSafety.Clean(Convert.ToString(r.GetValue(1), CultureInfo.InvariantCulture))} round {TextSafety.Clean(Convert.ToString(r.GetValue(2), CultureInfo.InvariantCulture))}) should have {TextSafety.Clean(Convert.ToString(r.GetValue(3), CultureInfo.InvariantCulture))} findings but has {r.GetInt64(4)}");
         using (var cmd = Command(tx, "SELECT reference, group_concat(round) FROM (SELECT DISTINCT reference, round FROM reviews ORDER BY reference, round) GROUP BY reference"))
         using (var r = cmd.ExecuteReader())
             while (r.Read())
@@ -296,8 +300,16 @@ public sealed class ReviewRegister : IDisposable
             {
                 throw new RegisterException(Describe(Path, ex), ex);
             }
+            catch (Exception ex) when (ex is InvalidCastException or OverflowException or InvalidOperationException or FormatException)
+            {
+                throw Damaged(ex);
+            }
         }
     }
+
+    /// <summary>A value of a kind or size CrossCheck never writes, met while reading (a register edited outside CrossCheck).</summary>
+    private RegisterException Damaged(Exception ex) =>
+        new($"register '{Path}' is damaged: it holds a value CrossCheck never writes ({TextSafety.Clean(ex.Message)}). Run 'crosscheck register check', or use another register.", ex);
 
     private long InsertReview(SqliteTransaction tx, ReviewResult review, string reference, int round, string submissionName, string hash)
     {
@@ -425,6 +437,10 @@ public sealed class ReviewRegister : IDisposable
                 'T' => type == typeof(string) || r.IsDBNull(i),
                 _ => type == typeof(string),
             };
+            // Values of the right kind that still mean nothing: a tolerance below zero, a verdict or a date CrossCheck never writes.
+            if (ok && want == 'r') ok = r.GetDouble(i) is >= 0 and <= double.MaxValue;
+            if (ok && i == 16) ok = r.GetString(i) is "concur" or "concur-with-comments" or "revise";
+            if (ok && i == 7) ok = DateOnly.TryParseExact(r.GetString(i), "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out _);
             if (!ok)
             {
                 string value = r.IsDBNull(i) ? "no value" : $"'{TextSafety.Clean(Convert.ToString(r.GetValue(i), CultureInfo.InvariantCulture) ?? "")}'";
