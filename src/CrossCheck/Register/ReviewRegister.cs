@@ -170,7 +170,7 @@ public sealed class ReviewRegister : IDisposable
             }
             catch (Exception ex) when (ex is InvalidCastException or OverflowException or InvalidOperationException or FormatException)
             {
-                throw Damaged(ex);
+                throw RegisterValues.Damaged(Path, ex);
             }
         }
     }
@@ -234,7 +234,7 @@ public sealed class ReviewRegister : IDisposable
             {
                 try
                 {
-                    CheckValues(r);
+                    RegisterValues.Check(r, Path);
                 }
                 catch (RegisterException ex)
                 {
@@ -302,14 +302,10 @@ public sealed class ReviewRegister : IDisposable
             }
             catch (Exception ex) when (ex is InvalidCastException or OverflowException or InvalidOperationException or FormatException)
             {
-                throw Damaged(ex);
+                throw RegisterValues.Damaged(Path, ex);
             }
         }
     }
-
-    /// <summary>A value of a kind or size CrossCheck never writes, met while reading (a register edited outside CrossCheck).</summary>
-    private RegisterException Damaged(Exception ex) =>
-        new($"register '{Path}' is damaged: it holds a value CrossCheck never writes ({TextSafety.Clean(ex.Message)}). Run 'crosscheck register check', or use another register.", ex);
 
     private long InsertReview(SqliteTransaction tx, ReviewResult review, string reference, int round, string submissionName, string hash)
     {
@@ -409,7 +405,7 @@ public sealed class ReviewRegister : IDisposable
         var list = new List<RegisterReview>();
         while (r.Read())
         {
-            CheckValues(r);
+            RegisterValues.Check(r, Path);
             string? S(int i) => r.IsDBNull(i) ? null : r.GetString(i);
             list.Add(new RegisterReview(r.GetInt64(0), r.GetString(1), r.GetInt32(2), S(3), S(4), r.GetString(5), r.GetString(6), r.GetString(7),
                 r.GetString(8), S(9), r.GetString(10), r.GetDouble(11), r.GetDouble(12), r.GetDouble(13), r.GetString(14), r.GetString(15),
@@ -417,37 +413,6 @@ public sealed class ReviewRegister : IDisposable
                 S(24), r.GetInt32(25)));
         }
         return list;
-    }
-
-    // The storage class each column of ReviewColumns must hold: i integer, t text, T text or null, r real (SQLite keeps
-    // whatever a value is given, so a register edited by hand can hold text where a count belongs).
-    private const string ReviewColumnTypes = "itiTTttttTtrrrtttiiiiiiiTi";
-
-    /// <summary>Refuses a review row whose values are of the wrong kind or out of range (a register edited or damaged outside CrossCheck).</summary>
-    private void CheckValues(SqliteDataReader r)
-    {
-        for (int i = 0; i < ReviewColumnTypes.Length; i++)
-        {
-            char want = ReviewColumnTypes[i];
-            var type = r.GetFieldType(i);
-            bool ok = want switch
-            {
-                'i' => type == typeof(long) && (i == 0 || r.GetInt64(i) is >= 0 and <= int.MaxValue) && (i != 2 || r.GetInt64(i) >= 1),
-                'r' => type == typeof(double) || type == typeof(long),
-                'T' => type == typeof(string) || r.IsDBNull(i),
-                _ => type == typeof(string),
-            };
-            // Values of the right kind that still mean nothing: a tolerance below zero, a verdict or a date CrossCheck never writes.
-            if (ok && want == 'r') ok = r.GetDouble(i) is >= 0 and <= double.MaxValue;
-            if (ok && i == 16) ok = r.GetString(i) is "concur" or "concur-with-comments" or "revise";
-            if (ok && i == 7) ok = DateOnly.TryParseExact(r.GetString(i), "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out _);
-            if (!ok)
-            {
-                string value = r.IsDBNull(i) ? "no value" : $"'{TextSafety.Clean(Convert.ToString(r.GetValue(i), CultureInfo.InvariantCulture) ?? "")}'";
-                throw new RegisterException(
-                    $"register '{Path}' is damaged: review {(r.GetFieldType(0) == typeof(long) ? r.GetInt64(0) : 0)} has {value} in '{r.GetName(i)}'. Run 'crosscheck register check', or use another register.");
-            }
-        }
     }
 
     private List<RegisterFinding> QueryFindings(SqliteTransaction tx, long reviewId)
