@@ -11,6 +11,12 @@ public static class ExitCodes
     public const int Comments = 1;
     public const int InputError = 2;
     public const int InternalError = 3;
+
+    /// <summary>A screen stopped by Ctrl-C (SIGINT) after writing the summary and index of what it had done: 128 + 2.</summary>
+    public const int Interrupted = 130;
+
+    /// <summary>A screen stopped by SIGTERM after writing the summary and index of what it had done: 128 + 15.</summary>
+    public const int Terminated = 143;
 }
 
 /// <summary>The command line: parses arguments, calls the library, returns an exit code. No logic of its own.</summary>

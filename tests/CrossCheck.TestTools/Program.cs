@@ -14,6 +14,7 @@ using CrossCheck.TestTools;
 //   register-write REGISTER SUBMISSION N TAG    record N reviews as N rounds of reference TAG
 //   register-stats REGISTER                      reviews, references, rounds, duplicates and check problems (for the benchmark)
 // REGISTER is a file path or a PostgreSQL URI or connection string.
+//   hostile CLI_DLL [SEED]                      make a fresh set of hostile inputs, run each through the CLI, print the counts
 var inv = CultureInfo.InvariantCulture;
 if (args.Length == 0)
 {
@@ -56,6 +57,9 @@ switch (args[0])
     }
     case "register-stats" when args.Length == 2:
         return RegisterStats(args[1]);
+    case "hostile" when args.Length >= 2:
+        return HostileReport.Run(Path.GetFullPath(args[1]), args.Length > 2 ? int.Parse(args[2], inv) : 1,
+            Path.GetFullPath(Path.Combine(AppContext.BaseDirectory, "..", "..", "..", "..", "..", "fixtures", "demo", "shed-frame")));
     default:
         Console.Error.WriteLine($"unknown or incomplete command: {string.Join(' ', args)}");
         return 2;

@@ -1,3 +1,4 @@
+using CrossCheck.Common;
 using CrossCheck.Import;
 using CrossCheck.Jobs;
 using Spectre.Console;
@@ -9,11 +10,29 @@ internal static class CommandSupport
 {
     public static void Warnings(IEnumerable<InputProblem> warnings, CliIo io)
     {
-        foreach (var w in warnings) io.Error.WriteLine($"warning: {w}");
+        foreach (var w in warnings) io.Error.WriteLine($"warning: {Clean(w.ToString())}");
     }
 
     /// <summary>A sentence for the user, after <c>crosscheck:</c>.</summary>
-    public static void Fail(string message, CliIo io) => io.Error.WriteLine($"crosscheck: {message}");
+    public static void Fail(string message, CliIo io) => io.Error.WriteLine($"crosscheck: {Clean(message)}");
+
+    /// <summary>Text from a submission, a file name or the register, safe for a terminal: no control characters (<see cref="TextSafety"/>).</summary>
+    public static string Clean(string? text) => TextSafety.Clean(text);
+
+    /// <summary>
+    /// Data as a table cell or part of a line: printed exactly as written — never read as console markup (<c>[red]</c>) or
+    /// as an emoji shortcode (<c>:warning:</c>, <c>info.csv:1:key:</c>) — with control characters removed.
+    /// </summary>
+    public static Text Cell(string? text, Style? style = null) => new(Clean(text), style ?? Style.Plain);
+
+    /// <summary>A line made of parts, each printed as written (see <see cref="Cell"/>).</summary>
+    public static void Line(IAnsiConsole console, params (string? Text, Style? Style)[] parts)
+    {
+        var line = new Paragraph();
+        foreach (var (text, style) in parts) line.Append(Clean(text), style ?? Style.Plain);
+        console.Write(line);
+        console.WriteLine();
+    }
 
     /// <summary>Prints why a submission has no result: the input problems, or why its structure cannot be analysed.</summary>
     public static void ReportErrors(string path, IReadOnlyList<InputProblem> errors, string? structureProblem, CliIo io)
@@ -24,13 +43,16 @@ internal static class CommandSupport
             return;
         }
         Fail($"'{path}' could not be read ({errors.Count} problem{(errors.Count == 1 ? "" : "s")}):", io);
-        foreach (var e in errors) io.Error.WriteLine($"  {e.Where.Compact}: {e.Message}");
+        foreach (var e in errors) io.Error.WriteLine($"  {Clean(e.Where.Compact)}: {Clean(e.Message)}");
     }
 
-    /// <summary>Writes to <paramref name="outPath"/> (atomically, by the library), or to standard output when it is null; false (after a message) when the file cannot be written.</summary>
+    /// <summary>
+    /// Writes to <paramref name="outPath"/> (atomically, by the library; a device or pipe is streamed into), or to standard output
+    /// when it is null or <c>-</c>; false (after a message) when the file cannot be written.
+    /// </summary>
     public static bool Emit(string? outPath, string content, CliIo io, bool announce = true)
     {
-        if (outPath is null) { io.Output.Write(content); return true; }
+        if (outPath is null || OutputTarget.IsStandardOutput(outPath)) { io.Output.Write(content); return true; }
         if (!JobOutput.TryWrite(outPath, content, out var problem))
         {
             Fail(problem, io);
@@ -38,6 +60,19 @@ internal static class CommandSupport
         }
         if (announce) io.Error.WriteLine($"wrote {outPath}");
         return true;
+    }
+
+    /// <summary>Bytes (a PDF memo) to standard output: the process's own stream when the command writes to the console.</summary>
+    public static void WriteBytes(byte[] bytes, CliIo io)
+    {
+        if (ReferenceEquals(io.Output, System.Console.Out))
+        {
+            io.Output.Flush();
+            using var stdout = System.Console.OpenStandardOutput();
+            stdout.Write(bytes);
+            return;
+        }
+        io.Output.Write(System.Text.Encoding.Latin1.GetString(bytes));
     }
 
     public static IAnsiConsole Console(CliIo io)

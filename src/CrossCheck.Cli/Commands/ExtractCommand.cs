@@ -42,7 +42,7 @@ internal static class ExtractCommand
         if (x.Tables.Count == 0)
         {
             CommandSupport.Fail(outcome.Problem!, io);
-            foreach (var e in x.Problems.Where(p => p.IsError)) io.Error.WriteLine($"  {e.Where.Compact}: {e.Message}");
+            foreach (var e in x.Problems.Where(p => p.IsError)) io.Error.WriteLine(CommandSupport.Clean($"  {e.Where.Compact}: {e.Message}"));
             return ExitCodes.InputError;
         }
         PrintFound(x, io);
@@ -52,32 +52,32 @@ internal static class ExtractCommand
             return ExitCodes.InputError;
         }
         var files = outcome.Files;
-        io.Output.WriteLine($"wrote {files.Count} table{(files.Count == 1 ? "" : "s")} to {outDir}: {string.Join(", ", files.Select(f => f.FileName))}");
+        io.Output.WriteLine(CommandSupport.Clean($"wrote {files.Count} table{(files.Count == 1 ? "" : "s")} to {outDir}: {string.Join(", ", files.Select(f => f.FileName))}"));
 
         var built = outcome.Built!;
         CommandSupport.Warnings(built.Warnings, io);
         var errors = built.Errors.ToList();
         if (errors.Count == 0)
         {
-            io.Output.WriteLine($"check the tables against the PDF, then run: crosscheck review {outDir}");
+            io.Output.WriteLine(CommandSupport.Clean($"check the tables against the PDF, then run: crosscheck review {outDir}"));
             return ExitCodes.Concur;
         }
         CommandSupport.Fail($"the tables read from '{path}' have {errors.Count} problem{(errors.Count == 1 ? "" : "s")}; correct them in {outDir} and review the folder:", io);
-        foreach (var e in errors) io.Error.WriteLine($"  {e.Where.Compact}: {e.Message}");
+        foreach (var e in errors) io.Error.WriteLine(CommandSupport.Clean($"  {e.Where.Compact}: {e.Message}"));
         return ExitCodes.InputError;
     }
 
     private static void PrintFound(PdfExtraction x, CliIo io)
     {
-        io.Output.WriteLine($"{Path.GetFileName(x.Source)}: {x.Found.Count} table{(x.Found.Count == 1 ? "" : "s")} read");
+        io.Output.WriteLine(CommandSupport.Clean($"{Path.GetFileName(x.Source)}: {x.Found.Count} table{(x.Found.Count == 1 ? "" : "s")} read"));
         foreach (var f in x.Found)
         {
-            io.Output.WriteLine($"  {f.Table}: {f.Rows} row{(f.Rows == 1 ? "" : "s")}, {f.Where}{(f.Note is null ? "" : $" ({f.Note})")}");
-            foreach (var c in f.Columns) io.Output.WriteLine($"      {c}");
+            io.Output.WriteLine(CommandSupport.Clean($"  {f.Table}: {f.Rows} row{(f.Rows == 1 ? "" : "s")}, {f.Where}{(f.Note is null ? "" : $" ({f.Note})")}"));
+            foreach (var c in f.Columns) io.Output.WriteLine(CommandSupport.Clean($"      {c}"));
         }
-        foreach (var n in x.Notes) io.Output.WriteLine($"note: {n.What} ({n.Where.Citation})");
+        foreach (var n in x.Notes) io.Output.WriteLine(CommandSupport.Clean($"note: {n.What} ({n.Where.Citation})"));
         if (x.Ignored.Count == 0) return;
         io.Output.WriteLine("not read:");
-        foreach (var i in x.Ignored) io.Output.WriteLine($"  {i.Where.Citation}: {i.What}");
+        foreach (var i in x.Ignored) io.Output.WriteLine(CommandSupport.Clean($"  {i.Where.Citation}: {i.What}"));
     }
 }

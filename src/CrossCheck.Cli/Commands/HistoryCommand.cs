@@ -58,7 +58,23 @@ internal static class HistoryCommand
         return null;
     }
 
-    private static int Run(string? reference, string path, CliIo io)
+    /// <summary>A register that cannot be read (damaged, bad values, locked) is the user's to fix: a sentence and exit code 2.</summary>
+    private static int Guarded(CliIo io, Func<int> body)
+    {
+        try
+        {
+            return body();
+        }
+        catch (RegisterException ex)
+        {
+            CommandSupport.Fail(ex.Message, io);
+            return ExitCodes.InputError;
+        }
+    }
+
+    private static int Run(string? reference, string path, CliIo io) => Guarded(io, () => History(reference, path, io));
+
+    private static int History(string? reference, string path, CliIo io)
     {
         using var register = OpenExisting(path, io);
         if (register is null) return ExitCodes.InputError;
@@ -84,8 +100,8 @@ internal static class HistoryCommand
             foreach (var (h, right) in new[] { ("reference", false), ("rounds", true), ("reviews", true), ("latest", true), ("date", false), ("verdict", false), ("open comments", true) })
                 t.AddColumn(right ? new TableColumn(h).RightAligned() : new TableColumn(h));
             foreach (var r in refs)
-                t.AddRow(Markup.Escape(r.Reference), N(r.Rounds), N(r.Reviews), N(r.Latest.Round), Markup.Escape(r.Latest.ReviewDate),
-                    Markup.Escape(r.Latest.Verdict), N(r.Latest.FindingCount));
+                t.AddRow(C(r.Reference), C(N(r.Rounds)), C(N(r.Reviews)), C(N(r.Latest.Round)), C(r.Latest.ReviewDate), C(r.Latest.Verdict),
+                    C(N(r.Latest.FindingCount)));
             console.Write(t);
             return ExitCodes.Concur;
         }
@@ -97,7 +113,7 @@ internal static class HistoryCommand
             return ExitCodes.InputError;
         }
         int rounds = history.Select(h => h.Review.Round).Distinct().Count();
-        console.MarkupLine($"[bold]{Markup.Escape(reference)}[/]: {Words.Count(rounds, "round")}, {Words.Count(history.Count, "review")}");
+        CommandSupport.Line(console, (reference, new Style(decoration: Decoration.Bold)), ($": {Words.Count(rounds, "round")}, {Words.Count(history.Count, "review")}", null));
         // Fits a 100-column terminal: short headers, one column for closed / persisting / new, the input hash shortened.
         var table = new Table().Border(TableBorder.Simple);
         foreach (var (h, right) in new[] { ("round", false), ("rev", false), ("date", false), ("reviewer", false), ("verdict", false), ("disc", true),
@@ -110,8 +126,8 @@ internal static class HistoryCommand
         {
             var r = h.Review;
             string changes = h.Previous is null ? "—" : $"{N(h.Closed.Count)}/{N(h.Persisting.Count)}/{N(h.New.Count)}";
-            table.AddRow(N(r.Round) + (h.Repeat ? " rpt" : ""), Markup.Escape(Cut(r.Revision ?? "—", 4)), Markup.Escape(r.ReviewDate),
-                Markup.Escape(Cut(r.Reviewer ?? "—", 14)), Markup.Escape(r.Verdict), N(r.EndsDiscrepant), N(r.FindingCount), changes, Markup.Escape(Short(r.InputHash)));
+            table.AddRow(C(N(r.Round) + (h.Repeat ? " rpt" : "")), C(Cut(r.Revision ?? "—", 4)), C(r.ReviewDate),
+                C(Cut(r.Reviewer ?? "—", 14)), C(r.Verdict), C(N(r.EndsDiscrepant)), C(N(r.FindingCount)), C(changes), C(Short(r.InputHash)));
         }
         console.Write(table);
         foreach (var h in history)
@@ -119,15 +135,17 @@ internal static class HistoryCommand
             string head = $"round {h.Review.Round}{(h.Repeat ? " (repeat)" : "")}{(h.Review.ToolVersion != ToolInfo.Version ? $" (CrossCheck {h.Review.ToolVersion})" : "")}";
             if (h.Previous is null)
             {
-                console.WriteLine($"{head}: raised {Ids(h.New)}");
+                console.WriteLine(CommandSupport.Clean($"{head}: raised {Ids(h.New)}"));
                 continue;
             }
-            console.WriteLine($"{head} against round {h.Previous.Round}: closed {Ids(h.Closed)}; persisting {Ids(h.Persisting)}; new {Ids(h.New)}");
+            console.WriteLine(CommandSupport.Clean($"{head} against round {h.Previous.Round}: closed {Ids(h.Closed)}; persisting {Ids(h.Persisting)}; new {Ids(h.New)}"));
         }
         return ExitCodes.Concur;
     }
 
-    private static int Export(string path, bool findings, string? outPath, CliIo io)
+    private static int Export(string path, bool findings, string? outPath, CliIo io) => Guarded(io, () => ExportTo(path, findings, outPath, io));
+
+    private static int ExportTo(string path, bool findings, string? outPath, CliIo io)
     {
         var (text, written, problem) = RegisterJob.Export(path, findings, outPath);
         if (problem is not null)
@@ -140,16 +158,19 @@ internal static class HistoryCommand
         return ExitCodes.Concur;
     }
 
-    private static int Check(string path, CliIo io)
+    private static int Check(string path, CliIo io) => Guarded(io, () => CheckRegister(path, io));
+
+    private static int CheckRegister(string path, CliIo io)
     {
         using var register = OpenExisting(path, io);
         if (register is null) return ExitCodes.InputError;
         IReadOnlyList<string> problems;
-        RegisterTally tally;
+        RegisterTally? tally = null;
         try
         {
             problems = register.Check();
-            tally = register.Tally();
+            // The counts and digest read every value: only for a register whose values are sound.
+            if (problems.Count == 0) tally = register.Tally();
         }
         catch (RegisterException ex)
         {
@@ -159,10 +180,10 @@ internal static class HistoryCommand
         if (problems.Count == 0)
         {
             io.Output.WriteLine($"{register.Path}: sound (schema version {register.SchemaVersion}, {Words.Count(register.Reviews().Count, "review")}).");
-            io.Output.WriteLine($"{register.Path}: {Tally(tally)}");
+            io.Output.WriteLine($"{register.Path}: {Tally(tally!)}");
             return ExitCodes.Concur;
         }
-        foreach (var p in problems) io.Output.WriteLine($"{register.Path}: {p}");
+        foreach (var p in problems) io.Output.WriteLine(CommandSupport.Clean($"{register.Path}: {p}"));
         return ExitCodes.Comments;
     }
 
@@ -199,4 +220,6 @@ internal static class HistoryCommand
     private static string Cut(string text, int max) => text.Length <= max ? text : text[..(max - 1)] + "…";
 
     private static string N(int v) => v.ToString(CultureInfo.InvariantCulture);
+
+    private static Spectre.Console.Rendering.IRenderable C(string? text) => CommandSupport.Cell(text);
 }

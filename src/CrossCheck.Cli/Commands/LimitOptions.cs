@@ -21,7 +21,10 @@ internal sealed class LimitOptions
         _defaults = defaults ?? InputLimits.Default;
         var d = _defaults;
         _maxPages = new("--max-pages") { Description = "Read PDFs of at most this many pages.", DefaultValueFactory = _ => d.Pdf.MaxPages };
-        _timeLimit = new("--time-limit") { Description = "Give up reading a PDF after this many seconds.", DefaultValueFactory = _ => d.Pdf.TimeBudget.TotalSeconds };
+        _timeLimit = new("--time-limit")
+        {
+            Description = "Stop a review (reading included; in a screen, each submission's) after this many seconds.", DefaultValueFactory = _ => d.TimeBudget.TotalSeconds,
+        };
         _maxRows = new("--max-rows") { Description = "Read tables of at most this many rows.", DefaultValueFactory = _ => d.MaxRows };
         _maxMembers = new("--max-members")
         {
@@ -64,6 +67,7 @@ internal sealed class LimitOptions
             MaxMembers = members,
             MaxJoints = 2 * members,
             MaxFileBytes = bytes,
+            TimeBudget = TimeSpan.FromSeconds(seconds),
             Pdf = _defaults.Pdf with
             {
                 MaxPages = pages,

@@ -61,6 +61,7 @@ internal static class ReviewCommand
         });
         CommandSupport.Warnings(outcome.Warnings, io);
         if (outcome.Text is not null) io.Output.Write(outcome.Text);
+        if (outcome.Bytes is not null) CommandSupport.WriteBytes(outcome.Bytes, io);
         switch (outcome.Status)
         {
             case ReviewJobStatus.Refused:
@@ -73,7 +74,7 @@ internal static class ReviewCommand
                 return ExitCodes.InputError;
         }
         var review = outcome.Review!;
-        if (!r.Quiet && outcome.Text is null) PrintSummary(review, outcome.Rounds, outcome.WrittenTo, io);
+        if (!r.Quiet && outcome.Text is null && outcome.Bytes is null) PrintSummary(review, outcome.Rounds, outcome.WrittenTo, io);
         return review.Verdict == Verdict.Concur ? ExitCodes.Concur : ExitCodes.Comments;
     }
 
@@ -83,7 +84,8 @@ internal static class ReviewCommand
         var s = review.Submission;
         var quote = new Quoting(s);
         string colour = review.Verdict switch { Verdict.Concur => "green", Verdict.ConcurWithComments => "yellow", _ => "red" };
-        console.MarkupLine($"[bold]{Markup.Escape(s.Info.Title ?? s.Source)}[/]  verdict: [bold {colour}]{Markup.Escape(review.Verdict.Json())}[/]");
+        CommandSupport.Line(console, (s.Info.Title ?? s.Source, new Style(decoration: Decoration.Bold)), ("  verdict: ", null),
+            (review.Verdict.Json(), Style.Parse($"bold {colour}")));
         var counts = new Table().Border(TableBorder.Simple);
         counts.AddColumn("case");
         foreach (var h in new[] { "agree", "minor", "discrepant", "missing", "unmatched", "comments" }) counts.AddColumn(new TableColumn(h).RightAligned());
@@ -91,8 +93,8 @@ internal static class ReviewCommand
         foreach (var c in review.Cases)
         {
             int comments = review.Comments.Count(cm => cm.Cases.Contains(c.Case));
-            counts.AddRow(Markup.Escape(c.Case), Num(c.Count(EndStatus.Agree)), Num(c.Count(EndStatus.Minor)), Num(c.Count(EndStatus.Discrepant)),
-                Num(c.Count(EndStatus.Missing)), Num(c.Count(EndStatus.Unmatched)), Num(comments), Markup.Escape(c.Causes.FirstOrDefault()?.Kind.Term().Title ?? "—"));
+            counts.AddRow(CommandSupport.Cell(c.Case), Cell(c.Count(EndStatus.Agree)), Cell(c.Count(EndStatus.Minor)), Cell(c.Count(EndStatus.Discrepant)),
+                Cell(c.Count(EndStatus.Missing)), Cell(c.Count(EndStatus.Unmatched)), Cell(comments), CommandSupport.Cell(c.Causes.FirstOrDefault()?.Kind.Term().Title ?? "—"));
         }
         console.Write(counts);
         var worst = review.AllEndMoments.Where(e => e.Status is EndStatus.Discrepant or EndStatus.Minor && e.Claim is not null && e.End is not null)
@@ -107,8 +109,8 @@ internal static class ReviewCommand
             {
                 var end = e.End!.Value;
                 double diff = quote.MomentUnit.FromSi(s.Info.SignConvention.FromClockwise(e.Difference!.Value, end));
-                t.AddRow(Markup.Escape(e.Case), Markup.Escape(e.Member), Markup.Escape(e.At), Markup.Escape(Quoting.ClaimNumber(e.Claim!)),
-                    quote.EndNumber(e.Recomputed!.Value, end), Fmt.Number(diff, "+0.0#;-0.0#;0.0"), e.Status.Json());
+                t.AddRow(CommandSupport.Cell(e.Case), CommandSupport.Cell(e.Member), CommandSupport.Cell(e.At), CommandSupport.Cell(Quoting.ClaimNumber(e.Claim!)),
+                    CommandSupport.Cell(quote.EndNumber(e.Recomputed!.Value, end)), CommandSupport.Cell(Fmt.Number(diff, "+0.0#;-0.0#;0.0")), CommandSupport.Cell(e.Status.Json()));
             }
             console.Write(t);
         }
@@ -116,14 +118,15 @@ internal static class ReviewCommand
         foreach (var cm in review.Comments.Take(Listed))
         {
             string what = cm.Cause is { } cause ? cause.Term().Title : cm.Symptoms.Count > 0 ? Kind(cm.Symptoms[0].Kind) : "";
-            console.MarkupLine($"  [{(cm.Severity == Severity.Major ? "red" : "yellow")}]{cm.Severity.Json(),-5}[/] {Markup.Escape(cm.Id)}  case {Markup.Escape(cm.Case)}, {Markup.Escape(cm.Where)}: {Markup.Escape(what)}");
+            CommandSupport.Line(console, ("  ", null), ($"{cm.Severity.Json(),-5}", Style.Parse(cm.Severity == Severity.Major ? "red" : "yellow")),
+                ($" {cm.Id}  case {cm.Case}, {cm.Where}: {what}", null));
         }
         if (review.Comments.Count > Listed) console.MarkupLine($"  ... and {review.Comments.Count - Listed} more in the memo");
-        if (rounds is not null) console.MarkupLine(Markup.Escape(RoundsLine(rounds)));
-        if (memoPath is not null) console.MarkupLine($"memo: {Markup.Escape(memoPath)}");
+        if (rounds is not null) CommandSupport.Line(console, (RoundsLine(rounds), null));
+        if (memoPath is not null) CommandSupport.Line(console, ("memo: " + memoPath, null));
     }
 
-    private static string Num(int n) => n.ToString(System.Globalization.CultureInfo.InvariantCulture);
+    private static Text Cell(int n) => CommandSupport.Cell(n.ToString(System.Globalization.CultureInfo.InvariantCulture));
 
     /// <summary>The words of a symptom's kind ("end moment", "joint equilibrium").</summary>
     private static string Kind(string code) => ReviewTerms.AllFlags.FirstOrDefault(t => t.Code == code)?.Title ?? code;

@@ -41,6 +41,7 @@ internal sealed class ReviewSettings
             }
             date = d;
         }
-        return new ReviewOptions(abs, rel, minor, pr.GetValue(_reviewer), date);
+        string? reviewer = pr.GetValue(_reviewer) is { } name ? Common.TextSafety.Clean(name) : null;
+        return new ReviewOptions(abs, rel, minor, reviewer, date);
     }
 }

@@ -1,5 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
+using System.Runtime.InteropServices;
 using CrossCheck.Jobs;
 using CrossCheck.Memo;
 using CrossCheck.Register;
@@ -75,6 +76,18 @@ internal static class ScreenCommand
 
         var console = CommandSupport.Console(io);
         ScreenReport report;
+        // Ctrl-C or SIGTERM: the screen finishes what it has recorded, writes the summary and index of what is done, and
+        // leaves its note so that the same command, run again, completes it.
+        using var stop = new CancellationTokenSource();
+        int signal = 0;
+        void Stop(PosixSignalContext context)
+        {
+            context.Cancel = true;
+            signal = context.Signal == PosixSignal.SIGTERM ? ExitCodes.Terminated : ExitCodes.Interrupted;
+            stop.Cancel();
+        }
+        using var sigint = PosixSignalRegistration.Create(PosixSignal.SIGINT, Stop);
+        using var sigterm = PosixSignalRegistration.Create(PosixSignal.SIGTERM, Stop);
         try
         {
             if (io.Interactive && !quiet)
@@ -82,12 +95,12 @@ internal static class ScreenCommand
                 ScreenReport? result = null;
                 console.Progress().AutoClear(false).HideCompleted(false)
                     .Columns(new TaskDescriptionColumn(), new ProgressBarColumn(), new PercentageColumn(), new RemainingTimeColumn(), new SpinnerColumn())
-                    .Start(ctx => result = Screener.Run(folder, options, new BarProgress(ctx)));
+                    .Start(ctx => result = Screener.Run(folder, options, new BarProgress(ctx), stop.Token));
                 report = result!;
             }
             else
             {
-                report = Screener.Run(folder, options, quiet ? null : new LineProgress(io.Output));
+                report = Screener.Run(folder, options, quiet ? null : new LineProgress(io.Output), stop.Token);
             }
         }
         catch (RegisterException ex)
@@ -102,13 +115,21 @@ internal static class ScreenCommand
         }
 
         PrintSummary(report, quiet, console);
+        if (report.Interrupted)
+        {
+            io.Error.WriteLine($"crosscheck: interrupted; {report.Pending.Count} submission(s) not screened. Run the same command again to finish the screen.");
+            return signal == 0 ? ExitCodes.Interrupted : signal;
+        }
         return ExitCode(report);
     }
 
-    /// <summary>3 if anything went wrong inside CrossCheck, else 2 if any input error, else 1 if any revise or comments, else 0.</summary>
+    /// <summary>
+    /// 3 if CrossCheck itself failed on a submission, else 2 if any input error or any output or register record that could not be
+    /// written (a full disk, a template failing on a review: the user's or the machine's to fix), else 1 if any revise or comments, else 0.
+    /// </summary>
     internal static int ExitCode(ScreenReport report) =>
-        report.Rows.Any(r => r.Outcome == ScreenOutcome.InternalError || r.Problem is not null) ? ExitCodes.InternalError
-        : report.Rows.Any(r => r.Outcome == ScreenOutcome.InputError) ? ExitCodes.InputError
+        report.Rows.Any(r => r.Outcome == ScreenOutcome.InternalError) ? ExitCodes.InternalError
+        : report.Rows.Any(r => r.Outcome == ScreenOutcome.InputError || r.Problem is not null) ? ExitCodes.InputError
         : report.Rows.Any(r => r.Outcome is ScreenOutcome.Revise or ScreenOutcome.Comments) ? ExitCodes.Comments
         : ExitCodes.Concur;
 
@@ -134,20 +155,20 @@ internal static class ScreenCommand
                 };
                 string rounds = ScreenOutputs.RoundsText(r.Rounds);
                 string what = r.Review is null ? r.ErrorText ?? "" : r.TopFinding + (r.Problem is null ? "" : $" ({r.Problem})");
-                table.AddRow(Markup.Escape(r.Name), $"[{colour}]{Markup.Escape(ScreenOutputs.OutcomeWord(r.Outcome))}[/]",
-                    r.Review is null ? "" : r.Discrepant.ToString(CultureInfo.InvariantCulture), Markup.Escape(what),
-                    r.Rounds?.Review.Round.ToString(CultureInfo.InvariantCulture) ?? "", Markup.Escape(rounds));
+                table.AddRow(CommandSupport.Cell(r.Name), CommandSupport.Cell(ScreenOutputs.OutcomeWord(r.Outcome), Style.Parse(colour)),
+                    CommandSupport.Cell(r.Review is null ? "" : r.Discrepant.ToString(CultureInfo.InvariantCulture)), CommandSupport.Cell(what),
+                    CommandSupport.Cell(r.Rounds?.Review.Round.ToString(CultureInfo.InvariantCulture) ?? ""), CommandSupport.Cell(rounds));
             }
             console.Write(table);
-            foreach (var g in report.Groups) console.WriteLine($"  {g.Sentence}");
-            foreach (var note in report.Notes) console.WriteLine($"note: {note}");
+            foreach (var g in report.Groups) console.WriteLine(CommandSupport.Clean($"  {g.Sentence}"));
+            foreach (var note in report.Notes) console.WriteLine(CommandSupport.Clean($"note: {note}"));
         }
         string internalErrors = report.Count(ScreenOutcome.InternalError) > 0 ? $", {report.Count(ScreenOutcome.InternalError)} internal errors" : "";
         console.WriteLine(string.Create(CultureInfo.InvariantCulture,
             $"{report.Rows.Count} submissions: {report.Count(ScreenOutcome.Concur)} concur, {report.Count(ScreenOutcome.Comments)} concur-with-comments, {report.Count(ScreenOutcome.Revise)} revise, {report.Count(ScreenOutcome.InputError)} input errors{internalErrors} ({report.Elapsed.TotalSeconds:0.0} s, {report.SubmissionsPerSecond:0.#} per second, {report.Parallelism} at a time)."));
-        console.WriteLine($"index: {Path.Combine(report.OutputFolder, Screener.IndexFile)}");
-        console.WriteLine($"summary: {Path.Combine(report.OutputFolder, Screener.SummaryFile)}");
-        if (report.RegisterPath is not null) console.WriteLine($"register: {report.RegisterPath}");
+        console.WriteLine(CommandSupport.Clean($"index: {Path.Combine(report.OutputFolder, Screener.IndexFile)}"));
+        console.WriteLine(CommandSupport.Clean($"summary: {Path.Combine(report.OutputFolder, Screener.SummaryFile)}"));
+        if (report.RegisterPath is not null) console.WriteLine(CommandSupport.Clean($"register: {report.RegisterPath}"));
     }
 
     /// <summary>A progress bar per stage on a terminal.</summary>
@@ -180,11 +201,11 @@ internal static class ScreenCommand
         }
 
         public void Reviewed(ScreenItem item, ScreenOutcome outcome, int done) =>
-            output.WriteLine($"[{done}/{_total}] {item.Name}: {ScreenOutputs.OutcomeWord(outcome)}");
+            output.WriteLine(CommandSupport.Clean($"[{done}/{_total}] {item.Name}: {ScreenOutputs.OutcomeWord(outcome)}"));
 
         public void Written(ScreenRow row, int done)
         {
-            if (row.Problem is not null) output.WriteLine($"  {row.Name}: {row.Problem}");
+            if (row.Problem is not null) output.WriteLine(CommandSupport.Clean($"  {row.Name}: {row.Problem}"));
         }
     }
 }

@@ -32,6 +32,11 @@ internal static class SolveCommand
 
     private static int Run(string path, string format, string? outPath, Import.InputLimits limits, CliIo io)
     {
+        if (JobOutput.RefuseInput(outPath, path) is { } clash)
+        {
+            CommandSupport.Fail(clash, io);
+            return ExitCodes.InputError;
+        }
         var outcome = SolveJob.Run(path, limits);
         CommandSupport.Warnings(outcome.Warnings, io);
         if (outcome.Report is not { } report)
@@ -39,7 +44,7 @@ internal static class SolveCommand
             CommandSupport.ReportErrors(path, outcome.Errors, outcome.StructureProblem, io);
             return ExitCodes.InputError;
         }
-        foreach (var note in report.Result.Notes) io.Error.WriteLine($"note: {note}");
+        foreach (var note in report.Result.Notes) io.Error.WriteLine(CommandSupport.Clean($"note: {note}"));
         string content;
         switch (format)
         {
@@ -67,16 +72,17 @@ internal static class SolveCommand
     {
         var console = CommandSupport.Console(io);
         var s = report.Submission;
-        console.WriteLine($"{s.Info.Title ?? Path.GetFileName(s.Source)}: recomputed member end moments");
+        console.WriteLine(CommandSupport.Clean($"{s.Info.Title ?? Path.GetFileName(s.Source)}: recomputed member end moments"));
         console.WriteLine($"moments in {report.MomentUnit}, {report.ConventionName}");
         foreach (var c in report.Result.Cases)
         {
-            var table = new Table().Border(TableBorder.Simple).Title(Markup.Escape($"load case {c.Case}"));
+            CommandSupport.Line(console, ($"load case {c.Case}", null));
+            var table = new Table().Border(TableBorder.Simple);
             table.AddColumn("member");
             table.AddColumn("at joint");
             table.AddColumn(new TableColumn(Markup.Escape($"moment [{report.MomentUnit}]")).RightAligned());
             foreach (var r in report.EndMoments.Where(e => e.Case == c.Case))
-                table.AddRow(Markup.Escape(r.Member), Markup.Escape(r.At), Fmt.Number(r.Moment));
+                table.AddRow(CommandSupport.Cell(r.Member), CommandSupport.Cell(r.At), CommandSupport.Cell(Fmt.Number(r.Moment)));
             console.Write(table);
         }
     }

@@ -1,4 +1,3 @@
-using System.Text;
 using System.Text.RegularExpressions;
 using CrossCheck.Model;
 using CsvHelper;
@@ -74,44 +73,9 @@ public static partial class CsvTableReader
     {
         decimalComma = false;
         var where = new SourceRef(displayName);
-        byte[] bytes;
-        try
-        {
-            var info = new FileInfo(path);
-            if (info.Length > limits.MaxFileBytes)
-            {
-                problems.Add(new InputProblem(where, Messages.CsvTooLarge(info.Length, limits.MaxFileBytes)));
-                return null;
-            }
-            bytes = File.ReadAllBytes(path);
-        }
-        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
-        {
-            problems.Add(new InputProblem(where, Messages.NotACsv(ex.Message)));
-            return null;
-        }
-        if (bytes.Length == 0)
-        {
-            problems.Add(new InputProblem(where, Messages.EmptyFile));
-            return null;
-        }
-        if (LooksBinary(bytes))
-        {
-            problems.Add(new InputProblem(where, Messages.NotACsv("it contains binary data, not text")));
-            return null;
-        }
-        string text;
-        try
-        {
-            text = new UTF8Encoding(false, true).GetString(bytes);
-        }
-        catch (DecoderFallbackException)
-        {
-            // Not UTF-8: spreadsheets on older systems save Windows-1252; Latin-1 keeps every byte readable.
-            text = Encoding.Latin1.GetString(bytes);
-            problems.Add(new InputProblem(where, Messages.NotUtf8, ProblemSeverity.Warning));
-        }
-        if (text.Length > 0 && text[0] == '\uFEFF') text = text[1..];
+        // The bytes: opened once, a regular file inside the submission's folder, counted against the budget as read;
+        // then decoded from whichever Unicode encoding they are in (InputText).
+        if (InputFiles.ReadText(path, where, limits, limits.MaxFileBytes, problems, Messages.CsvTooLarge, Messages.NotACsv) is not { } text) return null;
         text = StripByteOrderMarks(text, displayName, problems);
         if (!LinesFit(text, displayName, limits, problems)) return null;
         char separator = DetectSeparator(text);
@@ -189,18 +153,6 @@ public static partial class CsvTableReader
             start = i + 1;
         }
         return true;
-    }
-
-    private static bool LooksBinary(byte[] bytes)
-    {
-        int n = Math.Min(bytes.Length, 8192), control = 0;
-        for (int i = 0; i < n; i++)
-        {
-            byte b = bytes[i];
-            if (b == 0) return true;
-            if (b < 9 || (b > 13 && b < 32)) control++;
-        }
-        return n > 0 && control > n / 20;
     }
 
     /// <summary>The header row decides: <c>;</c> in the first header line means a semicolon file.</summary>

@@ -43,9 +43,13 @@ public static class InputHash
         }
     }
 
+    /// <summary>Larger than any file the readers accept (a PDF of 100 MB, raised limits aside).</summary>
+    private const long MaxBytes = 2L * 1024 * 1024 * 1024 - 64;
+
     private static void Add(IncrementalHash hash, string name, string file)
     {
-        byte[] bytes = File.ReadAllBytes(file);
+        // Bounded and regular files only, as the readers: a table linked to /dev/zero must not hang the hash either.
+        byte[] bytes = Common.InputFile.Read(file, MaxBytes);
         hash.AppendData(Encoding.UTF8.GetBytes(name));
         hash.AppendData([0]);
         hash.AppendData(BitConverter.GetBytes((long)bytes.Length));

@@ -51,6 +51,19 @@ public sealed record InputLimits
     /// <summary>Smallest non-zero magnitude in SI units; below it lie denormal numbers, which lose precision in every operation.</summary>
     public double MinMagnitude { get; init; } = 1e-280;
 
+    /// <summary>
+    /// Longest a review of one submission may take, reading, analysis, checks and diagnosis included (<c>--time-limit</c>, which
+    /// also sets <see cref="PdfLimits.TimeBudget"/>); a review over it is stopped and reported as an input error, and in a
+    /// screen that submission becomes a row with that error. A 300-member frame with every claim wrong takes tens of seconds.
+    /// </summary>
+    public TimeSpan TimeBudget { get; init; } = TimeSpan.FromSeconds(60);
+
+    /// <summary>
+    /// A folder every file read must lie in once its links are resolved (the folder screened), or null: then a folder
+    /// submission's files must lie in that folder, and a file named on its own is read wherever its link leads.
+    /// </summary>
+    public string? Within { get; init; }
+
     /// <summary>Bounds on reading a PDF (pages, time, size, letters, decoded streams, nesting).</summary>
     public PdfLimits Pdf { get; init; } = PdfLimits.Default;
 

@@ -110,6 +110,11 @@ internal static class Messages
     public static string NoSections => "the file has no tables: a single-file submission introduces each table with a line such as [members]";
     public static string EmptyTable(string name) => F($"table '{name}' has no header row");
     public static string NotFound(string path) => F($"'{path}' does not exist");
+    public static string ControlCharacters(int cells) =>
+        F($"{cells} cell(s) of this table held control characters (an escape sequence?); they were removed before the cells were read");
+    public static string NotARegularFile(string what) => F($"the file is {what}; CrossCheck reads regular files only, so it was not read");
+    public static string OverTimeBudget(double seconds) =>
+        F($"the review took longer than the time limit of {seconds:0.#} s and was stopped; raise it with --time-limit, or split the submission");
     public static string Unsupported(string path) => F($"'{path}' is not a folder, a .csv file or a .pdf file");
 
     // ---- PDF input ----------------------------------------------------------------------------------
@@ -120,6 +125,8 @@ internal static class Messages
     public static string PdfNotPdf => "the file is not a PDF (it does not begin with '%PDF-'); give a text PDF, a CSV file or a folder of CSV tables";
     public static string PdfDamaged(string reason) =>
         F($"the PDF is damaged or uses features CrossCheck cannot read ({reason}); export the calculation again, or give its tables as CSV");
+    /// <summary>A PDF the PDF library failed on: its own words are not shown (they describe its internals, and may quote the file).</summary>
+    public static string PdfUnreadable => PdfDamaged("its structure could not be parsed");
     public static string PdfEncrypted =>
         "the PDF is encrypted with a password; CrossCheck cannot read it. Export an unprotected copy, or give the tables as CSV";
     public static string PdfNoPages => "the PDF has no pages";
@@ -180,5 +187,14 @@ internal static class Messages
     public static string WorkingNeedsStep => "table 'distribution' needs a column 'step' (DF, FEM, balance, carry-over, final)";
     public static string WorkingStepUnknown(string label) => F($"step \"{label}\" is not recognised (use DF, FEM, balance, carry-over or final)");
 
+    public static string CoincidentJoints(string first, string second, string at) =>
+        F($"joints '{first}' and '{second}' are at the same place ({at}); members that name one are not connected to members that name the other. Use one joint if they should be joined");
+    public static string ParallelMembers(string first, string second, string a, string b) =>
+        F($"members '{first}' and '{second}' both join '{a}' and '{b}'; their stiffnesses add (is one member entered twice?)");
+    public static string MemberThroughJoint(string member, string joint) =>
+        F($"joint '{joint}' lies on member '{member}' between its ends, but the member is not connected to it; split the member at '{joint}' if they should be joined (or two members overlap)");
+    public static string LookAlikeIds(string kind, string first, string second, string differences) =>
+        F($"{kind} ids '{first}' and '{second}' look alike but are different ids ({differences}); a reference to one does not reach the other");
+    public static string LoadOverNoLength => "'b' equals 'a': a distributed load over no length does nothing; give its extent, or use a point load";
     public static string NoJointsConnected(string id) => F($"joint '{id}' is not connected to any member");
 }

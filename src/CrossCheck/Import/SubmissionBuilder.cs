@@ -1,3 +1,4 @@
+using CrossCheck.Common;
 using CrossCheck.Import.Tables;
 using CrossCheck.Model;
 
@@ -24,6 +25,7 @@ public sealed class SubmissionBuilder
         new MembersReader(),
         new BeamReader(),          // supports + spans
         new StructureAssembly(),   // the model from the geometry, checked as a whole
+        new ModelSanity(),         // coincident joints, members through joints or twice, look-alike ids: warnings
         new LoadsReader(),
         new EndMomentsReader(),
         new ReactionsReader(),
@@ -46,7 +48,7 @@ public sealed class SubmissionBuilder
         limits ??= InputLimits.Default;
         var problems = new List<InputProblem>(earlier ?? []);
         var byName = new Dictionary<string, RawTable>(StringComparer.Ordinal);
-        foreach (var t in tables)
+        foreach (var t in tables.Select(t => WithoutControls(t, problems)))
         {
             var spec = TableSchema.Find(t.Name);
             var where = new SourceRef(t.File, t.Name, t.Header.Line, null, t.Header.Page);
@@ -54,15 +56,52 @@ public sealed class SubmissionBuilder
             if (!byName.TryAdd(spec.Name, t)) problems.Add(new InputProblem(where, Messages.DuplicateTable(spec.Name)));
         }
         // Over a limit, nothing else is read: the other messages would only follow from the table left out.
-        if (OverLimits(byName, limits) is { } over) return new ImportResult(null, [.. problems, over]);
+        if (OverLimits(byName, limits) is { } over) return new ImportResult(null, Collapse([.. problems, over]));
         // Nothing could be read at all: the reader said why; "no joints table, no loads table, ..." would add nothing.
-        if (byName.Count == 0 && problems.Any(p => p.IsError)) return new ImportResult(null, problems);
+        if (byName.Count == 0 && problems.Any(p => p.IsError)) return new ImportResult(null, Collapse(problems));
         var draft = new SubmissionDraft(source, byName, limits, problems);
         foreach (var reader in Readers) reader.Read(draft);
-        if (draft.HasErrors) return new ImportResult(null, problems);
+        if (draft.HasErrors) return new ImportResult(null, Collapse(problems));
         var info = draft.Info with { Units = draft.DisplayUnits() };
-        var submission = new Submission(source, info, draft.Model, draft.Cases, draft.Claims) { WorkingTables = draft.WorkingTables };
-        return new ImportResult(submission, problems);
+        var submission = new Submission(TextSafety.Clean(source), info, draft.Model, draft.Cases, draft.Claims) { WorkingTables = draft.WorkingTables };
+        return new ImportResult(submission, Collapse(problems));
+    }
+
+    /// <summary>
+    /// The same message at the same place once, with how many times it was found ("... (13496 times)"): a header of one unknown
+    /// column repeated thousands of times is one warning, not thousands.
+    /// </summary>
+    internal static List<InputProblem> Collapse(List<InputProblem> problems)
+    {
+        var counts = new Dictionary<(string, string, ProblemSeverity), int>();
+        foreach (var p in problems) counts[(p.Where.Compact, p.Message, p.Severity)] = counts.GetValueOrDefault((p.Where.Compact, p.Message, p.Severity)) + 1;
+        if (counts.Count == problems.Count) return problems;
+        var seen = new HashSet<(string, string, ProblemSeverity)>();
+        return problems.Where(p => seen.Add((p.Where.Compact, p.Message, p.Severity)))
+            .Select(p => counts[(p.Where.Compact, p.Message, p.Severity)] is var n and > 1 ? p with { Message = $"{p.Message} ({Words.Count(n, "time")})" } : p)
+            .ToList();
+    }
+
+    /// <summary>
+    /// The table with control characters removed from every cell (an escape sequence in a title would reach the terminal, the
+    /// memo and the register), with one warning naming the first cell that held any and how many did.
+    /// </summary>
+    private static RawTable WithoutControls(RawTable t, List<InputProblem> problems)
+    {
+        int count = 0;
+        RawRow? first = null;
+        RawRow Clean(RawRow r)
+        {
+            if (!r.Cells.Any(TextSafety.NeedsControlRemoval) && !(r.Printed?.Any(TextSafety.NeedsControlRemoval) ?? false)) return r;
+            count += r.Cells.Count(TextSafety.NeedsControlRemoval);
+            first ??= r;
+            return r with { Cells = r.Cells.Select(TextSafety.WithoutControls).ToList(), Printed = r.Printed?.Select(TextSafety.WithoutControls).ToList() };
+        }
+        var header = Clean(t.Header);
+        var rows = t.Rows.Select(Clean).ToList();
+        if (first is null) return t;
+        problems.Add(new InputProblem(new SourceRef(t.File, t.Name, first.Line, null, first.Page), Messages.ControlCharacters(Math.Max(count, 1)), ProblemSeverity.Warning));
+        return t with { Name = TextSafety.WithoutControls(t.Name), Header = header, Rows = rows };
     }
 
     /// <summary>The first limit of <see cref="InputLimits"/> the tables go over (rows, members, joints, load cases), at the table's header.</summary>

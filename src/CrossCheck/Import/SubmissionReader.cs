@@ -1,3 +1,4 @@
+using CrossCheck.Common;
 using CrossCheck.Import.Pdf;
 using CrossCheck.Model;
 
@@ -20,8 +21,9 @@ public static class SubmissionReader
         ArgumentNullException.ThrowIfNull(limits);
         var problems = new List<InputProblem>();
         string display = Path.GetFileName(Path.TrimEndingDirectorySeparator(path));
-        if (Directory.Exists(path)) return ReadFolder(path, problems, limits);
-        if (!File.Exists(path))
+        // A folder's tables must lie in it (a table linked to a system file is not read), or in the folder screened.
+        if (Directory.Exists(path)) return ReadFolder(path, problems, limits with { Within = limits.Within ?? path });
+        if (!File.Exists(path) && FileFacts.Of(path).Kind == FileKind.Missing)
             return new ImportResult(null, [new InputProblem(new SourceRef(display.Length > 0 ? display : path), Messages.NotFound(path))]);
         string ext = Path.GetExtension(path).ToLowerInvariant();
         if (ext is ".csv" or ".txt")

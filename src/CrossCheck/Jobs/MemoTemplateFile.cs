@@ -1,4 +1,5 @@
 using System.Diagnostics.CodeAnalysis;
+using CrossCheck.Common;
 using CrossCheck.Memo;
 
 namespace CrossCheck.Jobs;
@@ -14,12 +15,17 @@ public sealed record MemoTemplateFile(string Text, string Name)
     {
         ArgumentNullException.ThrowIfNull(path);
         template = null;
-        if (!File.Exists(path))
+        string text;
+        try
         {
-            problem = $"template '{path}' does not exist.";
+            // Opened once, a regular file (a named pipe would hang the reading), at most MaxBytes.
+            text = InputText.Decode(InputFile.Read(path, MaxBytes))?.Text ?? throw new InputFileException(InputRefusal.Unreadable, "it holds binary data, not text");
+        }
+        catch (InputFileException ex)
+        {
+            problem = ex.Refusal == InputRefusal.Missing ? $"template '{path}' does not exist." : $"template '{path}' cannot be used: {ex.Message}.";
             return false;
         }
-        string text = File.ReadAllText(path);
         try
         {
             MemoRenderer.Validate(text, path);
@@ -33,6 +39,9 @@ public sealed record MemoTemplateFile(string Text, string Name)
         problem = null;
         return true;
     }
+
+    /// <summary>Largest template read (a shipped memo template is a few tens of kilobytes).</summary>
+    public const long MaxBytes = 4L * 1024 * 1024;
 
     /// <summary>Renders <paramref name="model"/> with this template.</summary>
     /// <exception cref="MemoTemplateException">The template fails on this model.</exception>

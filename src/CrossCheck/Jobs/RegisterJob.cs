@@ -28,6 +28,7 @@ public static class RegisterJob
     /// <returns>The outcome: the text (no path), the file written, or why not.</returns>
     public static (string? Text, string? WrittenTo, string? Problem) Export(string location, bool findings, string? outPath)
     {
+        if (JobOutput.RefuseInput(outPath, location) is { } clash) return (null, null, clash);
         if (!TryOpenExisting(location, out var register, out var problem)) return (null, null, problem);
         using (register)
         {
@@ -40,7 +41,7 @@ public static class RegisterJob
             {
                 return (null, null, ex.Message);
             }
-            if (outPath is null) return (csv, null, null);
+            if (outPath is null || Common.OutputTarget.IsStandardOutput(outPath)) return (csv, null, null);
             return JobOutput.TryWrite(outPath, csv, out problem) ? (null, outPath, null) : (null, null, problem);
         }
     }

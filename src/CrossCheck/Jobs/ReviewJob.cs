@@ -33,6 +33,8 @@ public enum ReviewFailure
     Unreadable,
     /// <summary>The submission was read, but the structure it describes cannot be analysed (a mechanism, ...).</summary>
     NotAnalysable,
+    /// <summary>The review took longer than <see cref="InputLimits.TimeBudget"/> and was stopped.</summary>
+    OverBudget,
 }
 
 /// <summary>What the review job writes.</summary>
@@ -92,8 +94,11 @@ public sealed record ReviewJobOutcome(ReviewJobStatus Status, string Path)
     /// <summary>The file written (the memo, the JSON, or the JSON of the input errors).</summary>
     public string? WrittenTo { get; init; }
 
-    /// <summary>The output when it was not written to a file (JSON without an output path).</summary>
+    /// <summary>The output when it was not written to a file (JSON without an output path, or any format to standard output).</summary>
     public string? Text { get; init; }
+
+    /// <summary>The printed PDF memo when it goes to standard output (<c>--out -</c>).</summary>
+    public byte[]? Bytes { get; init; }
 
     /// <summary>A sentence for the user: why the request was refused, or why the JSON of the input errors was not written.</summary>
     public string? Problem { get; init; }
@@ -117,34 +122,59 @@ public sealed class ReviewJob(TimeProvider? time = null)
         return options.Date is null ? options with { Date = Clock.Today(Time) } : options;
     }
 
-    /// <summary>Read → analyse → review. Bad input is returned as errors, never thrown.</summary>
+    /// <summary>Read → analyse → review, within <see cref="InputLimits.TimeBudget"/>. Bad input is returned as errors, never thrown.</summary>
     /// <param name="path">The submission.</param>
     /// <param name="options">Tolerances and sign-off details.</param>
-    /// <param name="limits">Bounds on what is read (see <see cref="InputLimits"/>); the defaults when null.</param>
-    public ReviewOutcome Review(string path, ReviewOptions options, InputLimits? limits = null)
+    /// <param name="limits">Bounds on what is read and on the time taken (see <see cref="InputLimits"/>); the defaults when null.</param>
+    /// <param name="cancel">Stops the review (a screen that is interrupted); the time budget is added to it.</param>
+    /// <exception cref="OperationCanceledException"><paramref name="cancel"/> was cancelled (not the time budget: that is an outcome).</exception>
+    public ReviewOutcome Review(string path, ReviewOptions options, InputLimits? limits = null, CancellationToken cancel = default)
     {
         ArgumentNullException.ThrowIfNull(path);
         options = Dated(options);
-        var imported = SubmissionReader.Read(path, limits ?? InputLimits.Default);
-        var warnings = imported.Warnings.ToList();
-        if (!imported.Succeeded) return new ReviewOutcome(path, null, imported.Errors.ToList(), warnings, ReviewFailure.Unreadable);
-        var s = imported.Submission;
-        if (!new FrameSolver().TrySolve(s.Model, s.Cases, out var analysis, out var problem))
+        limits ??= InputLimits.Default;
+        var where = new SourceRef(SubmissionNames.DisplayName(path));
+        var warnings = new List<InputProblem>();
+        using var budget = new CancellationTokenSource(limits.TimeBudget, Time);
+        using var stop = CancellationTokenSource.CreateLinkedTokenSource(cancel, budget.Token);
+        long started = Time.GetTimestamp();
+        // Between the stages the clock is read too: a timer set for a moment may not have fired yet.
+        void Checkpoint()
         {
-            var where = new SourceRef(SubmissionNames.DisplayName(path));
-            return new ReviewOutcome(path, null, [new InputProblem(where, $"the structure cannot be analysed: {problem.Message}")], warnings,
-                ReviewFailure.NotAnalysable, problem.Message);
+            stop.Token.ThrowIfCancellationRequested();
+            if (Time.GetElapsedTime(started) > limits.TimeBudget) throw new OperationCanceledException(budget.Token);
         }
-        var review = ReviewEngine.Review(s, analysis, options, warnings.Select(w => w.ToString()));
-        if (options.ShowWorking) review = review with { Working = ReferenceWorking.Compute(s, review) };
-        return new ReviewOutcome(path, review, [], warnings);
+        try
+        {
+            // Reading a PDF has its own budget; it gets no more than the review's.
+            var readLimits = limits.Pdf.TimeBudget <= limits.TimeBudget ? limits : limits with { Pdf = limits.Pdf with { TimeBudget = limits.TimeBudget } };
+            var imported = SubmissionReader.Read(path, readLimits);
+            warnings.AddRange(imported.Warnings);
+            if (!imported.Succeeded) return new ReviewOutcome(path, null, imported.Errors.ToList(), warnings, ReviewFailure.Unreadable);
+            var s = imported.Submission;
+            Checkpoint();
+            if (!new FrameSolver().TrySolve(s.Model, s.Cases, out var analysis, out var problem))
+            {
+                return new ReviewOutcome(path, null, [new InputProblem(where, $"the structure cannot be analysed: {problem.Message}")], warnings,
+                    ReviewFailure.NotAnalysable, problem.Message);
+            }
+            var review = ReviewEngine.Review(s, analysis, options, warnings.Select(w => w.ToString()), stop.Token);
+            Checkpoint();
+            if (options.ShowWorking) review = review with { Working = ReferenceWorking.Compute(s, review) };
+            return new ReviewOutcome(path, review, [], warnings);
+        }
+        catch (OperationCanceledException) when (!cancel.IsCancellationRequested)
+        {
+            return new ReviewOutcome(path, null, [new InputProblem(where, Messages.OverTimeBudget(limits.TimeBudget.TotalSeconds))], warnings,
+                ReviewFailure.OverBudget);
+        }
     }
 
     /// <summary>The register key of a review: its reference, or the submission's name when it states none.</summary>
     public static string Key(ReviewResult review, string path)
     {
         ArgumentNullException.ThrowIfNull(review);
-        return review.ReferenceOr(SubmissionNames.BaseName(path));
+        return review.ReferenceOr(TextSafety.Clean(SubmissionNames.BaseName(path)));
     }
 
     /// <summary>The review as text: the memo (HTML for PDF, to be printed) or the JSON.</summary>
@@ -199,6 +229,11 @@ public sealed class ReviewJob(TimeProvider? time = null)
         // What can be refused before reading anything.
         string? browser = null;
         if (format == ReviewFormat.Pdf && (browser = PdfPrinter.FindBrowser()) is null) return Refuse(PdfPrinter.MissingBrowserMessage);
+        string? target = request.OutputPath is { } given ? Target(given, request.Path, format) : format == ReviewFormat.Json ? null : DefaultOutputPath(request.Path, format);
+        bool toStandardOutput = target is not null && OutputTarget.IsStandardOutput(target);
+        if (toStandardOutput) target = null;
+        // `review calc.csv --out calc.csv` must not replace the submission with its memo (nor the template or the register).
+        if (JobOutput.RefuseInput(target, request.Path, request.TemplatePath, request.RegisterPath) is { } clash) return Refuse(clash);
         MemoTemplateFile? template = null;
         if (request.TemplatePath is not null)
         {
@@ -207,7 +242,7 @@ public sealed class ReviewJob(TimeProvider? time = null)
         }
 
         var read = Review(request.Path, request.Options, request.Limits);
-        if (!read.Succeeded) return InputErrors(request, read);
+        if (!read.Succeeded) return InputErrors(request with { OutputPath = target }, read);
         var review = read.Review;
 
         RoundComparison? rounds = null;
@@ -216,7 +251,7 @@ public sealed class ReviewJob(TimeProvider? time = null)
             try
             {
                 using var register = ReviewRegister.Open(request.RegisterPath, Time);
-                rounds = register.Record(review, Key(review, request.Path), SubmissionNames.DisplayName(request.Path), InputHash.Compute(request.Path));
+                rounds = register.Record(review, Key(review, request.Path), TextSafety.Clean(SubmissionNames.DisplayName(request.Path)), InputHash.Compute(request.Path));
             }
             catch (RegisterException ex)
             {
@@ -234,8 +269,7 @@ public sealed class ReviewJob(TimeProvider? time = null)
             return Refuse($"the memo template has an error: {ex.Message}", read);
         }
         var done = new ReviewJobOutcome(ReviewJobStatus.Reviewed, request.Path) { Review = review, Warnings = read.Warnings, Rounds = rounds };
-        string? target = request.OutputPath is { } given ? Target(given, request.Path, format) : format == ReviewFormat.Json ? null : DefaultOutputPath(request.Path, format);
-        if (target is null) return done with { Text = content };
+        if (target is null && format != ReviewFormat.Pdf) return done with { Text = content };
         if (format == ReviewFormat.Pdf)
         {
             byte[] printed;
@@ -247,9 +281,10 @@ public sealed class ReviewJob(TimeProvider? time = null)
             {
                 return Refuse($"the PDF memo could not be printed: {ex.Message} Write it with --format html and print it from a browser instead.", read);
             }
+            if (target is null) return done with { Bytes = printed };
             if (!JobOutput.TryWrite(target, printed, out var notWritten)) return Refuse(notWritten, read);
         }
-        else if (!JobOutput.TryWrite(target, content, out var notWritten))
+        else if (!JobOutput.TryWrite(target!, content, out var notWritten))
         {
             return Refuse(notWritten, read);
         }

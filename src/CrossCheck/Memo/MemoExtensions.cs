@@ -17,5 +17,6 @@ public static class MemoExtensions
         {
             Appendices = [.. WorkingAppendix.For(review)],
             Rounds = rounds is null ? MemoRounds.None : new MemoRounds(rounds),
+            Format = format,
         };
 }

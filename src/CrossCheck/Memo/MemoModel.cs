@@ -168,6 +168,9 @@ public sealed class MemoModel
     /// <summary>The comparison with the previous round when the review was recorded in a register (else <see cref="MemoRounds.None"/>).</summary>
     public MemoRounds Rounds { get; init; } = MemoRounds.None;
 
+    /// <summary>The memo's format: a Markdown memo's values are made inert for Markdown viewers as they are written (<see cref="MarkdownText"/>).</summary>
+    public MemoFormat Format { get; init; } = MemoFormat.Markdown;
+
     /// <summary>Appendices (the reference working table), as pre-rendered blocks by format.</summary>
     public IReadOnlyList<MemoAppendix> Appendices { get; init; } = [];
 

@@ -36,7 +36,11 @@ public static class MemoRenderer
     public static string Render(MemoModel model, MemoFormat format) => Render(model, BuiltInTemplate(format), TemplateName(format));
 
     /// <exception cref="MemoTemplateException">The template has errors or refers to unknown names.</exception>
-    public static string Render(MemoModel model, string templateText, string templateName) => RenderObject(model, templateText, templateName);
+    public static string Render(MemoModel model, string templateText, string templateName)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        return RenderObject(model, templateText, templateName, model.Format == MemoFormat.Markdown);
+    }
 
     /// <summary>Text of a shipped template by file name (<c>screen-index.html.sbn</c>).</summary>
     internal static string BuiltInTemplate(string fileName)
@@ -75,13 +79,17 @@ public static class MemoRenderer
     }
 
     /// <summary>Renders any report model (memo, screening index) with the same safe settings.</summary>
-    internal static string RenderObject(object model, string templateText, string templateName)
+    /// <param name="markdown">
+    /// True for a Markdown memo: every value the template writes is made inert for Markdown viewers (<see cref="MarkdownText"/>), so
+    /// a title such as <c>&lt;img onerror=...&gt;</c> or <c>[click](javascript:...)</c> is shown as text, whatever the template.
+    /// </param>
+    internal static string RenderObject(object model, string templateText, string templateName, bool markdown = false)
     {
         ArgumentNullException.ThrowIfNull(model);
         ArgumentNullException.ThrowIfNull(templateText);
         var template = Parsed(templateText, templateName);
         using var deadline = new CancellationTokenSource(RenderTimeLimit);
-        var context = new SharedAccessorContext
+        var context = new SharedAccessorContext(markdown)
         {
             StrictVariables = true,
             EnableRelaxedMemberAccess = false,
@@ -139,9 +147,13 @@ public static class MemoRenderer
     /// that by reflection cost more than the rest of rendering a memo, and a batch renders hundreds. Safe to share
     /// because every context here uses the same <see cref="Visible"/> filter and member names.
     /// </summary>
-    private sealed class SharedAccessorContext : TemplateContext
+    private sealed class SharedAccessorContext(bool markdown) : TemplateContext
     {
         private static readonly System.Collections.Concurrent.ConcurrentDictionary<Type, IObjectAccessor> Accessors = new();
+
+        /// <summary>What a template writes from a value (not its own text): for Markdown, with raw HTML and links made inert.</summary>
+        public override TemplateContext Write(Scriban.Parsing.SourceSpan span, object? textAsObject) =>
+            markdown && textAsObject is string text ? base.Write(span, MarkdownText.Inert(text)) : base.Write(span, textAsObject);
 
         protected override IObjectAccessor GetMemberAccessorImpl(object target)
         {

@@ -22,10 +22,19 @@ internal static class RegisterCheck
     public static List<string> Problems(RegisterTx tx, RegisterBackend backend)
     {
         var problems = backend.StorageProblems(tx).ToList();
+        // Values of the wrong kind (text where a count belongs, a verdict CrossCheck never writes): what would make 'history' print nonsense.
+        foreach (var problem in tx.Rows($"SELECT {RegisterQueries.ReviewColumns} FROM reviews ORDER BY id", r =>
+                 {
+                     try { RegisterValues.Check(r, ""); return null; }
+                     catch (RegisterException ex) { return ex.Message; }
+                 }))
+            if (problem is not null) problems.Add(problem);
+        // With values CrossCheck never writes, the counts and rounds below cannot be read: those problems come first.
+        if (problems.Count > 0) return problems;
         foreach (var (id, reference, round, expected, actual) in tx.Rows("""
             SELECT r.id, r.reference, r.round, r.finding_count, count(f.seq) FROM reviews r LEFT JOIN findings f ON f.review_id = r.id
             GROUP BY r.id, r.reference, r.round, r.finding_count HAVING count(f.seq) <> r.finding_count ORDER BY r.id
-            """, r => (RegisterTx.Int64(r, 0), r.GetString(1), RegisterTx.Int(r, 2), RegisterTx.Int(r, 3), RegisterTx.Int(r, 4))))
+            """, r => (RegisterTx.Int64(r, 0), r.GetString(1), RegisterTx.Int64(r, 2), RegisterTx.Int64(r, 3), RegisterTx.Int64(r, 4))))
             problems.Add($"review {id} ({reference} round {round}) should have {expected} findings but has {actual}");
         long orphans = tx.Long("SELECT count(*) FROM findings f WHERE NOT EXISTS (SELECT 1 FROM reviews r WHERE r.id = f.review_id)");
         if (orphans > 0 && problems.Count == 0) problems.Add($"{orphans} finding(s) refer to a review that does not exist");

@@ -25,6 +25,7 @@ internal static class RegisterQueries
 
     public static StoredReview ReadReview(DbDataReader r)
     {
+        RegisterValues.Check(r, "");
         string? S(int i) => RegisterTx.Text(r, i);
         int I(int i) => RegisterTx.Int(r, i);
         double D(int i) => RegisterTx.Real(r, i);

@@ -188,6 +188,10 @@ public sealed class ReviewRegister : IDisposable
             {
                 throw new RegisterException(Backend.Describe(ex), ex);
             }
+            catch (Exception ex) when (ex is InvalidCastException or OverflowException or InvalidOperationException or FormatException)
+            {
+                throw RegisterValues.Damaged(Path, ex);
+            }
         }
     }
 
@@ -215,6 +219,10 @@ public sealed class ReviewRegister : IDisposable
                 {
                     string why = Backend.IsWriteClash(ex) ? $"{Path}: other writers took the round {MaxAttempts} times running; try again." : Backend.Describe(ex);
                     throw new RegisterException(why, ex);
+                }
+                catch (Exception ex) when (ex is InvalidCastException or OverflowException or InvalidOperationException or FormatException)
+                {
+                    throw RegisterValues.Damaged(Path, ex);
                 }
             }
         }

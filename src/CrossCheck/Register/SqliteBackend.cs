@@ -1,5 +1,6 @@
 using System.Data.Common;
 using System.Globalization;
+using CrossCheck.Common;
 using Microsoft.Data.Sqlite;
 
 namespace CrossCheck.Register;
@@ -25,6 +26,9 @@ internal sealed class SqliteBackend(RegisterLocation location, TimeSpan busyTime
     {
         string full = Path.GetFullPath(_path);
         if (Directory.Exists(full)) throw new RegisterException($"register '{_path}' is a folder; give the path of a register file.");
+        // A device or a named pipe would hang SQLite or be overwritten by it (and its -wal file made beside /dev/null).
+        if (FileFacts.Of(full).Kind is not (FileKind.Regular or FileKind.Missing) and var kind)
+            throw new RegisterException($"register '{_path}' is {FileFacts.Describe(kind)}; give the path of a register file.");
         string? dir = Path.GetDirectoryName(full);
         if (dir is not null && !Directory.Exists(dir)) throw new RegisterException($"register '{_path}': the folder '{dir}' does not exist.");
         var csb = new SqliteConnectionStringBuilder

@@ -14,7 +14,10 @@ public static class ReviewEngine
     /// <param name="analysis">The independent analysis of the same submission.</param>
     /// <param name="options">Tolerances and sign-off details.</param>
     /// <param name="inputWarnings">Warnings from the import, repeated in the memo.</param>
-    public static ReviewResult Review(Submission submission, AnalysisResult analysis, ReviewOptions? options = null, IEnumerable<string>? inputWarnings = null)
+    /// <param name="cancel">Stops the review (checked between cases, checks and hypotheses): a time budget, or the user.</param>
+    /// <exception cref="OperationCanceledException"><paramref name="cancel"/> was cancelled.</exception>
+    public static ReviewResult Review(Submission submission, AnalysisResult analysis, ReviewOptions? options = null, IEnumerable<string>? inputWarnings = null,
+        CancellationToken cancel = default)
     {
         ArgumentNullException.ThrowIfNull(submission);
         ArgumentNullException.ThrowIfNull(analysis);
@@ -27,16 +30,17 @@ public static class ReviewEngine
             if (!caseIds.Contains(id)) caseIds.Add(id);
         foreach (var id in caseIds)
         {
+            cancel.ThrowIfCancellationRequested();
             var result = analysis.Cases.FirstOrDefault(c => c.Case == id);
             var review = Comparison.Compare(submission, result, id, options);
-            review = review with { Flags = [.. review.Flags, .. Confirmed(checks.Run(id), review)] };
+            review = review with { Flags = [.. review.Flags, .. Confirmed(checks.Run(id, cancel), review)] };
             foreach (var table in submission.WorkingTables.Where(t => t.Case == id))
             {
                 var audit = Diagnosis.WorkingTableAudit.Audit(submission, table, options.AbsoluteTolerance * submission.Info.Units.Moment.ToSi);
                 review = review with { Audit = audit, Flags = [.. review.Flags, Diagnosis.WorkingTableAudit.ToFlag(audit, submission, review.AgreeTolerance)] };
             }
             if (options.Diagnose && result is not null && review.EndMoments.Any(e => e.Status is EndStatus.Discrepant or EndStatus.Minor))
-                review = review with { Causes = new Diagnosis.Diagnoser(submission, analysis, options).Diagnose(review) };
+                review = review with { Causes = new Diagnosis.Diagnoser(submission, analysis, options).Diagnose(review, cancel) };
             if (conditioning is not null && result is not null)
             {
                 review = review with { Flags = [.. review.Flags, conditioning] };

@@ -108,6 +108,12 @@ public sealed record ScreenReport(
 
     /// <summary>How long each stage took.</summary>
     public ScreenStages Stages { get; init; } = new(TimeSpan.Zero, TimeSpan.Zero, TimeSpan.Zero, TimeSpan.Zero);
+
+    /// <summary>The submissions not screened because the screen was interrupted (none when it finished); a re-run completes them.</summary>
+    public IReadOnlyList<string> Pending { get; init; } = [];
+
+    /// <summary>True when the screen was interrupted before every submission was done.</summary>
+    public bool Interrupted => Pending.Count > 0;
 }
 
 /// <summary>

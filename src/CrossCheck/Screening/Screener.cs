@@ -70,7 +70,7 @@ public static class Screener
         ArgumentNullException.ThrowIfNull(folder);
         ArgumentNullException.ThrowIfNull(options);
         // The stages run on the thread pool; this thread only waits (no synchronisation context is involved).
-        return Task.Run(() => RunAsync(folder, options, progress, cancel), cancel).GetAwaiter().GetResult();
+        return Task.Run(() => RunAsync(folder, options, progress, cancel), CancellationToken.None).GetAwaiter().GetResult();
     }
 
     private static async Task<ScreenReport> RunAsync(string folder, ScreenOptions options, IScreenProgress? progress, CancellationToken cancel)
@@ -84,10 +84,16 @@ public static class Screener
         if (options.RegisterPath is not null) exclude.Add(options.RegisterPath);
         var found = SubmissionFinder.Find(folder, exclude);
         Directory.CreateDirectory(outDir);
+        // Temporary files of a screen that was killed while writing go; a screen that was interrupted is resumed.
+        AtomicFile.CleanStale(outDir);
         var job = new ReviewJob(time);
-        // One date for the whole batch, even one that runs past midnight.
+        // One date for the whole batch, even one that runs past midnight (or is resumed the next day).
         options = options with { Review = job.Dated(options.Review) };
         using var register = options.RegisterPath is null ? null : ReviewRegister.Open(options.RegisterPath, time);
+        var journal = ScreenJournal.Begin(outDir, Path.TrimEndingDirectorySeparator(Path.GetFullPath(folder)), register?.Path, options.Review.Date!.Value, time);
+        options = options with { Review = options.Review with { Date = journal.Date } };
+        // Every file read must stay inside the folder screened, and each review within its time budget.
+        var limits = (options.Limits ?? InputLimits.Default) with { Within = RealPath.Of(folder) };
         int parallelism = options.Parallelism > 0 ? options.Parallelism : Environment.ProcessorCount;
         var items = found.Items;
         progress?.Begin(items.Count);
@@ -99,30 +105,37 @@ public static class Screener
         for (int i = 0; i < items.Count; i++) toReview.Writer.TryWrite(i);
         toReview.Writer.Complete();
         var reviewed = Channel.CreateUnbounded<(int Index, Reviewed Result)>(new UnboundedChannelOptions { SingleReader = true });
+        // Interrupted (Ctrl-C, SIGTERM): the reviewers take no more, a review under way is dropped (nothing of it recorded).
         var reviewers = Workers(parallelism, reviewed.Writer, async () =>
         {
-            await foreach (int i in toReview.Reader.ReadAllAsync(cancel).ConfigureAwait(false))
-                await reviewed.Writer.WriteAsync((i, ReviewOne(job, items[i], options.Review, options.Limits)), cancel).ConfigureAwait(false);
+            await foreach (int i in toReview.Reader.ReadAllAsync(CancellationToken.None).ConfigureAwait(false))
+            {
+                if (cancel.IsCancellationRequested || ReviewOne(job, items[i], options.Review, limits, cancel) is not { } one) break;
+                await reviewed.Writer.WriteAsync((i, one), CancellationToken.None).ConfigureAwait(false);
+            }
         });
         int done = 0;
-        await foreach (var (i, result) in reviewed.Reader.ReadAllAsync(cancel).ConfigureAwait(false))
+        await foreach (var (i, result) in reviewed.Reader.ReadAllAsync(CancellationToken.None).ConfigureAwait(false))
         {
             reviews[i] = result;
             progress?.Reviewed(items[i], result.Outcome, ++done);
         }
         await reviewers.ConfigureAwait(false);
+        // The register keys need every review (a shared reference is qualified by name), so an interruption before the
+        // reviews are all in records nothing: the next screen does them again.
+        bool interrupted = cancel.IsCancellationRequested;
         var reviewTime = time.GetElapsedTime(stage);
         stage = time.GetTimestamp();
 
         // 2. The key each one's rounds are tracked by; a reference several submissions share is qualified by their names.
         var notes = new List<string>(found.Skipped);
         var keys = new string?[items.Count];
-        for (int i = 0; i < items.Count; i++) keys[i] = reviews[i].Review?.Review is { } rv ? rv.ReferenceOr(items[i].BaseName) : null;
+        for (int i = 0; i < items.Count; i++) keys[i] = reviews[i]?.Review?.Review is { } rv ? rv.ReferenceOr(TextSafety.Clean(items[i].BaseName)) : null;
         foreach (var shared in Enumerable.Range(0, items.Count).Where(i => keys[i] is not null).GroupBy(i => keys[i]!, StringComparer.Ordinal)
                      .Where(g => g.Count() > 1).OrderBy(g => g.Key, StringComparer.Ordinal))
         {
             notes.Add($"reference '{shared.Key}' is given by {shared.Count()} submissions; each is tracked in the register as '{shared.Key} / <submission name>'.");
-            foreach (int i in shared) keys[i] = $"{shared.Key} / {items[i].Name}";
+            foreach (int i in shared) keys[i] = $"{shared.Key} / {TextSafety.Clean(items[i].Name)}";
         }
 
         // 3. Record in the register, one transaction per review, in name order (items are sorted) so that ids follow the
@@ -130,18 +143,23 @@ public static class Screener
         // the comparison with the previous round).
         var rounds = new RoundComparison?[items.Count];
         var problems = new string?[items.Count];
+        var resumed = new bool[items.Count];
         var recorded = Channel.CreateUnbounded<int>(new UnboundedChannelOptions { SingleWriter = true });
         var registerTime = TimeSpan.Zero;
         var recorder = Workers(1, recorded.Writer, () =>
         {
-            for (int i = 0; i < items.Count; i++)
+            for (int i = 0; i < items.Count && !interrupted; i++)
             {
-                cancel.ThrowIfCancellationRequested();
+                // Interrupted: what is recorded gets its memo; the rest waits for the next screen.
+                if (cancel.IsCancellationRequested) { interrupted = true; break; }
                 if (register is not null && reviews[i].Review?.Review is { } review)
                 {
                     try
                     {
-                        rounds[i] = register.Record(review, keys[i]!, items[i].Name, reviews[i].Hash);
+                        // Resuming: a review the interrupted screen recorded (same key, same files) is not recorded twice.
+                        var earlier = journal.Resuming ? RecordedSince(register, keys[i]!, reviews[i].Hash, journal.Since!) : null;
+                        resumed[i] = earlier is not null;
+                        rounds[i] = earlier ?? register.Record(review, keys[i]!, TextSafety.Clean(items[i].Name), reviews[i].Hash);
                     }
                     catch (RegisterException ex)
                     {
@@ -159,24 +177,28 @@ public static class Screener
         var written = Channel.CreateUnbounded<int>(new UnboundedChannelOptions { SingleReader = true });
         var writers = Workers(2 * parallelism, written.Writer, async () =>
         {
-            await foreach (int i in recorded.Reader.ReadAllAsync(cancel).ConfigureAwait(false))
+            await foreach (int i in recorded.Reader.ReadAllAsync(CancellationToken.None).ConfigureAwait(false))
             {
-                rows[i] = WriteOne(items[i], reviews[i], keys[i], rounds[i], problems[i], outDir, options);
-                await written.Writer.WriteAsync(i, cancel).ConfigureAwait(false);
+                rows[i] = WriteOne(items[i], reviews[i], keys[i], rounds[i], problems[i], outDir, options, resumed[i]);
+                await written.Writer.WriteAsync(i, CancellationToken.None).ConfigureAwait(false);
             }
         });
         done = 0;
-        await foreach (int i in written.Reader.ReadAllAsync(cancel).ConfigureAwait(false)) progress?.Written(rows[i], ++done);
+        await foreach (int i in written.Reader.ReadAllAsync(CancellationToken.None).ConfigureAwait(false)) progress?.Written(rows[i], ++done);
         await recorder.ConfigureAwait(false);
         await writers.ConfigureAwait(false);
         var memoTime = time.GetElapsedTime(stage);
         stage = time.GetTimestamp();
 
-        var ordered = rows.OrderByDescending(r => r.Outcome).ThenBy(r => r.Name, StringComparer.Ordinal).ToList();
+        var pending = Enumerable.Range(0, items.Count).Where(i => rows[i] is null).Select(i => items[i].Name).ToList();
+        if (pending.Count > 0)
+            notes.Add($"the screen was interrupted: {pending.Count} of {items.Count} submissions were not screened ({string.Join(", ", pending.Take(5))}{(pending.Count > 5 ? ", ..." : "")}); run the same command again to finish it.");
+        var ordered = rows.Where(r => r is not null).OrderByDescending(r => r.Outcome).ThenBy(r => r.Name, StringComparer.Ordinal).ToList();
         var report = new ScreenReport(Path.GetFullPath(folder), outDir, register?.Path, options, ordered, ScreenGrouping.Groups(ordered), notes,
-            time.GetElapsedTime(start), parallelism);
-        AtomicFile.WriteText(SubmissionNames.ChildPath(outDir, SummaryFile), ScreenOutputs.SummaryCsv(report));
-        AtomicFile.WriteText(SubmissionNames.ChildPath(outDir, IndexFile), ScreenOutputs.IndexHtml(report));
+            time.GetElapsedTime(start), parallelism) { Pending = pending };
+        AtomicFile.WriteText(SubmissionNames.ChildPath(outDir, SummaryFile), ScreenOutputs.SummaryCsv(report), replaceSpecial: true);
+        AtomicFile.WriteText(SubmissionNames.ChildPath(outDir, IndexFile), ScreenOutputs.IndexHtml(report), replaceSpecial: true);
+        if (pending.Count == 0) journal.Finish();
         return report with { Elapsed = time.GetElapsedTime(start), Stages = new ScreenStages(reviewTime, registerTime, memoTime, time.GetElapsedTime(stage)) };
     }
 
@@ -206,12 +228,27 @@ public static class Screener
             : r.Verdict switch { Verdict.Concur => ScreenOutcome.Concur, Verdict.ConcurWithComments => ScreenOutcome.Comments, _ => ScreenOutcome.Revise };
     }
 
-    private static Reviewed ReviewOne(ReviewJob job, ScreenItem item, ReviewOptions options, InputLimits? limits)
+    /// <summary>The latest review of <paramref name="key"/> with these input files recorded since <paramref name="since"/> (by the interrupted screen), with its comparison.</summary>
+    private static RoundComparison? RecordedSince(ReviewRegister register, string key, string? hash, string since) =>
+        hash is null ? null
+            : register.History(key).LastOrDefault(h => h.Review.InputHash == hash && string.CompareOrdinal(h.Review.RecordedAt, since) >= 0);
+
+    /// <summary>The review of one submission; null when the screen was interrupted during it (nothing of it is kept).</summary>
+    private static Reviewed? ReviewOne(ReviewJob job, ScreenItem item, ReviewOptions options, InputLimits limits, CancellationToken cancel)
     {
+        if (item.Refusal is not null)
+        {
+            var where = new SourceRef(item.Name);
+            return new Reviewed(new ReviewOutcome(item.Path, null, [new InputProblem(where, item.Refusal)], [], ReviewFailure.Unreadable), null, null);
+        }
         try
         {
-            var outcome = job.Review(item.Path, options, limits);
+            var outcome = job.Review(item.Path, options, limits, cancel);
             return new Reviewed(outcome, outcome.Succeeded ? InputHash.Compute(item.Path) : null, null);
+        }
+        catch (OperationCanceledException) when (cancel.IsCancellationRequested)
+        {
+            return null;
         }
         catch (Exception ex) when (ex is not OutOfMemoryException)
         {
@@ -220,7 +257,8 @@ public static class Screener
         }
     }
 
-    private static ScreenRow WriteOne(ScreenItem item, Reviewed r, string? key, RoundComparison? rounds, string? problem, string outDir, ScreenOptions options)
+    private static ScreenRow WriteOne(ScreenItem item, Reviewed r, string? key, RoundComparison? rounds, string? problem, string outDir, ScreenOptions options,
+        bool resumed)
     {
         var outcome = r.Outcome;
         if (r.Fault is not null)
@@ -239,7 +277,7 @@ public static class Screener
                 foreach (var e in r.Review.Errors) sb.Append("  ").Append(e.Where.Describe()).Append(": ").Append(e.Message).Append('\n');
                 if (r.Review.Warnings.Count > 0) sb.Append("Warnings:\n");
                 foreach (var w in r.Review.Warnings) sb.Append("  ").Append(w.Where.Describe()).Append(": ").Append(w.Message).Append('\n');
-                AtomicFile.WriteText(SubmissionNames.ChildPath(outDir, file), sb.ToString());
+                AtomicFile.WriteText(SubmissionNames.ChildPath(outDir, file), sb.ToString(), replaceSpecial: true);
                 written = file;
             }
             catch (IOException ex)
@@ -253,8 +291,10 @@ public static class Screener
         string? memo = null;
         try
         {
-            string text = ReviewJob.Render(review, format, options.MemoTemplate, rounds);
-            AtomicFile.WriteText(SubmissionNames.ChildPath(outDir, memoFile), text);
+            string path = SubmissionNames.ChildPath(outDir, memoFile);
+            // Resuming: the interrupted screen wrote this memo whole (or not at all); only a missing one is written.
+            if (!resumed || FileFacts.Of(path).Kind != FileKind.Regular)
+                AtomicFile.WriteText(path, ReviewJob.Render(review, format, options.MemoTemplate, rounds), replaceSpecial: true);
             memo = memoFile;
         }
         catch (MemoTemplateException ex)

@@ -7,7 +7,8 @@ namespace CrossCheck.Screening;
 /// <param name="Path">What is reviewed: the CSV or PDF file, the sub-folder of CSV tables, or the single PDF inside a sub-folder.</param>
 /// <param name="Stem">A safe, unique file-name stem for its outputs (<see cref="SubmissionNames.SafeStem"/>).</param>
 /// <param name="IsFolder">True for a sub-folder.</param>
-public sealed record ScreenItem(string Name, string Path, string Stem, bool IsFolder)
+/// <param name="Refusal">Why the entry is not read at all (a link leading out of the folder screened), or null.</param>
+public sealed record ScreenItem(string Name, string Path, string Stem, bool IsFolder, string? Refusal = null)
 {
     /// <summary>The name without a file's extension: what the submission is called when it states no reference.</summary>
     public string BaseName => IsFolder ? Name : System.IO.Path.GetFileNameWithoutExtension(Name) is { Length: > 0 } b ? b : Name;
@@ -30,8 +31,9 @@ public static class SubmissionFinder
         ArgumentNullException.ThrowIfNull(folder);
         if (!Directory.Exists(folder)) throw new DirectoryNotFoundException($"the folder '{folder}' does not exist.");
         var excluded = (exclude ?? []).Select(p => Path.TrimEndingDirectorySeparator(Path.GetFullPath(p))).ToHashSet(StringComparer.Ordinal);
-        var items = new List<(string Name, string Path, bool Folder)>();
+        var items = new List<(string Name, string Path, bool Folder, string? Refusal)>();
         var skipped = new List<string>();
+        string realFolder = RealPath.Of(folder);
         foreach (var entry in Directory.EnumerateFileSystemEntries(folder).Order(StringComparer.Ordinal))
         {
             string name = Path.GetFileName(entry);
@@ -39,13 +41,23 @@ public static class SubmissionFinder
             if (excluded.Contains(full) || excluded.Any(x => full.StartsWith(x + "-", StringComparison.Ordinal) && IsSqliteCompanion(full[x.Length..])))
                 continue;
             if (name.StartsWith('.')) continue;
+            // An entry that is a link out of the folder (to /etc, to another user's files) is a row with that error, never read.
+            string? refusal = null;
+            try
+            {
+                InputFile.CheckInside(entry, realFolder, name);
+            }
+            catch (InputFileException ex)
+            {
+                refusal = ex.Message;
+            }
             if (Directory.Exists(entry))
             {
-                items.Add((name, FolderTarget(entry), true));
+                items.Add((name, refusal is null ? FolderTarget(entry) : entry, true, refusal));
                 continue;
             }
             string ext = Path.GetExtension(name).ToLowerInvariant();
-            if (ext is ".csv" or ".pdf") items.Add((name, entry, false));
+            if (ext is ".csv" or ".pdf") items.Add((name, entry, false, refusal));
             else skipped.Add($"{name}: not a submission (screening reads .csv and .pdf files and sub-folders)");
         }
         return new FoundSubmissions(AssignStems(items), skipped);
@@ -72,9 +84,9 @@ public static class SubmissionFinder
     /// names differ only in their extension (<c>hall.csv</c> and <c>hall.pdf</c>) keep the extension in the stem
     /// (<c>hall-csv</c>, <c>hall-pdf</c>), so each memo says which file it reviews; any other clash is numbered.
     /// </summary>
-    private static List<ScreenItem> AssignStems(List<(string Name, string Path, bool Folder)> items)
+    private static List<ScreenItem> AssignStems(List<(string Name, string Path, bool Folder, string? Refusal)> items)
     {
-        string Plain((string Name, string Path, bool Folder) x) => SubmissionNames.SafeStem(x.Folder ? x.Name : Path.GetFileNameWithoutExtension(x.Name));
+        string Plain((string Name, string Path, bool Folder, string? Refusal) x) => SubmissionNames.SafeStem(x.Folder ? x.Name : Path.GetFileNameWithoutExtension(x.Name));
         var shared = items.GroupBy(Plain, StringComparer.OrdinalIgnoreCase).Where(g => g.Count() > 1).Select(g => g.Key).ToHashSet(StringComparer.OrdinalIgnoreCase);
         var used = new HashSet<string>(StringComparer.OrdinalIgnoreCase);
         var result = new List<ScreenItem>();
@@ -85,7 +97,7 @@ public static class SubmissionFinder
                 stem = SubmissionNames.SafeStem($"{stem}-{ext[1..].ToLowerInvariant()}");
             string candidate = stem;
             for (int k = 2; !used.Add(candidate); k++) candidate = $"{stem}-{k}";
-            result.Add(new ScreenItem(item.Name, item.Path, candidate, item.Folder));
+            result.Add(new ScreenItem(item.Name, item.Path, candidate, item.Folder, item.Refusal));
         }
         return result;
     }

@@ -92,7 +92,7 @@ public static class HostileInputs
                 break;
             }
             default:
-                throw new ArgumentException($"no generated input is called '{name}'", nameof(name));
+                return HostileFiles.Make(name, folder) ?? throw new ArgumentException($"no generated input is called '{name}'", nameof(name));
         }
         return path;
     }
@@ -178,6 +178,10 @@ public static class PdfBombs
         sb.Append("ET");
         return Document(Catalog, Pages(1), string.Format(CultureInfo.InvariantCulture, Page, "", ""), Stream("/Filter /FlateDecode", Deflate(Text(sb.ToString()))), Font);
     }
+
+    /// <summary>A one-page document whose content stream is <paramref name="content"/> (Helvetica as /F1).</summary>
+    public static byte[] OnePage(string content) =>
+        Document(Catalog, Pages(1), string.Format(CultureInfo.InvariantCulture, Page, "", ""), Stream("", Text(content)), Font);
 
     /// <summary>A document of <paramref name="count"/> blank pages sharing one empty content stream.</summary>
     public static byte[] BlankPages(int count)

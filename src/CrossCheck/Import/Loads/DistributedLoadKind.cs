@@ -20,7 +20,7 @@ internal abstract class DistributedLoadKind : LoadKind
         if (w is null || w2 is null) return null;
         if (!row.InMember("a", a) || !row.InMember("b", b)) return null;
         if (b < a) { row.Error("b", Messages.LoadEndsReversed); return null; }
-        if (b == a) return null; // a load over no length does nothing
+        if (b == a) { row.Error("b", Messages.LoadOverNoLength); return null; }
         row.WarnNegative("w", w.Value);
         return new DistributedLoad(row.Case, row.On, w.Value, w2.Value, a, Math.Min(b, L), row.Direction, row.Where);
     }

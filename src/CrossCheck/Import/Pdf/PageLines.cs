@@ -30,17 +30,58 @@ internal static class PageLines
     /// runs: a wide table set sideways on a portrait page (text running up or down) is read as if the page were turned;
     /// text in the other directions is counted and not read.
     /// </summary>
+    /// <summary>
+    /// A letter placed far off the page: drawn, but no one sees it. The page is taken as a square of its longer side with half a
+    /// side around it, so that a page turned by its /Rotate entry (whose letters keep the unturned coordinates) or a document whose
+    /// boxes are set loosely loses nothing a person sees.
+    /// </summary>
+    private static bool OffPage(Letter l, double width, double height)
+    {
+        var box = l.BoundingBox;
+        double side = Math.Max(width, height), margin = Math.Max(2, side / 2);
+        return side > 0 && (box.Right < -margin || box.Left > side + margin || box.Top < -margin || box.Bottom > side + margin);
+    }
+
+    /// <summary>A letter filled in white (or nearly): unseen on a white page.</summary>
+    private static bool White(Letter l)
+    {
+        if (l.RenderingMode is not (TextRenderingMode.Fill or TextRenderingMode.FillClip)) return false;
+        try
+        {
+            var (r, g, b) = l.FillColor.ToRGBValues();
+            return r >= 0.97 && g >= 0.97 && b >= 0.97;
+        }
+#pragma warning disable CA1031 // A colour the library cannot convert is taken as visible.
+        catch (Exception)
+#pragma warning restore CA1031
+        {
+            return false;
+        }
+    }
+
     public static (List<TextLine> Lines, int Invisible, int Rotated, bool Sideways) Build(IReadOnlyList<Letter> letters, int pageNumber, double width, double height)
     {
         var glyphs = new List<Glyph>(letters.Count);
         int invisible = 0, rotated = 0;
+        // White letters on a page whose every letter is white: the page looks blank (white on a dark fill is kept elsewhere).
+        bool whiteOnly = false;
+        foreach (var l in letters)
+        {
+            if (string.IsNullOrWhiteSpace(l.Value) || l.RenderingMode is TextRenderingMode.Neither or TextRenderingMode.NeitherClip || OffPage(l, width, height)) continue;
+            if (!White(l)) { whiteOnly = false; break; }
+            whiteOnly = true;
+        }
         var direction = PageDirection.Main(letters);
         // Coordinates in the page turned so that the text reads left to right, bottom up.
         var turn = PageDirection.Turn(direction, width, height);
         foreach (var l in letters)
         {
             if (string.IsNullOrEmpty(l.Value)) continue;
-            if (l.RenderingMode is TextRenderingMode.Neither or TextRenderingMode.NeitherClip) { if (!string.IsNullOrWhiteSpace(l.Value)) invisible++; continue; }
+            if (l.RenderingMode is TextRenderingMode.Neither or TextRenderingMode.NeitherClip || OffPage(l, width, height) || (whiteOnly && White(l)))
+            {
+                if (!string.IsNullOrWhiteSpace(l.Value)) invisible++;
+                continue;
+            }
             if (l.TextOrientation != direction) { if (!string.IsNullOrWhiteSpace(l.Value)) rotated++; continue; }
             string text = CleanText(l.Value);
             if (text.Length == 0) continue;

@@ -20,6 +20,17 @@ public static class PdfSubmissionReader
     public static ImportResult Read(string path, InputLimits limits)
     {
         ArgumentNullException.ThrowIfNull(limits);
+        if (limits.Within is not null)
+        {
+            try
+            {
+                Common.InputFile.CheckInside(path, limits.Within);
+            }
+            catch (Common.InputFileException ex)
+            {
+                return new ImportResult(null, [new InputProblem(new SourceRef(Path.GetFileName(path)), ex.Message)]);
+            }
+        }
         var x = Extract(path, limits.Pdf);
         if (x.Tables.Count == 0) return new ImportResult(null, x.Problems);
         return SubmissionBuilder.Build(path, x.Tables, x.Problems, limits);

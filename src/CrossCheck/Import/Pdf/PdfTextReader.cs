@@ -22,19 +22,9 @@ internal static class PdfTextReader
     {
         PreloadFontMetrics();
         var whole = new SourceRef(display);
-        var info = new FileInfo(path);
-        if (info.Length == 0) { problems.Add(new InputProblem(whole, Messages.PdfEmptyFile)); return null; }
-        if (info.Length > limits.MaxFileBytes) { problems.Add(new InputProblem(whole, Messages.PdfTooLarge(info.Length, limits.MaxFileBytes))); return null; }
-        byte[] bytes;
-        try
-        {
-            bytes = File.ReadAllBytes(path);
-        }
-        catch (IOException ex)
-        {
-            problems.Add(new InputProblem(whole, Messages.PdfDamaged(ex.Message)));
-            return null;
-        }
+        // Opened once, a regular file, counted against the size limit as it is read (InputFiles).
+        if (InputFiles.ReadBytes(path, whole, null, limits.MaxFileBytes, problems, Messages.PdfTooLarge, Messages.PdfDamaged) is not { } bytes) return null;
+        if (bytes.Length == 0) { problems.Add(new InputProblem(whole, Messages.PdfEmptyFile)); return null; }
         if (!StartsLikePdf(bytes)) { problems.Add(new InputProblem(whole, Messages.PdfNotPdf)); return null; }
         if (PdfCost.Nesting(bytes, limits.MaxNesting) > limits.MaxNesting) { problems.Add(new InputProblem(whole, Messages.PdfNestedTooDeep(limits.MaxNesting))); return null; }
 
@@ -197,7 +187,7 @@ internal static class PdfTextReader
             else if (ex.Message.Contains("encrypt", StringComparison.OrdinalIgnoreCase) || ex.Message.Contains("password", StringComparison.OrdinalIgnoreCase))
                 problems.Add(new InputProblem(whole, Messages.PdfEncrypted));
             else
-                problems.Add(new InputProblem(whole, Messages.PdfDamaged(OneLine(ex.Message))));
+                problems.Add(new InputProblem(whole, Messages.PdfUnreadable));
         }
         return (null, problems);
     }
@@ -214,11 +204,5 @@ internal static class PdfTextReader
         {
             return 0;
         }
-    }
-
-    private static string OneLine(string s)
-    {
-        s = Geometry.Collapse(s);
-        return s.Length > 160 ? s[..160] + "…" : s;
     }
 }

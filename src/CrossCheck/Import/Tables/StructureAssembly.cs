@@ -16,7 +16,8 @@ internal sealed class StructureAssembly : ITableReader
         foreach (var j in model.Joints.Where(j => !d.GeometryIncomplete && !touched.Contains(j.Id) && !d.JointsOfRejectedMembers.Contains(j.Id)))
             d.Error(j.Source, Messages.NoJointsConnected(j.Id));
         var parts = Parts(model);
-        if (parts.Count > 1)
+        // A member row left out for an error would split the structure: that error is the news, not "separate structures".
+        if (parts.Count > 1 && d.RejectedMembers.Count == 0)
             d.Warn(d.Whole, Messages.SeparateParts(parts.Count, parts.Take(4).Select(p => p.Count <= 4 ? $"joints {string.Join(", ", p)}" : $"joints {string.Join(", ", p.Take(3))} and {p.Count - 3} more")));
         if (!d.HasE)
         {

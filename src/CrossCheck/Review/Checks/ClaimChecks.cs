@@ -58,7 +58,7 @@ internal sealed class ClaimChecks
         _kinematics = new Kinematics(submission.Model);
     }
 
-    public List<Flag> Run(string caseId)
+    public List<Flag> Run(string caseId, CancellationToken cancel = default)
     {
         var claims = _s.Claims.EndMoments.Where(c => c.Case == caseId && c.End is not null)
             .ToDictionary(c => new EndKey(c.Member, c.End!.Value));
@@ -67,7 +67,11 @@ internal sealed class ClaimChecks
         double peak = claims.Values.Max(c => Math.Abs(c.Moment));
         var band = ToleranceBand.For(_options, peak, _options.AbsoluteTolerance * _s.Info.Units.Moment.ToSi);
         var context = new CheckContext(_s, _options, _statics, _kinematics, _s.Case(caseId) ?? new LoadCase(caseId, []), claims, band);
-        foreach (var check in All) check.Run(context, flags);
+        foreach (var check in All)
+        {
+            cancel.ThrowIfCancellationRequested();
+            check.Run(context, flags);
+        }
         return flags;
     }
 }

@@ -47,7 +47,8 @@ public sealed class Diagnoser
     private sealed record Scored(Hypothesis H, double Explains, double Worst, bool Systematic);
 
     /// <summary>Likely causes of the case's discrepancies, best first; empty when nothing explains them.</summary>
-    public IReadOnlyList<Cause> Diagnose(CaseReview review)
+    /// <exception cref="OperationCanceledException"><paramref name="cancel"/> was cancelled (checked before every hypothesis).</exception>
+    public IReadOnlyList<Cause> Diagnose(CaseReview review, CancellationToken cancel = default)
     {
         ArgumentNullException.ThrowIfNull(review);
         var ends = review.EndMoments.Where(e => e.Claimed is not null && e.Recomputed is not null && e.End is not null).ToList();
@@ -62,7 +63,15 @@ public sealed class Diagnoser
         var hypotheses = new List<Hypothesis>();
         foreach (var family in Families)
         {
-            try { hypotheses.AddRange(family.Propose(x)); }
+            cancel.ThrowIfCancellationRequested();
+            try
+            {
+                foreach (var h in family.Propose(x))
+                {
+                    cancel.ThrowIfCancellationRequested();
+                    hypotheses.Add(h);
+                }
+            }
             catch (Exception ex) when (ex is StructureException or NotSupportedException or ArgumentException or InvalidOperationException)
             {
                 // A hypothesis that cannot be formed for this structure (e.g. a mechanism) simply does not apply.
