@@ -61,6 +61,8 @@ internal static class Messages
     public static string KindOnJoint(string kind, string id) => F($"a '{kind}' load acts on a member, but '{id}' is a joint");
     public static string KindOnMember(string kind, string id) => F($"a '{kind}' load acts on a joint, but '{id}' is a member");
     public static string Ambiguous(string id) => F($"'{id}' is both a member and a joint id; rename one of them");
+    public static string ValueNotForKind(string column, string text, string kind, IEnumerable<string> uses) =>
+        F($"'{column}' = \"{text}\" on a '{kind}' row is not used (a '{kind}' load reads {string.Join(", ", uses.Select(u => $"'{u}'"))}); check that the row's values were read into the right columns");
     public static string DirNotForKind(string kind) => F($"'dir' does not apply to a '{kind}' load");
     public static string NegativeMagnitude(string column) =>
         F($"'{column}' is negative: it acts opposite to 'dir'. Check that this is intended (write a positive value and the direction)");
@@ -107,10 +109,32 @@ internal static class Messages
     private static string Size(long bytes) => bytes < 1024 * 1024
         ? F($"{Math.Ceiling(bytes / 1024.0):0} KB")
         : F($"{bytes / (1024.0 * 1024):0.#} MB");
+    public static string UndecidableDelimiter(int tabLine, int otherLine) =>
+        F($"the delimiter of this file cannot be decided: line {tabLine} is split by tabs and line {otherLine} by commas or semicolons. Save it with one delimiter (comma-separated CSV, or tab-separated text)");
     public static string NoSections => "the file has no tables: a single-file submission introduces each table with a line such as [members]";
     public static string EmptyTable(string name) => F($"table '{name}' has no header row");
     public static string NotFound(string path) => F($"'{path}' does not exist");
-    public static string Unsupported(string path) => F($"'{path}' is not a folder, a .csv file or a .pdf file");
+    public static string Unsupported(string path) => F($"'{path}' is not a folder, a .csv file, a .pdf file or an .xlsx workbook (tab-separated text is read as .tsv or .txt)");
+    public static string FileTooLarge(long bytes, long max) =>
+        F($"the file is {Size(bytes)}; files larger than {Size(max)} are not read (raise the limit with --max-file-mb)");
+
+    // ---- workbooks ----------------------------------------------------------------------------------
+
+    public static string WorkbookEmpty => "the file is empty (0 bytes), not a workbook";
+    public static string WorkbookNotXlsx => "the file is not an .xlsx workbook (an Office Open XML spreadsheet); save it as .xlsx, or give the tables as CSV";
+    public static string WorkbookTooLarge(long max) =>
+        F($"the workbook's parts expand to more than {Size(max)}, far more than a calculation needs (a compression bomb?); it was not read");
+    public static string WorkbookTooManyCells(int max) => F($"the workbook holds more than {max} cells; CrossCheck reads calculation workbooks, not data sets");
+    public static string WorkbookDamaged(string reason) => F($"the workbook is damaged or uses features CrossCheck cannot read ({reason}); save it again as .xlsx, or give the tables as CSV");
+    public static string WorkbookHiddenSheet(string sheet) => F($"sheet '{sheet}' is hidden and was not read");
+    public static string WorkbookHiddenCells(string sheet, IReadOnlyList<int> rows, IReadOnlyList<string> columns) =>
+        F($"sheet '{sheet}' has hidden {string.Join(" and ", new[] { rows.Count == 0 ? null : $"row{(rows.Count > 1 ? "s" : "")} {string.Join(", ", rows.Take(10))}{(rows.Count > 10 ? ", ..." : "")}", columns.Count == 0 ? null : $"column{(columns.Count > 1 ? "s" : "")} {string.Join(", ", columns.Take(10))}{(columns.Count > 10 ? ", ..." : "")}" }.Where(x => x is not null))}; hidden cells were not read (unhide them if they are part of the calculation)");
+    public static string WorkbookFormulaWithoutValue(string formula) =>
+        F($"the formula ={formula} has no saved result; open the workbook in a spreadsheet program and save it (so that its results are stored), then try again");
+    public static string WorkbookDrawing(string sheet, string cell) =>
+        F($"an image or chart on sheet '{sheet}' at {cell} was not read (a table drawn as a picture is not read; give it as cells)");
+    public static string WorkbookNoTables(IReadOnlyList<string> sheets) =>
+        F($"no table of the submission format was found on {(sheets.Count == 1 ? $"sheet '{sheets[0]}'" : $"the sheets {string.Join(", ", sheets.Select(s => $"'{s}'"))}")}. Tables are recognised by their header row (or a sheet named after the table)");
 
     // ---- PDF input ----------------------------------------------------------------------------------
 
@@ -180,5 +204,15 @@ internal static class Messages
     public static string WorkingNeedsStep => "table 'distribution' needs a column 'step' (DF, FEM, balance, carry-over, final)";
     public static string WorkingStepUnknown(string label) => F($"step \"{label}\" is not recognised (use DF, FEM, balance, carry-over or final)");
 
+    public static string EIgnoredForRelativeI =>
+        "I is given as a relative stiffness, so the stiffnesses are relative (E = 1 for every member): the E column is not used, and displacements are not checked";
+    public static string LengthDisagrees(string member, string printed, double fromJoints, string unit) =>
+        F($"member '{member}' is given as {printed} {unit} long, but its joints are {fromJoints:0.###} {unit} apart; check the joint coordinates and the length (was a column misread?)");
+    public static string TwoColumnsOneRole(string first, string second, string role) =>
+        F($"columns '{first}' and '{second}' both read as '{role}', and their cells cannot tell them apart; name one of them as in the submission format");
+    public static string RoleFromContents(string header, string role, string evidence, string? named) =>
+        F($"column '{header}' was read as '{role}' from its contents ({evidence}){(named is null ? "" : $"; its header names '{named}', which its cells do not fit")}: check the choice");
+    public static string ColumnNotRead(string header, string named, string why) =>
+        F($"column '{header}' names '{named}', but {why}; it was not read");
     public static string NoJointsConnected(string id) => F($"joint '{id}' is not connected to any member");
 }

@@ -114,6 +114,8 @@ public static partial class UnitReader
         s = s.Replace('\u00B7', '·').Replace('\u22C5', '·').Replace('\u2219', '·').Replace('\u2022', '·');
         s = Regex.Replace(s, @"\s+", " ").Trim();
         s = s.Replace("^2", "²").Replace("^3", "³").Replace("^4", "⁴");
+        // Exponents typed without a caret: N/mm2, KN/M2, mm4 (a digit right after a letter is a power in a unit symbol).
+        if (s.Length > 1) s = CaretlessPower().Replace(s, m => m.Value switch { "2" => "²", "3" => "³", _ => "⁴" });
         return s;
     }
 
@@ -123,6 +125,9 @@ public static partial class UnitReader
         s = s.Replace("*", "·");
         return s;
     }
+
+    [GeneratedRegex(@"(?<=[A-Za-zµ])[234](?![0-9])")]
+    private static partial Regex CaretlessPower();
 
     [GeneratedRegex(@"^(?:[x×]\s*)?(?:(?:10\s*\^\s*|1e)(?<exp>[+-]?\d+)|10(?<sup>[⁻⁺]?[⁰¹²³⁴⁵⁶⁷⁸⁹]+))\s*", RegexOptions.CultureInvariant)]
     private static partial Regex PowerPrefix();

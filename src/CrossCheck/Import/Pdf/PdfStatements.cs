@@ -177,11 +177,36 @@ internal static partial class PdfStatements
         return m.Success ? m.Groups["id"].Value : null;
     }
 
+    /// <summary>The table of the format a caption names by one of its names (<c>Table 3 - Applied loads (ULS-2)</c>), or null.</summary>
+    public static TableSpec? NamedTable(string text)
+    {
+        string t = " " + TableSchema.Normalize(CaptionWords().Replace(text, " ")) + " ";
+        foreach (var spec in TableSchema.All.Where(s => s != TableSchema.Info))
+            foreach (var name in spec.Synonyms.Prepend(spec.Name))
+                if (t.Contains(" " + TableSchema.Normalize(name) + " ", StringComparison.Ordinal)) return spec;
+        return null;
+    }
+
     /// <summary>The load case a caption names (<c>Table 4: End moments, load case G+W</c>), or null.</summary>
     public static string? CaptionCase(string text)
     {
         var m = CaptionCaseRx().Match(Geometry.Collapse(text));
         return m.Success ? m.Groups["id"].Value.TrimEnd('.', ',', ':', ';') : null;
+    }
+
+    /// <summary>
+    /// True for a rule typed in characters (<c>------  ------</c>, <c>=====</c>, <c>+----+----+</c>), as a plain-text printout
+    /// draws under its headers: not a row.
+    /// </summary>
+    public static bool IsRule(string text)
+    {
+        int rule = 0;
+        foreach (char c in text)
+        {
+            if (c is '-' or '=' or '_' or '–' or '—' or '―' or '─' or '━' or '═' or '~') rule++;
+            else if (!(char.IsWhiteSpace(c) || c is '+' or '|' or ':' or '*' or '.')) return false;
+        }
+        return rule >= 3;
     }
 
     /// <summary>True for page-number lines (<c>Page 2 of 5</c>, <c>- 3 -</c>, <c>Sheet 4</c>).</summary>
@@ -219,4 +244,7 @@ internal static partial class PdfStatements
 
     [GeneratedRegex(@"\d+")]
     private static partial Regex Digits();
+
+    [GeneratedRegex(@"[^\p{L}\p{N}\s\-]+")]
+    private static partial Regex CaptionWords();
 }

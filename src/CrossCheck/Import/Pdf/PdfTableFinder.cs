@@ -54,8 +54,11 @@ internal sealed partial class PdfTableFinder
     private readonly Dictionary<TextLine, int> _index = [];
     private readonly Dictionary<int, HeaderMatch?> _headers = [];
 
+    private readonly TextDocument _doc;
+
     public PdfTableFinder(TextDocument doc)
     {
+        _doc = doc;
         _lines = doc.Lines.ToList();
         for (int i = 0; i < _lines.Count; i++) _index[_lines[i]] = i;
         Furniture = FindFurniture(doc);
@@ -120,8 +123,25 @@ internal sealed partial class PdfTableFinder
             block.Add(_lines[k]);
         }
         var h = Furniture.Contains(_lines[i]) || block.Count == 0 ? null : HeaderMatcher.Match(block);
+        // A header with words the format does not know, under a caption that names its table, or first on a sheet named after it.
+        if (h is null && block.Count > 0 && !Furniture.Contains(_lines[i]) && NamedAbove(i) is { } named) h = HeaderMatcher.MatchNamed(_lines[i], named);
         _headers[i] = h;
         return h;
+    }
+
+    /// <summary>The table a caption just above line <paramref name="i"/> names (<c>Table 3 - Loads</c>), or the table its sheet is named after.</summary>
+    private TableSpec? NamedAbove(int i)
+    {
+        var line = _lines[i];
+        for (int k = i - 1; k >= 0 && k >= i - 2; k--)
+        {
+            var above = _lines[k];
+            if (above.Page != line.Page || Consumed.Contains(above) || above.Baseline - line.Baseline > 4 * line.Size) break;
+            if (Furniture.Contains(above) || above.Chunks().Count > 1) continue;
+            if (PdfStatements.NamedTable(above.Text) is { } spec) return spec;
+        }
+        if (_doc.PageTables?.GetValueOrDefault(line.Page) is { } sheet && !Tables.Any(t => t.First.Page == line.Page && t.Spec == sheet)) return sheet;
+        return null;
     }
 
     private bool ContinuesWithoutHeader(FoundTable t, TextLine line)
@@ -319,7 +339,7 @@ internal sealed partial class PdfTableFinder
         var set = new HashSet<TextLine>();
         foreach (var page in doc.Pages)
             foreach (var line in page.Lines)
-                if (InMargin(line, page) && PdfStatements.IsPageNumber(line.Text)) set.Add(line);
+                if ((InMargin(line, page) && PdfStatements.IsPageNumber(line.Text)) || PdfStatements.IsRule(line.Text)) set.Add(line);
         if (doc.Pages.Count < 2) return set;
         var groups = new Dictionary<string, List<(TextLine Line, TextPage Page)>>(StringComparer.Ordinal);
         foreach (var page in doc.Pages)

@@ -94,6 +94,9 @@ internal sealed record TextPage(int Number, double Width, double Height, IReadOn
 /// <summary>The text of a PDF.</summary>
 internal sealed record TextDocument(string File, IReadOnlyList<TextPage> Pages)
 {
+    /// <summary>The table a page is named after (a workbook's sheet named <c>Loads</c>): its first header row may use words the format does not know.</summary>
+    public IReadOnlyDictionary<int, TableSpec>? PageTables { get; init; }
+
     public IEnumerable<TextLine> Lines => Pages.SelectMany(p => p.Lines);
 }
 

@@ -3,7 +3,11 @@ namespace CrossCheck.Import.Pdf;
 /// <summary>A column of a table found in a PDF: its header cell (none for a column printed without one) and where its values sit.</summary>
 internal sealed class FoundColumn(HeaderCell? header, double left, double right)
 {
-    public HeaderCell? Header { get; } = header;
+    /// <summary>The header cell; its column of the format is replaced when the column's role is decided from its cells.</summary>
+    public HeaderCell? Header { get; set; } = header;
+
+    /// <summary>How the column's role was decided (set once the document's tables are placed).</summary>
+    public Roles.RoleDecision? Decision { get; set; }
     public double HeadLeft { get; } = left;
     public double HeadRight { get; } = right;
 

@@ -20,11 +20,13 @@ internal static class TableCells
                 string? unit = c.Type == ColumnType.Number ? h.Unit ?? t.UnitsRow?.GetValueOrDefault(k) : null;
                 string? external = c.Type == ColumnType.Number && unit is null
                     ? OutsideUnits.For(r, t, t.Columns[k], c.Kind, t.Spec == TableSchema.Displacements) : null;
-                seg.Columns.Add(new SegmentColumn(c, HeaderName(t.Spec, h), unit, external, h.Printed));
+                seg.Columns.Add(new SegmentColumn(c, HeaderName(t.Spec, h), unit, external, h.Printed) { Decision = t.Columns[k].Decision });
             }
             else
             {
-                seg.Columns.Add(new SegmentColumn(null, h.Printed, null, null, h.Printed));
+                // A header whose words name a column it was not read as is written blank, so that it is not read twice.
+                string header = HeaderMatcher.MatchCell(t.Spec, h.Printed)?.Column is null ? h.Printed : "";
+                seg.Columns.Add(new SegmentColumn(null, header, null, null, h.Printed) { Decision = t.Columns[k].Decision });
             }
             keep.Add(k);
         }
