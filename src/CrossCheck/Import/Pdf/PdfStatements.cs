@@ -187,12 +187,36 @@ internal static partial class PdfStatements
         return null;
     }
 
-    /// <summary>The load case a caption names (<c>Table 4: End moments, load case G+W</c>), or null.</summary>
+    /// <summary>
+    /// The load case a caption names, or null: <c>Table 4: End moments, load case G+W</c>, <c>case ULS-2</c>,
+    /// <c>Loads (ULS-2)</c>, or <c>ULS-2: end moments</c> (an id before a colon). An id in parentheses or before a colon must
+    /// look like a case id (a digit, a <c>+</c>, or capitals), and not be a unit, a note word or a title-block key.
+    /// </summary>
     public static string? CaptionCase(string text)
     {
-        var m = CaptionCaseRx().Match(Geometry.Collapse(text));
-        return m.Success ? m.Groups["id"].Value.TrimEnd('.', ',', ':', ';') : null;
+        string t = Geometry.Collapse(text);
+        var m = CaptionCaseRx().Match(t);
+        if (m.Success) return m.Groups["id"].Value.TrimEnd('.', ',', ':', ';');
+        foreach (Match p in ParenthesisedId().Matches(t))
+            if (LooksLikeCase(p.Groups["id"].Value)) return p.Groups["id"].Value;
+        var lead = LeadingId().Match(t);
+        return lead.Success && LooksLikeCase(lead.Groups["id"].Value) && KeyOf(lead.Groups["id"].Value) is null ? lead.Groups["id"].Value : null;
     }
+
+    private static bool LooksLikeCase(string id)
+    {
+        if (id.Length == 0 || NotCases.Contains(id.ToLowerInvariant().TrimEnd('.'))) return false;
+        if (TableSchema.IsRelativeUnit(id)) return false;
+        foreach (var kind in Enum.GetValues<QuantityKind>())
+            if (UnitReader.TryRead(id, kind) is not null) return false;
+        return id.Any(char.IsDigit) || id.Contains('+', StringComparison.Ordinal) || (id.Length >= 2 && id.All(c => !char.IsLetter(c) || char.IsUpper(c)));
+    }
+
+    private static readonly HashSet<string> NotCases = new(StringComparer.Ordinal)
+    {
+        "continued", "cont", "contd", "cont'd", "note", "notes", "units", "unit", "table", "figure", "fig", "see", "typ", "typical", "all",
+        "ref", "rev", "date", "by", "job", "project", "page", "sheet", "si", "uk", "us", "eu", "nts", "tbc", "na", "n/a",
+    };
 
     /// <summary>
     /// True for a rule typed in characters (<c>------  ------</c>, <c>=====</c>, <c>+----+----+</c>), as a plain-text printout
@@ -244,6 +268,12 @@ internal static partial class PdfStatements
 
     [GeneratedRegex(@"\d+")]
     private static partial Regex Digits();
+
+    [GeneratedRegex(@"\((?<id>[A-Za-z0-9][A-Za-z0-9+\-_./]{0,11})\)")]
+    private static partial Regex ParenthesisedId();
+
+    [GeneratedRegex(@"^(?<id>[A-Za-z0-9][A-Za-z0-9+\-_./]{0,11})\s*:")]
+    private static partial Regex LeadingId();
 
     [GeneratedRegex(@"[^\p{L}\p{N}\s\-]+")]
     private static partial Regex CaptionWords();

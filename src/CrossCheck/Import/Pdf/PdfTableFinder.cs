@@ -21,6 +21,15 @@ internal sealed class FoundTable(HeaderMatch header)
     /// <summary>Note lines just below the last row (units, what parentheses mean).</summary>
     public List<TextLine> Below { get; } = [];
 
+    /// <summary>
+    /// The part of the same table printed before this one, when this part continues it on the next page under its header
+    /// repeated: the caption's load case and the units of the first part hold for this one.
+    /// </summary>
+    public FoundTable? ContinuationOf { get; set; }
+
+    /// <summary>The first printed part of the table this part belongs to.</summary>
+    public FoundTable Origin => ContinuationOf?.Origin ?? this;
+
     /// <summary>The load-case label in force where this part of a table begins (printed in the part before).</summary>
     public (string Case, TextLine Label)? InheritedCase { get; set; }
 
@@ -74,6 +83,8 @@ internal sealed partial class PdfTableFinder
 
     public IReadOnlyList<TextLine> Lines => _lines;
 
+    public TextDocument Document => _doc;
+
     public void Run()
     {
         FoundTable? open = null;
@@ -96,6 +107,11 @@ internal sealed partial class PdfTableFinder
             if (HeaderAt(i) is { } h)
             {
                 var t = new FoundTable(h);
+                // A header repeated at the top of the next page continues the table above it (a layout fact, not a new table).
+                if (Tables.Count > 0 && Tables[^1] is var last && last.Spec == h.Spec && last.LastPage == line.Page - 1 && last.RowLines.Count > 0
+                    && last.Header.Signature.Order(StringComparer.Ordinal).SequenceEqual(h.Signature.Order(StringComparer.Ordinal))
+                    && !TabularAbove(i))
+                    t.ContinuationOf = last;
                 // The header repeated on the next page: the load-case label in force carries on.
                 if (before is not null && before.Spec == h.Spec && before.Header.Signature.SequenceEqual(h.Signature) && before.RowLines.Count > 0
                     && before.RowCase.TryGetValue(before.RowLines[^1], out var inherited))
@@ -111,6 +127,14 @@ internal sealed partial class PdfTableFinder
         }
         foreach (var t in Tables)
             t.Placed = t.RowLines.Count == 0 ? [] : TableLayout.Place(t.Columns, t.RowLines, t.Header.Tight).Rows;
+    }
+
+    /// <summary>Whether a line of a table stands above line <paramref name="i"/> on its page (then a header there starts a table of its own).</summary>
+    private bool TabularAbove(int i)
+    {
+        for (int k = i - 1; k >= 0 && _lines[k].Page == _lines[i].Page; k--)
+            if (!Furniture.Contains(_lines[k]) && LooksTabular(_lines[k]) && !Tables.Any(t => t.Above.Contains(_lines[k]))) return true;
+        return false;
     }
 
     private HeaderMatch? HeaderAt(int i)

@@ -89,7 +89,11 @@ internal sealed class Chunk(IReadOnlyList<TextWord> words)
 }
 
 /// <summary>The text of one page, as lines from the top.</summary>
-internal sealed record TextPage(int Number, double Width, double Height, IReadOnlyList<TextLine> Lines, int Images);
+internal sealed record TextPage(int Number, double Width, double Height, IReadOnlyList<TextLine> Lines, int Images)
+{
+    /// <summary>The images drawn on a page that has text (left, bottom, right, top in points), to be named as not read.</summary>
+    public IReadOnlyList<(double Left, double Bottom, double Right, double Top)> ImageBoxes { get; init; } = [];
+}
 
 /// <summary>The text of a PDF.</summary>
 internal sealed record TextDocument(string File, IReadOnlyList<TextPage> Pages)

@@ -17,9 +17,11 @@ internal static class TableCells
             var h = t.Columns[k].Header!;
             if (h.Column is { } c)
             {
-                string? unit = c.Type == ColumnType.Number ? h.Unit ?? t.UnitsRow?.GetValueOrDefault(k) : null;
+                string? unit = c.Type == ColumnType.Number ? h.Unit ?? t.UnitsRow?.GetValueOrDefault(k) ?? FirstPartUnit(t, c) : null;
                 string? external = c.Type == ColumnType.Number && unit is null
-                    ? OutsideUnits.For(r, t, t.Columns[k], c.Kind, t.Spec == TableSchema.Displacements) : null;
+                    ? OutsideUnits.For(r, t, t.Columns[k], c.Kind, t.Spec == TableSchema.Displacements)
+                      ?? (t.Origin != t ? OutsideUnits.For(r, t.Origin, t.Origin.Columns.FirstOrDefault(o => o.Header?.Column == c) ?? t.Columns[k], c.Kind, t.Spec == TableSchema.Displacements) : null)
+                    : null;
                 seg.Columns.Add(new SegmentColumn(c, HeaderName(t.Spec, h), unit, external, h.Printed) { Decision = t.Columns[k].Decision });
             }
             else
@@ -76,8 +78,20 @@ internal static class TableCells
                         yield return c;
     }
 
-    /// <summary>The load case a caption above the table names (<c>Load case 2: wind</c>), if any.</summary>
-    public static string? CaptionCase(FoundTable t) => t.Above.Select(l => PdfStatements.CaptionCase(l.Text)).FirstOrDefault(c => c is not null);
+    /// <summary>
+    /// The load case a caption above the table names (<c>Load case 2: wind</c>, <c>Loads (ULS-2)</c>), if any; a part that
+    /// continues a table on the next page under its repeated header takes the case of the first part's caption.
+    /// </summary>
+    public static string? CaptionCase(FoundTable t) =>
+        t.Above.Select(l => PdfStatements.CaptionCase(l.Text)).FirstOrDefault(c => c is not null) ?? (t.ContinuationOf is { } first ? CaptionCase(first) : null);
+
+    /// <summary>The unit the first part of a continued table gives a column (its header or units row), when this part repeats the header without it.</summary>
+    private static string? FirstPartUnit(FoundTable t, ColumnSpec c)
+    {
+        if (t.ContinuationOf is not { } first) return null;
+        int k = first.Columns.FindIndex(o => o.Header?.Column == c);
+        return k < 0 ? null : first.Columns[k].Header!.Unit ?? first.UnitsRow?.GetValueOrDefault(k) ?? FirstPartUnit(first, c);
+    }
 
     /// <summary>The header name to write: as printed when the format reads it the same way, else the format's name.</summary>
     private static string HeaderName(TableSpec spec, HeaderCell h) =>
