@@ -3,14 +3,24 @@ using CrossCheck.Import.Pdf;
 
 namespace CrossCheck.Import.Workbook;
 
-/// <summary>A cell of a worksheet as read: its text (a number as stored, with the unit its number format shows) and whether it is a number.</summary>
-internal sealed record GridCell(int Column, string Text, bool IsNumber, int Span = 1);
+/// <summary>
+/// A cell of a worksheet as read: its text (a number as stored, with the unit its number format shows), whether it is a
+/// number, the columns it spans, and the text the sheet displays (a number in its format: what a citation quotes).
+/// </summary>
+internal sealed record GridCell(int Column, string Text, bool IsNumber, int Span = 1, string? Shown = null)
+{
+    public string Display => Shown ?? Text;
+}
 
 /// <summary>A visible row of a worksheet: its row number and its non-empty cells, left to right.</summary>
 internal sealed record GridRow(int Number, IReadOnlyList<GridCell> Cells);
 
 /// <summary>A visible worksheet: its name, its place among the sheets (the "page" of every citation inside the reader) and its rows.</summary>
-internal sealed record GridSheet(string Name, int Index, IReadOnlyList<GridRow> Rows);
+internal sealed record GridSheet(string Name, int Index, IReadOnlyList<GridRow> Rows)
+{
+    /// <summary>Rows the sheet hides (not read, and not counted as blank spacer rows either).</summary>
+    public IReadOnlySet<int> HiddenRows { get; init; } = new HashSet<int>();
+}
 
 /// <summary>
 /// The visible cells of a workbook, and their layout as lines of text: each row a line, each cell a run of words at
@@ -39,7 +49,7 @@ internal sealed class WorkbookGrid(string file, IReadOnlyList<GridSheet> sheets)
             int previous = 0;
             foreach (var row in sheet.Rows)
             {
-                int blank = previous == 0 ? 0 : row.Number - previous - 1;
+                int blank = previous == 0 ? 0 : row.Number - previous - 1 - sheet.HiddenRows.Count(h => h > previous && h < row.Number);
                 baseline -= Pitch * (1 + (0.6 * Math.Min(blank, 5)));
                 previous = row.Number;
                 var words = new List<TextWord>();
@@ -87,9 +97,13 @@ internal sealed class WorkbookGrid(string file, IReadOnlyList<GridSheet> sheets)
     /// The sheet columns of a row's cells as a table read them (printed texts, left to right): each cell is found in
     /// the sheet row at or right of the one before; a cell not found (a case from a caption) has none.
     /// </summary>
-    public IReadOnlyList<string?> Locate(int sheetIndex, int rowNumber, IReadOnlyList<string> printed)
+    public IReadOnlyList<string?> Locate(int sheetIndex, int rowNumber, IReadOnlyList<string> printed) =>
+        Cells(sheetIndex, rowNumber, printed).Select(c => c is null ? null : Letters(c.Column)).ToList();
+
+    /// <summary>The sheet cells of a row's cells as a table read them (see <see cref="Locate"/>).</summary>
+    public IReadOnlyList<GridCell?> Cells(int sheetIndex, int rowNumber, IReadOnlyList<string> printed)
     {
-        var result = new string?[printed.Count];
+        var result = new GridCell?[printed.Count];
         var row = Sheets.FirstOrDefault(s => s.Index == sheetIndex)?.Rows.FirstOrDefault(r => r.Number == rowNumber);
         if (row is null) return result;
         int from = 0;
@@ -100,7 +114,7 @@ internal sealed class WorkbookGrid(string file, IReadOnlyList<GridSheet> sheets)
             for (int c = from; c < row.Cells.Count; c++)
             {
                 if (Geometry.Collapse(row.Cells[c].Text) != want) continue;
-                result[k] = Letters(row.Cells[c].Column);
+                result[k] = row.Cells[c];
                 from = c + 1;
                 break;
             }

@@ -99,6 +99,7 @@ internal static partial class WorkbookReader
         }
         var rows = new List<GridRow>();
         var hiddenRows = new List<int>();
+        var allHidden = new HashSet<int>();
         var formulas = new List<string>();
         int lastRow = 0;
         foreach (var row in ws.GetFirstChild<SheetData>()?.Elements<Row>() ?? [])
@@ -113,7 +114,7 @@ internal static partial class WorkbookReader
                 lastCol = col;
                 if (++cellCount > MaxCells) { problems.Add(new InputProblem(sheetRef, Messages.WorkbookTooManyCells(MaxCells))); return null; }
                 if (hiddenColumns.Contains(col)) continue;
-                string? text = CellText(cell, shared, styles, out bool isNumber, out bool formulaWithoutValue);
+                string? text = CellText(cell, shared, styles, out bool isNumber, out bool formulaWithoutValue, out string? shown);
                 if (formulaWithoutValue)
                 {
                     string formula = cell.CellFormula?.Text ?? "";
@@ -123,10 +124,11 @@ internal static partial class WorkbookReader
                     continue;
                 }
                 if (string.IsNullOrWhiteSpace(text)) continue;
-                cells.Add(new GridCell(col, text.Trim(), isNumber, merges.GetValueOrDefault((number, col), 1)));
+                cells.Add(new GridCell(col, text.Trim(), isNumber, merges.GetValueOrDefault((number, col), 1), shown));
             }
             if (row.Hidden?.Value == true)
             {
+                allHidden.Add(number);
                 if (cells.Count > 0) hiddenRows.Add(number);
                 continue;
             }
@@ -136,12 +138,13 @@ internal static partial class WorkbookReader
             problems.Add(new InputProblem(sheetRef, Messages.WorkbookHiddenCells(name, hiddenRows, hiddenColumns.Select(WorkbookGrid.Letters).ToList()), ProblemSeverity.Warning));
         foreach (var anchor in Drawings(part))
             problems.Add(new InputProblem(sheetRef with { SheetColumn = anchor.Col, Row = anchor.Row }, Messages.WorkbookDrawing(name, anchor.Col + anchor.Row), ProblemSeverity.Warning));
-        return new GridSheet(name, index, rows);
+        return new GridSheet(name, index, rows) { HiddenRows = allHidden };
     }
 
     /// <summary>The cell's text, or null when empty. A formula's saved result; a number as stored, with the unit its format shows.</summary>
-    private static string? CellText(Cell cell, List<string> shared, Styles styles, out bool isNumber, out bool formulaWithoutValue)
+    private static string? CellText(Cell cell, List<string> shared, Styles styles, out bool isNumber, out bool formulaWithoutValue, out string? shown)
     {
+        shown = null;
         isNumber = false;
         formulaWithoutValue = false;
         string? value = cell.CellValue?.Text;
@@ -159,14 +162,16 @@ internal static partial class WorkbookReader
         if (value is null) return null;
         if (!double.TryParse(value, NumberStyles.Float, CultureInfo.InvariantCulture, out double number)) return value;
         isNumber = true;
-        var format = styles.Format(cell.StyleIndex?.Value);
+        var format = styles.Of(cell.StyleIndex?.Value);
         if (format.IsDate && number > 0 && number < 2_958_466)
         {
             isNumber = false;
             return DateTime.FromOADate(number).ToString("yyyy-MM-dd", CultureInfo.InvariantCulture);
         }
         string stored = WorkbookGrid.Stored(number);
-        return format.Unit is { } unit ? $"{stored} {unit}" : stored;
+        shown = format.Decimals is int d ? number.ToString((format.Thousands ? "N" : "F") + d.ToString(CultureInfo.InvariantCulture), CultureInfo.InvariantCulture) : stored;
+        if (format.Unit is { } unit) { shown += " " + unit; return $"{stored} {unit}"; }
+        return stored;
     }
 
     /// <summary>Text of a shared or inline string: its runs joined, a subscript run after <c>_</c> (<c>M_AB</c>), a superscript in superscript digits.</summary>
@@ -210,7 +215,10 @@ internal static partial class WorkbookReader
     /// <summary>The number formats of the workbook's cell styles: which are dates, and the unit a custom format shows.</summary>
     private sealed partial class Styles
     {
-        private readonly List<(bool IsDate, string? Unit)> _formats = [];
+        private readonly List<Format> _formats = [];
+
+        /// <summary>A cell style's number format: a date, the unit it shows, the decimals of a fixed format (<c>0.0</c>), thousands separators.</summary>
+        internal sealed record Format(bool IsDate, string? Unit, int? Decimals, bool Thousands);
 
         public Styles(Stylesheet? sheet)
         {
@@ -220,13 +228,25 @@ internal static partial class WorkbookReader
             foreach (var xf in sheet?.CellFormats?.Elements<CellFormat>() ?? [])
             {
                 uint id = xf.NumberFormatId?.Value ?? 0;
-                string code = custom.GetValueOrDefault(id, "");
-                _formats.Add((id is >= 14 and <= 22 || (code.Length > 0 && IsDateCode(code)), UnitOf(code)));
+                string code = custom.GetValueOrDefault(id, id switch { 1 => "0", 2 => "0.00", 3 => "#,##0", 4 => "#,##0.00", _ => "" });
+                var (decimals, thousands) = Fixed(code);
+                _formats.Add(new Format(id is >= 14 and <= 22 || (code.Length > 0 && IsDateCode(code)), UnitOf(code), decimals, thousands));
             }
         }
 
-        public (bool IsDate, string? Unit) Format(uint? styleIndex) =>
-            styleIndex is uint i && i < _formats.Count ? _formats[(int)i] : (false, null);
+        public Format Of(uint? styleIndex) =>
+            styleIndex is uint i && i < _formats.Count ? _formats[(int)i] : new Format(false, null, null, false);
+
+        /// <summary>The decimals of a fixed number format (<c>0.00</c>, <c>#,##0.0 "kNm"</c>); null for General and anything else.</summary>
+        private static (int?, bool) Fixed(string code)
+        {
+            string plain = Literal().Replace(code.Split(';')[0], "").Trim();
+            var m = FixedCode().Match(plain);
+            return m.Success ? (m.Groups["d"].Value.Length, plain.Contains(',', StringComparison.Ordinal)) : (null, false);
+        }
+
+        [GeneratedRegex(@"^[#,]*0(?:\.(?<d>0*))?$")]
+        private static partial Regex FixedCode();
 
         private static bool IsDateCode(string code)
         {

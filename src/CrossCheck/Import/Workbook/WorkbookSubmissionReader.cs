@@ -50,7 +50,15 @@ public static class WorkbookSubmissionReader
     /// <summary>The table with its sheet and the sheet column of every cell, so that every citation names the cell.</summary>
     private static RawTable Cite(RawTable t, WorkbookGrid grid, Dictionary<int, string> names)
     {
-        RawRow Row(RawRow r) => r.Page is int p ? r with { SheetColumns = grid.Locate(p, r.Line, r.Printed ?? r.Cells) } : r;
+        RawRow Row(RawRow r)
+        {
+            if (r.Page is not int p) return r;
+            var printed = r.Printed ?? r.Cells;
+            var cells = grid.Cells(p, r.Line, printed);
+            // A citation quotes a number as the sheet displays it; the value read is the number as stored.
+            var shown = printed.Select((text, k) => cells[k] is { IsNumber: true } c ? c.Display : text).ToList();
+            return r with { SheetColumns = cells.Select(c => c is null ? null : WorkbookGrid.Letters(c.Column)).ToList(), Printed = shown };
+        }
         return t with { Header = Row(t.Header), Rows = t.Rows.Select(Row).ToList() } with { Sheets = names };
     }
 
