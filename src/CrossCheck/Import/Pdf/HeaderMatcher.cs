@@ -60,6 +60,9 @@ internal static partial class HeaderMatcher
         if (lines.Count == 0) return null;
         var here = Blocks(lines, 0);
         var single = here[0];
+        // A line that names every column it has, and all the table needs, is a header by itself: the lines under it are
+        // its rows or units (a row of ids "A B" must not pass for the wrapped end of "JOINT" and "RESTRAINT").
+        if (single is { Unknown: 0, MissingRequired: 0 } && !(lines.Count > 1 && UnitsOnly(lines[1]))) return single;
         var best = here.Where(m => m is not null).MaxBy(m => m!.Score);
         if (best is null || best == single) return single;
         var below = Blocks(lines, 1).Where(m => m is not null).Select(m => m!.Score).DefaultIfEmpty(double.NegativeInfinity).Max();
@@ -134,6 +137,13 @@ internal static partial class HeaderMatcher
         }
         return null;
     }
+
+    /// <summary>A line whose every piece is a unit (<c>[m]   [kN·m]</c>, <c>(m)</c>, <c>rel.</c>): a units row under a header.</summary>
+    private static bool UnitsOnly(TextLine line) => line.Chunks().All(c =>
+    {
+        string u = c.Text.Trim().Trim('[', ']', '(', ')').Trim();
+        return TableSchema.IsRelativeUnit(u) || Enum.GetValues<QuantityKind>().Any(k => k != QuantityKind.Number && UnitReader.TryRead(u, k) is not null);
+    });
 
     private static bool IsNumber(string text) =>
         NumberText.TryParse(text.Replace('\u2212', '-').Trim('(', ')'), false, out _)
