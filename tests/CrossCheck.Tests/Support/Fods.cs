@@ -78,7 +78,7 @@ public sealed class Fods
         null => "<table:table-cell/>",
         string s => $"<table:table-cell office:value-type=\"string\"><text:p>{Xml(s)}</text:p></table:table-cell>",
         double or int => $"<table:table-cell office:value-type=\"float\" office:value=\"{Convert.ToDouble(cell, CultureInfo.InvariantCulture).ToString("R", CultureInfo.InvariantCulture)}\"/>",
-        Formula f => $"<table:table-cell table:formula=\"of:{Xml(f.Text)}\" office:value-type=\"float\" office:value=\"0\"/>",
+        Formula f => $"<table:table-cell table:formula=\"of:{Xml(f.Text)}\"/>",
         WithUnit u => $"<table:table-cell table:style-name=\"ce{units.IndexOf(u.Unit)}\" office:value-type=\"float\" office:value=\"{u.Value.ToString("R", CultureInfo.InvariantCulture)}\"/>",
         Merged m => $"<table:table-cell table:number-columns-spanned=\"{m.Columns}\" office:value-type=\"string\"><text:p>{Xml(m.Text)}</text:p></table:table-cell>"
                      + string.Concat(Enumerable.Repeat("<table:covered-table-cell/>", m.Columns - 1)),

@@ -170,7 +170,7 @@ internal static partial class WorkbookReader
         }
         string stored = WorkbookGrid.Stored(number);
         shown = format.Decimals is int d ? number.ToString((format.Thousands ? "N" : "F") + d.ToString(CultureInfo.InvariantCulture), CultureInfo.InvariantCulture) : stored;
-        if (format.Unit is { } unit) { shown += " " + unit; return $"{stored} {unit}"; }
+        if (format.Unit is { } unit) return $"{stored} {unit}";
         return stored;
     }
 

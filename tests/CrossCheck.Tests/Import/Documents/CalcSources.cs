@@ -12,10 +12,10 @@ namespace CrossCheck.Tests.Import.Documents;
 public static class CalcSources
 {
     /// <summary>The calculation as the submission format's CSV, with the claimed moment at B given by <paramref name="mB"/>.</summary>
-    public static string Csv(string mB = "103.5", bool relative = true, string caseId = "ULS-2") => $"""
+    public static string Csv(string mB = "103.5", bool relative = true, string caseId = "ULS-2", string? title = "Kiln Lane footpath deck beam (test)") => $"""
         [info]
         key,value
-        title,Kiln Lane footpath deck beam (test)
+        {(title is null ? "# no title" : "title," + title)}
         force unit,kN
         length unit,m
 

@@ -42,12 +42,15 @@ public class FailureClassTests
         ReviewsLikeItsCsv(pdf, Csv(), Verdict.Concur);
     }
 
+    internal static string LoadKindsPdf() => Producers.Chromium(Html(HtmlGeometry()
+        + Table("Table 3: Loads, load case ULS-2", ["Span", "Load", "w (kN/m)", "P (kN)", "a (m)"],
+            ["AB", "udl", "18.0", "", ""], ["BC", "udl", "18.0", "", ""], ["AB", "point", "", "40.0", "3.00"])
+        + MomentsTable), "load-kinds");
+
     [Fact]
     public void ColumnHeadedLoad_HoldingLoadKinds_IsReadAsTheKind_WithAWarning()
     {
-        string loads = Table("Table 3: Loads, load case ULS-2", ["Span", "Load", "w (kN/m)", "P (kN)", "a (m)"],
-            ["AB", "udl", "18.0", "", ""], ["BC", "udl", "18.0", "", ""], ["AB", "point", "", "40.0", "3.00"]);
-        string pdf = Producers.Chromium(Html(HtmlGeometry() + loads + MomentsTable), "load-kinds");
+        string pdf = LoadKindsPdf();
         var r = SubmissionReader.Read(pdf);
         r.Succeeded.ShouldBeTrue(PdfTestData.Problems(r));
         var warning = r.Warnings.Single(w => w.Message.Contains("read as 'kind' from its contents", StringComparison.Ordinal));
