@@ -193,7 +193,7 @@ internal static class Messages
     public static string PdfSideBySide(string read, string beside) =>
         F($"two tables stand side by side in this line ('{beside}' and '{read}'); CrossCheck reads tables set one under another, so the '{beside}' table was not read. Give the tables as CSV (or print them one under the other)");
     public static string PdfTwoLevelHeader(string group, IReadOnlyList<string> columns) =>
-        F($"a header on two levels: '{group}' stands over the columns {string.Join(", ", columns.Select(c => $"'{c}'"))}, which name no column of the table (one column per load case?). Headers on two levels are not read: give one row per value (or the table as CSV)");
+        F($"a header on two levels: '{group}' stands over the columns {string.Join(", ", columns.Select(c => $"'{c}'"))} (one column per load case?). Headers on two levels are not read: give one row per value (or the table as CSV)");
     public static string PdfImageNotRead(int? above, int? below) =>
         F($"an image {(above is int a && below is int b ? $"between lines {a} and {b}" : above is int a2 ? $"below line {a2}" : below is int b2 ? $"above line {b2}" : "on this page")} was not read (a table drawn as a picture is not read; give it as text or CSV)");
     public static string PdfUnlabelledColumn(string sample) => F($"a column without a header (values such as \"{sample}\") was ignored");

@@ -22,6 +22,12 @@ public static class Producers
             "--disable-background-networking", "--disable-component-update", "--disable-sync", $"--user-data-dir={Path.Combine(dir, "profile")}",
             $"--print-to-pdf={output}", src));
 
+    /// <summary>HTML rendered to a PNG picture by headless chromium (a table drawn as an image, for the refusal tests).</summary>
+    public static string Screenshot(string html, string name) => Make(html, name, ".html", ".png", (src, dir, output) =>
+        Run("chromium", dir, "--headless", "--no-sandbox", "--disable-gpu", "--hide-scrollbars", "--no-first-run", "--window-size=600,200",
+            "--disable-background-networking", "--disable-component-update", "--disable-sync", $"--user-data-dir={Path.Combine(dir, "profile")}",
+            $"--screenshot={output}", src));
+
     /// <summary>A groff document (ms macros, tbl tables) typeset to PostScript, then PDF by ghostscript.</summary>
     public static string Groff(string source, string name) => Make(source, name, ".ms", ".pdf", (src, dir, output) =>
     {

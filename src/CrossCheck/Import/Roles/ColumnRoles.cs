@@ -15,6 +15,8 @@ internal enum RoleBasis
     Synonym,
     /// <summary>The header names nothing (or something its cells contradict); the cells fit this role and no other needed one.</summary>
     Contents,
+    /// <summary>Not printed as a column: given by the layout (a caption naming the load case, labels between rows).</summary>
+    Layout,
 }
 
 /// <summary>What is known of one column of a table before its role is decided.</summary>

@@ -9,11 +9,28 @@ namespace CrossCheck.Import.Pdf.Conversion;
 /// </summary>
 internal static class Refusals
 {
-    /// <summary>A group heading directly above a header, over two or more of its columns that were not read: an input error at the heading.</summary>
+    /// <summary>
+    /// A group heading directly above a header, over two or more of its columns that were not read; or sub-columns
+    /// set under one header cell (<c>Moment</c> over <c>ULS-1  ULS-2</c>): an input error at the heading.
+    /// </summary>
     public static void TwoLevelHeaders(PdfReading r)
     {
+        var index = new Dictionary<TextLine, int>();
+        for (int i = 0; i < r.Finder.Lines.Count; i++) index[r.Finder.Lines[i]] = i;
         foreach (var t in r.Finder.Tables.Where(t => !t.Header.IsWide))
         {
+            var last = t.Header.Lines[^1];
+            if (index.TryGetValue(last, out int at) && at + 1 < r.Finder.Lines.Count && r.Finder.Lines[at + 1] is var below
+                && below.Page == last.Page && last.Baseline - below.Baseline < 2.2 * last.Size && !t.RowLines.Contains(below))
+            {
+                foreach (var col in t.Columns)
+                {
+                    var subs = below.Chunks().Where(c => Geometry.Overlap(c.Left, c.Right, col.HeadLeft, col.HeadRight) > 0 && !Roles.ColumnRoles.LooksNumeric(c.Text)).ToList();
+                    if (subs.Count < 2) continue;
+                    r.Problems.Add(new InputProblem(new SourceRef(r.File, t.Spec.Name, last.Number, null, last.Page),
+                        Messages.PdfTwoLevelHeader(col.Header!.Printed, subs.Select(c => c.Text).ToList())));
+                }
+            }
             foreach (var line in t.Above.Where(l => l.Page == t.First.Page && l.Baseline - t.First.Baseline < 2.2 * t.First.Size))
             {
                 foreach (var chunk in line.Chunks())

@@ -35,7 +35,12 @@ internal static class TableCells
         string? captionCase = CaptionCase(t);
         bool addCase = t.Spec.Columns.Any(c => c.Name == "case") && !seg.Columns.Any(c => c.Column?.Name == "case")
                        && (t.RowCase.Count > 0 || captionCase is not null);
-        if (addCase) seg.Columns.Add(new SegmentColumn(t.Spec.Column("case"), "case", null, null, "case"));
+        if (addCase)
+        {
+            string how = t.RowCase.Count > 0 ? "from the load-case labels between its rows"
+                : $"from the caption \"{PdfReading.Shorten(CaptionLine(t)?.Text ?? "")}\"";
+            seg.Columns.Add(new SegmentColumn(t.Spec.Column("case"), "case", null, null, "case") { Decision = new Roles.RoleDecision(t.Spec.Column("case"), Roles.RoleBasis.Layout, 0.95, how) });
+        }
         int leading = t.Placed.Count(p => p.Leading is not null);
         if (leading > 0)
             r.Ignored.Add(new PdfIgnored(new SourceRef(r.File, t.Spec.Name, t.First.Number, null, t.First.Page),
@@ -82,8 +87,11 @@ internal static class TableCells
     /// The load case a caption above the table names (<c>Load case 2: wind</c>, <c>Loads (ULS-2)</c>), if any; a part that
     /// continues a table on the next page under its repeated header takes the case of the first part's caption.
     /// </summary>
-    public static string? CaptionCase(FoundTable t) =>
-        t.Above.Select(l => PdfStatements.CaptionCase(l.Text)).FirstOrDefault(c => c is not null) ?? (t.ContinuationOf is { } first ? CaptionCase(first) : null);
+    public static string? CaptionCase(FoundTable t) => CaptionLine(t) is { } line ? PdfStatements.CaptionCase(line.Text) : null;
+
+    /// <summary>The caption line that names the table's load case (the first part's, for a continuation), if any.</summary>
+    private static TextLine? CaptionLine(FoundTable t) =>
+        t.Above.FirstOrDefault(l => PdfStatements.CaptionCase(l.Text) is not null) ?? (t.ContinuationOf is { } first ? CaptionLine(first) : null);
 
     /// <summary>The unit the first part of a continued table gives a column (its header or units row), when this part repeats the header without it.</summary>
     private static string? FirstPartUnit(FoundTable t, ColumnSpec c)
