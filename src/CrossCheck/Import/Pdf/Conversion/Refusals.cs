@@ -17,18 +17,21 @@ internal static class Refusals
     {
         var index = new Dictionary<TextLine, int>();
         for (int i = 0; i < r.Finder.Lines.Count; i++) index[r.Finder.Lines[i]] = i;
-        foreach (var t in r.Finder.Tables.Where(t => !t.Header.IsWide))
+        foreach (var t in r.Finder.Tables.Where(t => !t.Header.IsWide).ToList())
         {
             var last = t.Header.Lines[^1];
             if (index.TryGetValue(last, out int at) && at + 1 < r.Finder.Lines.Count && r.Finder.Lines[at + 1] is var below
-                && below.Page == last.Page && last.Baseline - below.Baseline < 2.2 * last.Size && !t.RowLines.Contains(below))
+                && below.Page == last.Page && last.Baseline - below.Baseline < 2.2 * last.Size)
             {
-                foreach (var col in t.Columns)
+                foreach (var col in t.Columns.Where(c => c.Header?.Column is null or { Type: ColumnType.Number }))
                 {
                     var subs = below.Chunks().Where(c => Geometry.Overlap(c.Left, c.Right, col.HeadLeft, col.HeadRight) > 0 && !Roles.ColumnRoles.LooksNumeric(c.Text)).ToList();
                     if (subs.Count < 2) continue;
                     r.Problems.Add(new InputProblem(new SourceRef(r.File, t.Spec.Name, last.Number, null, last.Page),
                         Messages.PdfTwoLevelHeader(col.Header!.Printed, subs.Select(c => c.Text).ToList())));
+                    // Not read: its cells would only repeat the refusal as errors of their own.
+                    r.Finder.Tables.Remove(t);
+                    break;
                 }
             }
             foreach (var line in t.Above.Where(l => l.Page == t.First.Page && l.Baseline - t.First.Baseline < 2.2 * t.First.Size))
