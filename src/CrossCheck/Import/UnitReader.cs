@@ -92,6 +92,20 @@ public static partial class UnitReader
         return new UnitChoice(symbol, factor);
     }
 
+    /// <summary>
+    /// True when <paramref name="text"/> is one of the spellings of the table here, of any kind (a power of ten before it
+    /// allowed). Cheap: never loads UnitsNet's parser, so it can be asked of any word (is this line a units row? is this
+    /// caption id a unit?).
+    /// </summary>
+    public static bool IsKnownSpelling(string text)
+    {
+        string raw = text.Trim();
+        if (PowerPrefix().Match(raw) is { Success: true } m) raw = raw[m.Length..].Trim();
+        if (raw.Length == 0) return false;
+        string norm = Normalize(raw);
+        return Aliases.ContainsKey(norm) || AliasesAnyCase.ContainsKey(norm);
+    }
+
     /// <summary>The SI unit of a kind, used when a value needs no unit (angles in radians).</summary>
     public static UnitChoice Radian { get; } = new("rad", 1);
 

@@ -142,7 +142,7 @@ internal static partial class HeaderMatcher
     private static bool UnitsOnly(TextLine line) => line.Chunks().All(c =>
     {
         string u = c.Text.Trim().Trim('[', ']', '(', ')').Trim();
-        return TableSchema.IsRelativeUnit(u) || Enum.GetValues<QuantityKind>().Any(k => k != QuantityKind.Number && UnitReader.TryRead(u, k) is not null);
+        return TableSchema.IsRelativeUnit(u) || UnitReader.IsKnownSpelling(u);
     });
 
     private static bool IsNumber(string text) =>

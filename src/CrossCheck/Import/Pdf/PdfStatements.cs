@@ -206,9 +206,7 @@ internal static partial class PdfStatements
     private static bool LooksLikeCase(string id)
     {
         if (id.Length == 0 || NotCases.Contains(id.ToLowerInvariant().TrimEnd('.'))) return false;
-        if (TableSchema.IsRelativeUnit(id)) return false;
-        foreach (var kind in Enum.GetValues<QuantityKind>())
-            if (UnitReader.TryRead(id, kind) is not null) return false;
+        if (TableSchema.IsRelativeUnit(id) || UnitReader.IsKnownSpelling(id)) return false;
         return id.Any(char.IsDigit) || id.Contains('+', StringComparison.Ordinal) || (id.Length >= 2 && id.All(c => !char.IsLetter(c) || char.IsUpper(c)));
     }
 

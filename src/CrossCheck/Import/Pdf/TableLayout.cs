@@ -66,9 +66,11 @@ internal static class TableLayout
         // table may be set another way (headers left and numbers right, each number ending just left of the next
         // header): the bands the headers' left or right edges make are tried, and the reading whose rows fit best and
         // whose columns are aligned wins. Decided once per table.
-        if (columns.Count < 2 || columns.Any(c => c.Zone is not null) || Misaligned(edges, lines) == 0) return first;
+        // A stray cell or two in a long table (a dash set centred) is not a sign of another alignment.
+        int cells = edges.Sum(e => e.Lefts.Count), off = Misaligned(edges, lines);
+        if (columns.Count < 2 || columns.Any(c => c.Zone is not null) || off == 0 || (off < 3 && 50 * off < cells)) return first;
         var data = columns.Select(c => c.Data).ToList();
-        var best = (Rows: first, Score: (first.FirstBad, -Misaligned(edges, lines)), Zones: (List<(double, double)?>?)null);
+        var best = (Rows: first, Score: (first.FirstBad, -off), Zones: (List<(double, double)?>?)null);
         foreach (var zones in new[] { LeftBands(columns), RightBands(columns) })
         {
             for (int k = 0; k < columns.Count; k++) { columns[k].Zone = zones[k]; columns[k].Data = null; }

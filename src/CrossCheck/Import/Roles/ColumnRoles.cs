@@ -74,7 +74,12 @@ internal sealed class RoleContext
         }
     }
 
-    internal static string Clean(string cell) => string.Join(' ', cell.Split((char[]?)null, StringSplitOptions.RemoveEmptyEntries));
+    internal static string Clean(string cell)
+    {
+        string t = cell.Trim();
+        return t.Contains("  ", StringComparison.Ordinal) || t.Contains('\t') || t.Contains('\n')
+            ? string.Join(' ', t.Split((char[]?)null, StringSplitOptions.RemoveEmptyEntries)) : t;
+    }
 }
 
 /// <summary>
@@ -264,9 +269,12 @@ internal static class ColumnRoles
     /// <summary>What a column's cells are: how many are filled, numbers, and so on.</summary>
     private sealed class Profile
     {
+        /// <summary>Cells looked at: a long table's column shows what it is in its first few hundred cells.</summary>
+        private const int Sample = 400;
+
         public Profile(RoleColumn c)
         {
-            Values = c.Cells.Select(RoleContext.Clean).Where(v => !IsBlank(v)).ToList();
+            Values = c.Cells.Take(Sample).Select(RoleContext.Clean).Where(v => !IsBlank(v)).ToList();
             Numbers = Values.Count(LooksNumeric);
         }
 
@@ -310,6 +318,7 @@ internal static class ColumnRoles
     private static bool NumberOf(string text, out double value)
     {
         string s = text.Trim();
+        if (NumberText.TryParse(s, false, out value)) return true;
         if (Pdf.PdfNumbers.SplitUnit(s) is var (n, _)) s = n;
         s = s.Trim('(', ')').Replace('\u2212', '-').Replace('\u2013', '-');
         if (NumberText.TryParse(s, false, out value)) return true;
