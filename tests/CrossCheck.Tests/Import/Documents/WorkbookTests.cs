@@ -121,6 +121,18 @@ public partial class WorkbookTests
     }
 
     [Fact]
+    public void FileThatIsNoWorkbook_IsRefusedWithASentence_AndTheCliExitsWith2()
+    {
+        using var t = new TempSubmission();
+        SubmissionReader.Read(t.Write("text.xlsx", "case,on\n1,AB\n")).Errors.ShouldHaveSingleItem().Message.ShouldContain("is not an .xlsx workbook");
+        SubmissionReader.Read(t.WriteBytes("empty.xlsx", [])).Errors.ShouldHaveSingleItem().Message.ShouldContain("empty");
+        var (code, _, err) = CliRunner.Run("review", Path.Combine(t.Folder, "text.xlsx"), "--out", Path.Combine(t.Folder, "memo.md"));
+        code.ShouldBe(2);
+        err.ShouldNotContain("   at ");
+        File.Exists(Path.Combine(t.Folder, "memo.md")).ShouldBeFalse();
+    }
+
+    [Fact]
     public void TabSeparatedCopy_IsReadLikeCsv_AndAFileWithTwoDelimitersSaysSoOnce()
     {
         using var t = new TempSubmission();
