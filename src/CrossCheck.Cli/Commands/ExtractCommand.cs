@@ -59,7 +59,7 @@ internal static class ExtractCommand
         var errors = built.Errors.ToList();
         if (errors.Count == 0)
         {
-            io.Output.WriteLine(CommandSupport.Clean($"check the tables against the PDF, then run: crosscheck review {outDir}"));
+            io.Output.WriteLine(CommandSupport.Clean($"check the tables against the {(path.EndsWith(".xlsx", StringComparison.OrdinalIgnoreCase) ? "workbook" : "PDF")}, then run: crosscheck review {outDir}"));
             return ExitCodes.Concur;
         }
         CommandSupport.Fail($"the tables read from '{path}' have {errors.Count} problem{(errors.Count == 1 ? "" : "s")}; correct them in {outDir} and review the folder:", io);

@@ -70,6 +70,8 @@ public static class ContractCsv
         var parts = rows.GroupBy(r => r.Page).Select(g =>
         {
             int first = g.Min(r => r.Line), last = g.Max(r => r.Line);
+            if (g.Key is int s && t.Sheets?.GetValueOrDefault(s) is { } sheet)
+                return first == last ? string.Create(CultureInfo.InvariantCulture, $"sheet '{sheet}' row {first}") : string.Create(CultureInfo.InvariantCulture, $"sheet '{sheet}' rows {first}-{last}");
             string page = g.Key is int p ? string.Create(CultureInfo.InvariantCulture, $"p.{p} ") : "";
             return first == last
                 ? string.Create(CultureInfo.InvariantCulture, $"{page}line {first}")

@@ -78,8 +78,13 @@ public static partial class CsvTableReader
         if (InputFiles.ReadText(path, where, limits, limits.MaxFileBytes, problems, Messages.CsvTooLarge, Messages.NotACsv) is not { } text) return null;
         text = StripByteOrderMarks(text, displayName, problems);
         if (!LinesFit(text, displayName, limits, problems)) return null;
-        char separator = DetectSeparator(text);
-        decimalComma = separator == ';';
+        var (separator, undecided) = DetectSeparator(text);
+        if (undecided is { } why)
+        {
+            problems.Add(new InputProblem(where, why));
+            return null;
+        }
+        decimalComma = separator == ';' || (separator == '\t' && TabDecimalComma(text));
         var records = new List<RawRow>();
         try
         {
@@ -155,18 +160,34 @@ public static partial class CsvTableReader
         return true;
     }
 
-    /// <summary>The header row decides: <c>;</c> in the first header line means a semicolon file.</summary>
-    private static char DetectSeparator(string text)
+    /// <summary>
+    /// The delimiter, decided once for the file: tabs when every line that has a delimiter has a tab (a copy from a
+    /// spreadsheet; commas in it are then part of the cells), else the header row decides (<c>;</c> in the first header
+    /// line means a semicolon file). A file with lines split by tabs and other lines split by commas or semicolons
+    /// cannot be decided: the reason, once, instead of a message per column.
+    /// </summary>
+    private static (char Separator, string? Undecided) DetectSeparator(string text)
     {
+        int? tabLine = null, otherLine = null, number = 0;
+        char? header = null;
         foreach (var rawLine in text.Split('\n'))
         {
-            string line = rawLine.Trim();
-            if (line.Length == 0 || line.StartsWith('#')) continue;
-            if (SectionLine().IsMatch(line.TrimEnd(',', ';'))) continue;
-            return line.Contains(';') ? ';' : ',';
+            number++;
+            string line = rawLine.Trim('\r', ' ');
+            if (line.Trim().Length == 0 || line.TrimStart().StartsWith('#')) continue;
+            if (SectionLine().IsMatch(line.Trim().TrimEnd(',', ';', '\t'))) continue;
+            header ??= line.Contains(';') ? ';' : ',';
+            if (line.Contains('\t')) tabLine ??= number;
+            else if (line.Contains(',') || line.Contains(';')) otherLine ??= number;
         }
-        return ',';
+        if (tabLine is int t && otherLine is int o) return (',', Messages.UndecidableDelimiter(t, o));
+        if (tabLine is not null) return ('\t', null);
+        return (header ?? ',', null);
     }
+
+    /// <summary>A tab-separated copy from a spreadsheet set to decimal commas: its numbers say so (<c>12,5</c>, and no <c>12.5</c>).</summary>
+    private static bool TabDecimalComma(string text) =>
+        Pdf.PdfNumbers.Detect(text.Split('\n').SelectMany(l => l.Split('\t')).Select(c => c.Trim().Trim('"'))).DecimalComma;
 
     [GeneratedRegex(@"^\s*\[(?<name>[^\]]+)\]\s*$")]
     private static partial Regex SectionLine();

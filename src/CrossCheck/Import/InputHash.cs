@@ -19,7 +19,7 @@ public static class InputHash
             using var hash = IncrementalHash.CreateHash(HashAlgorithmName.SHA256);
             if (Directory.Exists(path))
             {
-                var files = Directory.GetFiles(path).Where(f => Path.GetExtension(f).Equals(".csv", StringComparison.OrdinalIgnoreCase))
+                var files = Directory.GetFiles(path).Where(f => Path.GetExtension(f).ToLowerInvariant() is ".csv" or ".tsv")
                     .Order(StringComparer.Ordinal);
                 foreach (var f in files) Add(hash, Path.GetFileName(f), f);
             }

@@ -18,7 +18,7 @@ public sealed record InputLimits
     /// <summary>The defaults.</summary>
     public static InputLimits Default { get; } = new();
 
-    /// <summary>Largest CSV file read (bytes). A PDF has its own bound, <see cref="PdfLimits.MaxFileBytes"/>.</summary>
+    /// <summary>Largest CSV, tab-separated or workbook file read (bytes). A PDF has its own bound, <see cref="PdfLimits.MaxFileBytes"/>.</summary>
     public long MaxFileBytes { get; init; } = 20L * 1024 * 1024;
 
     /// <summary>Longest line of a CSV file (characters): a table row is a few hundred.</summary>

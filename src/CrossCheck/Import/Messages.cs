@@ -61,6 +61,8 @@ internal static class Messages
     public static string KindOnJoint(string kind, string id) => F($"a '{kind}' load acts on a member, but '{id}' is a joint");
     public static string KindOnMember(string kind, string id) => F($"a '{kind}' load acts on a joint, but '{id}' is a member");
     public static string Ambiguous(string id) => F($"'{id}' is both a member and a joint id; rename one of them");
+    public static string ValueNotForKind(string column, string text, string kind, IEnumerable<string> uses) =>
+        F($"'{column}' = \"{text}\" on a '{kind}' row is not used (a '{kind}' load reads {string.Join(", ", uses.Select(u => $"'{u}'"))}); check that the row's values were read into the right columns");
     public static string DirNotForKind(string kind) => F($"'dir' does not apply to a '{kind}' load");
     public static string NegativeMagnitude(string column) =>
         F($"'{column}' is negative: it acts opposite to 'dir'. Check that this is intended (write a positive value and the direction)");
@@ -107,6 +109,8 @@ internal static class Messages
     private static string Size(long bytes) => bytes < 1024 * 1024
         ? F($"{Math.Ceiling(bytes / 1024.0):0} KB")
         : F($"{bytes / (1024.0 * 1024):0.#} MB");
+    public static string UndecidableDelimiter(int tabLine, int otherLine) =>
+        F($"the delimiter of this file cannot be decided: line {tabLine} is split by tabs and line {otherLine} by commas or semicolons. Save it with one delimiter (comma-separated CSV, or tab-separated text)");
     public static string NoSections => "the file has no tables: a single-file submission introduces each table with a line such as [members]";
     public static string EmptyTable(string name) => F($"table '{name}' has no header row");
     public static string NotFound(string path) => F($"'{path}' does not exist");
@@ -115,7 +119,27 @@ internal static class Messages
     public static string NotARegularFile(string what) => F($"the file is {what}; CrossCheck reads regular files only, so it was not read");
     public static string OverTimeBudget(double seconds) =>
         F($"the review took longer than the time limit of {seconds:0.#} s and was stopped; raise it with --time-limit, or split the submission");
-    public static string Unsupported(string path) => F($"'{path}' is not a folder, a .csv file or a .pdf file");
+    public static string Unsupported(string path) => F($"'{path}' is not a folder, a .csv file, a .pdf file or an .xlsx workbook (tab-separated text is read as .tsv or .txt)");
+    public static string FileTooLarge(long bytes, long max) =>
+        F($"the file is {Size(bytes)}; files larger than {Size(max)} are not read (raise the limit with --max-file-mb)");
+
+    // ---- workbooks ----------------------------------------------------------------------------------
+
+    public static string WorkbookEmpty => "the file is empty (0 bytes), not a workbook";
+    public static string WorkbookNotXlsx => "the file is not an .xlsx workbook (an Office Open XML spreadsheet); save it as .xlsx, or give the tables as CSV";
+    public static string WorkbookTooLarge(long max) =>
+        F($"the workbook's parts expand to more than {Size(max)}, far more than a calculation needs (a compression bomb?); it was not read");
+    public static string WorkbookTooManyCells(int max) => F($"the workbook holds more than {max} cells; CrossCheck reads calculation workbooks, not data sets");
+    public static string WorkbookDamaged(string reason) => F($"the workbook is damaged or uses features CrossCheck cannot read ({reason}); save it again as .xlsx, or give the tables as CSV");
+    public static string WorkbookHiddenSheet(string sheet) => F($"sheet '{sheet}' is hidden and was not read");
+    public static string WorkbookHiddenCells(string sheet, IReadOnlyList<int> rows, IReadOnlyList<string> columns) =>
+        F($"sheet '{sheet}' has hidden {string.Join(" and ", new[] { rows.Count == 0 ? null : $"row{(rows.Count > 1 ? "s" : "")} {string.Join(", ", rows.Take(10))}{(rows.Count > 10 ? ", ..." : "")}", columns.Count == 0 ? null : $"column{(columns.Count > 1 ? "s" : "")} {string.Join(", ", columns.Take(10))}{(columns.Count > 10 ? ", ..." : "")}" }.Where(x => x is not null))}; hidden cells were not read (unhide them if they are part of the calculation)");
+    public static string WorkbookFormulaWithoutValue(string formula) =>
+        F($"the formula ={formula} has no saved result; open the workbook in a spreadsheet program and save it (so that its results are stored), then try again");
+    public static string WorkbookDrawing(string sheet, string cell) =>
+        F($"an image or chart on sheet '{sheet}' at {cell} was not read (a table drawn as a picture is not read; give it as cells)");
+    public static string WorkbookNoTables(IReadOnlyList<string> sheets) =>
+        F($"no table of the submission format was found on {(sheets.Count == 1 ? $"sheet '{sheets[0]}'" : $"the sheets {string.Join(", ", sheets.Select(s => $"'{s}'"))}")}. Tables are recognised by their header row (or a sheet named after the table)");
 
     // ---- PDF input ----------------------------------------------------------------------------------
 
@@ -175,6 +199,10 @@ internal static class Messages
         F($"this part of table '{name}' gives column '{column}' in a different unit from the part at {first}; this part was not read");
     public static string PdfSideBySide(string read, string beside) =>
         F($"two tables stand side by side in this line ('{beside}' and '{read}'); CrossCheck reads tables set one under another, so the '{beside}' table was not read. Give the tables as CSV (or print them one under the other)");
+    public static string PdfTwoLevelHeader(string group, IReadOnlyList<string> columns) =>
+        F($"a header on two levels: '{group}' stands over the columns {string.Join(", ", columns.Select(c => $"'{c}'"))} (one column per load case?). Headers on two levels are not read: give one row per value (or the table as CSV)");
+    public static string PdfImageNotRead(int? above, int? below) =>
+        F($"an image {(above is int a && below is int b ? $"between lines {a} and {b}" : above is int a2 ? $"below line {a2}" : below is int b2 ? $"above line {b2}" : "on this page")} was not read (a table drawn as a picture is not read; give it as text or CSV)");
     public static string PdfUnlabelledColumn(string sample) => F($"a column without a header (values such as \"{sample}\") was ignored");
 
     // ---- the distribution (working) table -----------------------------------------------------------
@@ -196,5 +224,15 @@ internal static class Messages
     public static string LookAlikeIds(string kind, string first, string second, string differences) =>
         F($"{kind} ids '{first}' and '{second}' look alike but are different ids ({differences}); a reference to one does not reach the other");
     public static string LoadOverNoLength => "'b' equals 'a': a distributed load over no length does nothing; give its extent, or use a point load";
+    public static string EIgnoredForRelativeI =>
+        "I is given as a relative stiffness, so the stiffnesses are relative (E = 1 for every member): the E column is not used, and displacements are not checked";
+    public static string LengthDisagrees(string member, string printed, double fromJoints, string unit) =>
+        F($"member '{member}' is given as {printed} {unit} long, but its joints are {fromJoints:0.###} {unit} apart; check the joint coordinates and the length (was a column misread?)");
+    public static string TwoColumnsOneRole(string first, string second, string role) =>
+        F($"columns '{first}' and '{second}' both read as '{role}', and their cells cannot tell them apart; name one of them as in the submission format");
+    public static string RoleFromContents(string header, string role, string evidence, string? named) =>
+        F($"column '{header}' was read as '{role}' from its contents ({evidence}){(named is null ? "" : $"; its header names '{named}', which its cells do not fit")}: check the choice");
+    public static string ColumnNotRead(string header, string named, string why) =>
+        F($"column '{header}' names '{named}', but {why}; it was not read");
     public static string NoJointsConnected(string id) => F($"joint '{id}' is not connected to any member");
 }

@@ -51,7 +51,7 @@ public sealed class SubmissionBuilder
         foreach (var t in tables.Select(t => WithoutControls(t, problems)))
         {
             var spec = TableSchema.Find(t.Name);
-            var where = new SourceRef(t.File, t.Name, t.Header.Line, null, t.Header.Page);
+            var where = t.HeaderAt(t.Name);
             if (spec is null) { problems.Add(new InputProblem(where, Messages.UnknownTable(t.Name), ProblemSeverity.Warning)); continue; }
             if (!byName.TryAdd(spec.Name, t)) problems.Add(new InputProblem(where, Messages.DuplicateTable(spec.Name)));
         }
@@ -107,7 +107,7 @@ public sealed class SubmissionBuilder
     /// <summary>The first limit of <see cref="InputLimits"/> the tables go over (rows, members, joints, load cases), at the table's header.</summary>
     private static InputProblem? OverLimits(Dictionary<string, RawTable> tables, InputLimits limits)
     {
-        static SourceRef At(RawTable t) => new(t.File, t.Name, t.Header.Line, null, t.Header.Page);
+        static SourceRef At(RawTable t) => t.HeaderAt(t.Name);
         static int Rows(RawTable t) => t.Rows.Count(r => !r.IsBlank);
         foreach (var t in tables.Values)
             if (Rows(t) > limits.MaxRows) return new InputProblem(At(t), Messages.TooManyRows(t.Name, Rows(t), limits.MaxRows));

@@ -1,10 +1,16 @@
 using CrossCheck.Common;
 using CrossCheck.Import.Pdf;
+using CrossCheck.Import.Roles;
+using CrossCheck.Import.Workbook;
 using CrossCheck.Model;
 
 namespace CrossCheck.Import;
 
-/// <summary>Reads a submission from a folder of CSV files, a single sectioned CSV file, or a text PDF.</summary>
+/// <summary>
+/// Reads a submission from a folder of CSV (or tab-separated) files, a single sectioned CSV or tab-separated file, a
+/// text PDF, or an <c>.xlsx</c> workbook. Tables read as text cells go through <see cref="RawTableRoles"/> (column roles
+/// from headers and contents) before they are built.
+/// </summary>
 public static class SubmissionReader
 {
     /// <summary>Reads the submission at <paramref name="path"/> within the default <see cref="InputLimits"/>. Never throws for bad input: problems are returned.</summary>
@@ -26,19 +32,34 @@ public static class SubmissionReader
         if (!File.Exists(path) && FileFacts.Of(path).Kind == FileKind.Missing)
             return new ImportResult(null, [new InputProblem(new SourceRef(display.Length > 0 ? display : path), Messages.NotFound(path))]);
         string ext = Path.GetExtension(path).ToLowerInvariant();
-        if (ext is ".csv" or ".txt")
+        if (ext is ".csv" or ".txt" or ".tsv")
         {
             var tables = CsvTableReader.ReadSectioned(path, display, problems, limits);
-            return SubmissionBuilder.Build(path, tables, problems, limits);
+            return SubmissionBuilder.Build(path, RawTableRoles.Apply(tables, problems), problems, limits);
         }
         if (ext == ".pdf") return PdfSubmissionReader.Read(path, limits);
+        if (ext == ".xlsx")
+        {
+            var bytes = ReadBytes(path, display, limits, problems);
+            return bytes is null ? new ImportResult(null, problems) : WorkbookSubmissionReader.Read(bytes, path, limits);
+        }
         return new ImportResult(null, [new InputProblem(new SourceRef(display), Messages.Unsupported(path))]);
     }
+
+    /// <summary>The extensions of the files a submission may be, besides a folder.</summary>
+    public static IReadOnlyList<string> FileExtensions { get; } = [".csv", ".txt", ".tsv", ".pdf", ".xlsx"];
+
+    /// <summary>
+    /// The bytes of an input file within <see cref="InputLimits.MaxFileBytes"/> (null, with the problem reported, when it
+    /// is too large, not a regular file, outside the folder read, or cannot be read): the one place a workbook is opened.
+    /// </summary>
+    internal static byte[]? ReadBytes(string path, string display, InputLimits limits, List<InputProblem> problems) =>
+        InputFiles.ReadBytes(path, new SourceRef(display), limits.Within, limits.MaxFileBytes, problems, Messages.FileTooLarge, Messages.WorkbookDamaged);
 
     private static ImportResult ReadFolder(string folder, List<InputProblem> problems, InputLimits limits)
     {
         var tables = new List<RawTable>();
-        var files = Directory.GetFiles(folder).Where(f => Path.GetExtension(f).Equals(".csv", StringComparison.OrdinalIgnoreCase))
+        var files = Directory.GetFiles(folder).Where(f => Path.GetExtension(f).ToLowerInvariant() is ".csv" or ".tsv")
             .Order(StringComparer.Ordinal).ToList();
         foreach (var file in files)
         {
@@ -54,6 +75,6 @@ public static class SubmissionReader
         }
         if (files.Count == 0)
             problems.Add(new InputProblem(new SourceRef(Path.GetFileName(Path.TrimEndingDirectorySeparator(folder))), Messages.NoCsvInFolder));
-        return SubmissionBuilder.Build(folder, tables, problems, limits);
+        return SubmissionBuilder.Build(folder, RawTableRoles.Apply(tables, problems), problems, limits);
     }
 }

@@ -32,6 +32,30 @@ internal sealed record TableSpec(string Name, ColumnSpec[] Columns, params strin
 /// <summary>The tables and columns of docs/SUBMISSION-FORMAT.md (format contract v1), in one place.</summary>
 internal static partial class TableSchema
 {
+    /// <summary>
+    /// Header names of a relative second moment of area, the hand-method habit (<c>I/I₀</c>, <c>rel. I</c>, <c>k</c>):
+    /// read as relative stiffness, E = 1 (see <see cref="IsRelativeStiffness"/>).
+    /// </summary>
+    private static readonly string[] RelativeI = ["I/I0", "I/I₀", "I/Io", "I rel", "I rel.", "rel I", "rel. I", "relative I", "Irel", "Ir", "k", "relative stiffness", "rel. stiffness"];
+
+    /// <summary>Unit words that say a stiffness is relative (<c>I (rel.)</c>, <c>I [-]</c>).</summary>
+    private static readonly string[] RelativeUnits = ["rel", "relative", "ratio", "-", "1", "", "k", "i/i0", "i/i₀", "i/io"];
+
+    /// <summary>
+    /// True when a second-moment header says the values are relative: by its name (<c>I/I₀</c>, <c>k</c>, <c>rel. I</c>)
+    /// or by its unit (<c>I (rel.)</c>, <c>I [relative]</c>, <c>I [-]</c>).
+    /// </summary>
+    public static bool IsRelativeStiffness(string header)
+    {
+        var (name, unit) = SplitHeader(header);
+        if (unit is not null && IsRelativeUnit(unit)) return true;
+        string n = Normalize(name);
+        return n.Length > 0 && RelativeI.Any(r => Normalize(r) == n);
+    }
+
+    /// <summary>True for a unit word that means "relative" (<c>rel.</c>, <c>relative</c>, <c>ratio</c>, <c>-</c>).</summary>
+    public static bool IsRelativeUnit(string unit) => RelativeUnits.Contains(Normalize(unit).TrimEnd('.'));
+
     private static ColumnSpec Id(string name, bool required = true, params string[] syn) => new(name, ColumnType.Id, QuantityKind.Number, required, syn);
     private static ColumnSpec Text(string name, bool required = false, params string[] syn) => new(name, ColumnType.Text, QuantityKind.Number, required, syn);
     private static ColumnSpec Num(string name, QuantityKind kind, bool required = false, params string[] syn) => new(name, ColumnType.Number, kind, required, syn);
@@ -55,9 +79,10 @@ internal static partial class TableSchema
         Id("start", true, "from", "start joint", "node i", "i", "joint i", "start node", "i node", "i end"),
         Id("end", true, "to", "end joint", "node j", "j", "joint j", "end node", "j node", "j end"),
         Num("E", QuantityKind.Modulus, false, "modulus", "elastic modulus", "young's modulus", "youngs modulus"),
-        Num("I", QuantityKind.SecondMoment, true, "Ixx", "Iz", "Ix", "second moment of area", "moment of inertia", "inertia"),
+        Num("I", QuantityKind.SecondMoment, true, ["Ixx", "Iz", "Ix", "second moment of area", "moment of inertia", "inertia", .. RelativeI]),
         Num("A", QuantityKind.Area, false, "area", "section area", "cross section area"),
         Text("hinge", false, "release", "releases", "hinges"),
+        Num("length", QuantityKind.Length, false, "L", "member length", "length L"),
     ], "elements", "member properties");
 
     public static readonly TableSpec Supports = new("supports",
@@ -73,7 +98,7 @@ internal static partial class TableSchema
         Id("span", true, "member", "id", "span no"),
         Num("length", QuantityKind.Length, true, "L", "span length", "length L"),
         Num("E", QuantityKind.Modulus, false, "modulus", "elastic modulus", "young's modulus", "youngs modulus"),
-        Num("I", QuantityKind.SecondMoment, true, "Ixx", "Iz", "Ix", "second moment of area", "moment of inertia", "inertia"),
+        Num("I", QuantityKind.SecondMoment, true, ["Ixx", "Iz", "Ix", "second moment of area", "moment of inertia", "inertia", .. RelativeI]),
         Text("hinge", false, "release", "releases"),
     ]);
 

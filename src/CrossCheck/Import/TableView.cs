@@ -29,7 +29,7 @@ internal sealed class TableView
             var (name, unitText) = TableSchema.SplitHeader(cell);
             if (unitText is null && raw.ColumnUnits?.TryGetValue(i, out var u) == true) unitText = u;
             var col = TableSchema.ResolveColumn(spec, name);
-            var where = HeaderRef(cell);
+            var where = HeaderCellRef(cell);
             if (col is null)
             {
                 problems.Add(new InputProblem(where, Messages.UnknownColumn(cell, spec), ProblemSeverity.Warning));
@@ -46,7 +46,7 @@ internal sealed class TableView
             _units[col.Name] = ResolveUnit(col, unitText, defaults, where, relativeStiffness);
         }
         foreach (var col in spec.Columns.Where(c => c.Required && !_index.ContainsKey(c.Name)))
-            problems.Add(new InputProblem(new SourceRef(raw.File, spec.Name, raw.Header.Line, col.Name, raw.Header.Page),
+            problems.Add(new InputProblem(raw.HeaderAt(spec.Name, col.Name),
                 Messages.MissingColumn(col, spec)));
     }
 
@@ -66,16 +66,20 @@ internal sealed class TableView
         return TableSchema.SplitHeader(Raw.Header.Cells[i]).Unit is not null || Raw.ColumnUnits?.ContainsKey(i) == true;
     }
 
-    public SourceRef RowRef(RawRow row) => new(Raw.File, Spec.Name, row.Line, null, row.Page);
+    public SourceRef RowRef(RawRow row) => Raw.RowAt(Spec.Name, row);
 
     public SourceRef CellRef(RawRow row, string column) =>
-        new(Raw.File, Spec.Name, row.Line, _headerText.GetValueOrDefault(column, column), row.Page, Printed(row, column));
+        Raw.CellAt(Spec.Name, row, _index.GetValueOrDefault(column, -1), _headerText.GetValueOrDefault(column, column), Printed(row, column));
 
     /// <summary>The cell as printed in the source (PDF cells are read in a normalised form; see <see cref="RawRow.Printed"/>).</summary>
     private string Printed(RawRow row, string column) =>
         _index.TryGetValue(column, out int i) && row.Printed is { } p && i < p.Count ? p[i] : Text(row, column);
 
-    private SourceRef HeaderRef(string cell) => new(Raw.File, Spec.Name, Raw.Header.Line, cell, Raw.Header.Page);
+    private SourceRef HeaderCellRef(string cell) => Raw.HeaderAt(Spec.Name, cell, Raw.Header.Cells.ToList().IndexOf(cell));
+
+    /// <summary>The header cell of a column of the format (or the header row when the column is absent).</summary>
+    public SourceRef HeaderRef(string column) =>
+        Raw.HeaderAt(Spec.Name, _headerText.GetValueOrDefault(column), _index.TryGetValue(column, out int i) ? i : null);
 
     /// <summary>Trimmed cell text; empty when the column is absent.</summary>
     public string Text(RawRow row, string column) => _index.TryGetValue(column, out int i) ? row.Cell(i).Trim() : "";
@@ -139,7 +143,7 @@ internal sealed class TableView
         {
             if (col.Kind == QuantityKind.Number) return new UnitChoice(unitText, 1);
             var parsed = UnitReader.TryRead(unitText, col.Kind);
-            if (parsed is null && col.Kind == QuantityKind.SecondMoment && relativeStiffness && IsRelativeWord(unitText))
+            if (parsed is null && col.Kind == QuantityKind.SecondMoment && (relativeStiffness || IsRelativeWord(unitText)) && IsRelativeWord(unitText))
                 return new UnitChoice("", 1);
             if (parsed is null) _problems.Add(new InputProblem(where, Messages.BadUnit(unitText, col)));
             return parsed;
@@ -152,8 +156,7 @@ internal sealed class TableView
         return d;
     }
 
-    private static bool IsRelativeWord(string s) =>
-        TableSchema.Normalize(s) is "rel" or "relative" or "-" or "1" or "" or "ratio";
+    private static bool IsRelativeWord(string s) => TableSchema.IsRelativeUnit(s);
 }
 
 /// <summary>Default units from the <c>info</c> table (<c>force unit</c>, <c>length unit</c>).</summary>

@@ -92,6 +92,20 @@ public static partial class UnitReader
         return new UnitChoice(symbol, factor);
     }
 
+    /// <summary>
+    /// True when <paramref name="text"/> is one of the spellings of the table here, of any kind (a power of ten before it
+    /// allowed). Cheap: never loads UnitsNet's parser, so it can be asked of any word (is this line a units row? is this
+    /// caption id a unit?).
+    /// </summary>
+    public static bool IsKnownSpelling(string text)
+    {
+        string raw = text.Trim();
+        if (PowerPrefix().Match(raw) is { Success: true } m) raw = raw[m.Length..].Trim();
+        if (raw.Length == 0) return false;
+        string norm = Normalize(raw);
+        return Aliases.ContainsKey(norm) || AliasesAnyCase.ContainsKey(norm);
+    }
+
     /// <summary>The SI unit of a kind, used when a value needs no unit (angles in radians).</summary>
     public static UnitChoice Radian { get; } = new("rad", 1);
 
@@ -114,6 +128,8 @@ public static partial class UnitReader
         s = s.Replace('\u00B7', '·').Replace('\u22C5', '·').Replace('\u2219', '·').Replace('\u2022', '·');
         s = Regex.Replace(s, @"\s+", " ").Trim();
         s = s.Replace("^2", "²").Replace("^3", "³").Replace("^4", "⁴");
+        // Exponents typed without a caret: N/mm2, KN/M2, mm4 (a digit right after a letter is a power in a unit symbol).
+        if (s.Length > 1) s = CaretlessPower().Replace(s, m => m.Value switch { "2" => "²", "3" => "³", _ => "⁴" });
         return s;
     }
 
@@ -123,6 +139,9 @@ public static partial class UnitReader
         s = s.Replace("*", "·");
         return s;
     }
+
+    [GeneratedRegex(@"(?<=[A-Za-zµ])[234](?![0-9])")]
+    private static partial Regex CaretlessPower();
 
     [GeneratedRegex(@"^(?:[x×]\s*)?(?:(?:10\s*\^\s*|1e)(?<exp>[+-]?\d+)|10(?<sup>[⁻⁺]?[⁰¹²³⁴⁵⁶⁷⁸⁹]+))\s*", RegexOptions.CultureInvariant)]
     private static partial Regex PowerPrefix();

@@ -36,7 +36,7 @@ internal static partial class WorkingTableReader
             if (unitText is not null && !cell.Contains('[') && ResolveEnd(cell.Trim(), model) is not null) (name, unitText) = (cell.Trim(), null);
             if (unitText is null && t.ColumnUnits?.TryGetValue(i, out var u) == true) unitText = u;
             string norm = TableSchema.Normalize(name);
-            var where = new SourceRef(t.File, "distribution", header.Line, cell, header.Page);
+            var where = t.HeaderAt("distribution", cell, i);
             if (TableSchema.Distribution.Column("case").Matches(norm)) { caseCol = i; continue; }
             if (TableSchema.Distribution.Column("step").Matches(norm)) { stepCol = i; continue; }
             var end = ResolveEnd(name, model);
@@ -60,7 +60,7 @@ internal static partial class WorkingTableReader
         }
         if (stepCol < 0)
         {
-            problems.Add(new InputProblem(new SourceRef(t.File, "distribution", header.Line, "step", header.Page), Messages.WorkingNeedsStep));
+            problems.Add(new InputProblem(t.HeaderAt("distribution", "step"), Messages.WorkingNeedsStep));
             return [];
         }
         var byCase = new Dictionary<string, List<WorkingRow>>(StringComparer.Ordinal);
@@ -69,7 +69,7 @@ internal static partial class WorkingTableReader
         {
             string caseId = caseCol >= 0 && row.Cell(caseCol).Trim().Length > 0 ? row.Cell(caseCol).Trim() : "1";
             string label = row.Cell(stepCol).Trim();
-            var rowRef = new SourceRef(t.File, "distribution", row.Line, null, row.Page);
+            var rowRef = t.RowAt("distribution", row);
             var step = ParseStep(label);
             if (step is null)
             {

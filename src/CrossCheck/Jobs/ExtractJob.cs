@@ -1,6 +1,7 @@
 using CrossCheck.Common;
 using CrossCheck.Import;
 using CrossCheck.Import.Pdf;
+using CrossCheck.Import.Workbook;
 
 namespace CrossCheck.Jobs;
 
@@ -27,9 +28,10 @@ public static class ExtractJob
         ArgumentNullException.ThrowIfNull(outDir);
         limits ??= InputLimits.Default;
         if (!File.Exists(pdf)) return new ExtractOutcome(null, [], $"'{pdf}' does not exist.", null);
-        if (!Path.GetExtension(pdf).Equals(".pdf", StringComparison.OrdinalIgnoreCase))
-            return new ExtractOutcome(null, [], $"'{pdf}' is not a .pdf file; extract reads text PDFs (CSV submissions need no extracting).", null);
-        var x = PdfSubmissionReader.Extract(pdf, limits.Pdf);
+        string ext = Path.GetExtension(pdf).ToLowerInvariant();
+        if (ext is not ".pdf" and not ".xlsx")
+            return new ExtractOutcome(null, [], $"'{pdf}' is not a .pdf file or an .xlsx workbook; extract reads text PDFs and workbooks (CSV submissions need no extracting).", null);
+        var x = ext == ".pdf" ? PdfSubmissionReader.Extract(pdf, limits.Pdf) : WorkbookExtract(pdf, limits);
         if (x.Tables.Count == 0) return new ExtractOutcome(x, [], $"no tables were read from '{pdf}':", null);
         if (Directory.Exists(outDir) && Directory.EnumerateFileSystemEntries(outDir).Any() && !force && Directory.EnumerateFiles(outDir, "*.csv").Any())
             return new ExtractOutcome(x, [], $"'{outDir}' already holds CSV files; give --force to replace the tables in it, or choose another folder.", null);
@@ -39,6 +41,13 @@ public static class ExtractJob
         return JobOutput.TryWrite(outDir, () => WriteFolder(outDir, files), out var problem)
             ? new ExtractOutcome(x, files, null, built)
             : new ExtractOutcome(x, [], problem, built);
+    }
+
+    private static PdfExtraction WorkbookExtract(string path, InputLimits limits)
+    {
+        var problems = new List<InputProblem>();
+        var bytes = SubmissionReader.ReadBytes(path, Path.GetFileName(path), limits, problems);
+        return bytes is null ? new PdfExtraction(path, [], [], [], problems) : WorkbookSubmissionReader.Extract(bytes, path);
     }
 
     /// <summary>Writes every file atomically, then removes tables of the format the folder held from an earlier run.</summary>

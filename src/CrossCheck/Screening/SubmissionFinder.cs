@@ -57,8 +57,8 @@ public static class SubmissionFinder
                 continue;
             }
             string ext = Path.GetExtension(name).ToLowerInvariant();
-            if (ext is ".csv" or ".pdf") items.Add((name, entry, false, refusal));
-            else skipped.Add($"{name}: not a submission (screening reads .csv and .pdf files and sub-folders)");
+            if (ext is ".csv" or ".pdf" or ".xlsx" or ".tsv") items.Add((name, entry, false, refusal));
+            else skipped.Add($"{name}: not a submission (screening reads .csv, .tsv, .pdf and .xlsx files and sub-folders)");
         }
         return new FoundSubmissions(AssignStems(items), skipped);
     }

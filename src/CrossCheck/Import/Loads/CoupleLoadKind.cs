@@ -9,6 +9,8 @@ internal sealed class CoupleLoadKind : LoadKind
 
     public override LoadTarget Target => LoadTarget.MemberOrJoint;
 
+    public override IReadOnlyList<string> Uses { get; } = ["M", "a"];
+
     public override bool HasDirection => false;
 
     public override Load? Read(LoadRow row)

@@ -9,6 +9,8 @@ internal sealed class JointForceKind : LoadKind
 
     public override LoadTarget Target => LoadTarget.Joint;
 
+    public override IReadOnlyList<string> Uses { get; } = ["P"];
+
     public override Load? Read(LoadRow row) => ReadForce(row);
 
     /// <summary>A joint force (also what a point load on a joint is).</summary>

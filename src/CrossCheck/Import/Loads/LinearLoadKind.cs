@@ -5,5 +5,7 @@ internal sealed class LinearLoadKind : DistributedLoadKind
 {
     public override IReadOnlyList<string> Words { get; } = ["linear", "trapezoidal", "triangular", "varying"];
 
+    public override IReadOnlyList<string> Uses { get; } = ["w", "w end", "a", "b"];
+
     protected override double? EndIntensity(LoadRow row, double? w) => row.Number("w end", required: true, requiredBecause: "a linear load");
 }

@@ -27,6 +27,12 @@ internal abstract class LoadKind
     /// <summary>False for a kind the <c>dir</c> column means nothing to (a direction given is warned about and ignored).</summary>
     public virtual bool HasDirection => true;
 
+    /// <summary>
+    /// The number columns a row of this kind reads (of <c>P</c>, <c>w</c>, <c>w end</c>, <c>M</c>, <c>a</c>, <c>b</c>): a value
+    /// in another of them is a sign the row was misread or mistyped (a <c>P</c> on a UDL row).
+    /// </summary>
+    public abstract IReadOnlyList<string> Uses { get; }
+
     /// <summary>The load of a row, or null when the row is left out (with its problems reported through <paramref name="row"/>).</summary>
     public abstract Load? Read(LoadRow row);
 }

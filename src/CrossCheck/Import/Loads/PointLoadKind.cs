@@ -9,6 +9,8 @@ internal sealed class PointLoadKind : LoadKind
 
     public override LoadTarget Target => LoadTarget.MemberOrJoint;
 
+    public override IReadOnlyList<string> Uses { get; } = ["P", "a"];
+
     public override Load? Read(LoadRow row)
     {
         if (!row.OnMember) return JointForceKind.ReadForce(row);

@@ -5,5 +5,7 @@ internal sealed class UniformLoadKind : DistributedLoadKind
 {
     public override IReadOnlyList<string> Words { get; } = ["udl", "uniform", "distributed"];
 
+    public override IReadOnlyList<string> Uses { get; } = ["w", "a", "b"];
+
     protected override double? EndIntensity(LoadRow row, double? w) => w;
 }

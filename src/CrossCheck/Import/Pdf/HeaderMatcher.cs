@@ -60,6 +60,9 @@ internal static partial class HeaderMatcher
         if (lines.Count == 0) return null;
         var here = Blocks(lines, 0);
         var single = here[0];
+        // A line that names every column it has, and all the table needs, is a header by itself: the lines under it are
+        // its rows or units (a row of ids "A B" must not pass for the wrapped end of "JOINT" and "RESTRAINT").
+        if (single is { Unknown: 0, MissingRequired: 0 } && !(lines.Count > 1 && UnitsOnly(lines[1]))) return single;
         var best = here.Where(m => m is not null).MaxBy(m => m!.Score);
         if (best is null || best == single) return single;
         var below = Blocks(lines, 1).Where(m => m is not null).Select(m => m!.Score).DefaultIfEmpty(double.NegativeInfinity).Max();
@@ -68,6 +71,19 @@ internal static partial class HeaderMatcher
 
     /// <summary>A line alone, as a header.</summary>
     public static HeaderMatch? Match(TextLine line) => Match([line]);
+
+    /// <summary>
+    /// A line as the header of <paramref name="spec"/> when something outside it names the table (a caption above it,
+    /// the sheet it is on): two cells that name its columns are enough, however many others the table's words do not
+    /// know (their cells decide what they are).
+    /// </summary>
+    public static HeaderMatch? MatchNamed(TextLine line, TableSpec spec)
+    {
+        var pieces = Pieces(line);
+        if (pieces.Count < 2 || pieces.Any(p => IsNumber(p.Text))) return null;
+        var m = MatchSpec(spec, pieces, [line], relaxed: true);
+        return m is null ? null : m with { Beside = Beside(m, pieces) };
+    }
 
     private static List<HeaderMatch?> Blocks(IReadOnlyList<TextLine> lines, int start)
     {
@@ -122,6 +138,13 @@ internal static partial class HeaderMatcher
         return null;
     }
 
+    /// <summary>A line whose every piece is a unit (<c>[m]   [kN·m]</c>, <c>(m)</c>, <c>rel.</c>): a units row under a header.</summary>
+    private static bool UnitsOnly(TextLine line) => line.Chunks().All(c =>
+    {
+        string u = c.Text.Trim().Trim('[', ']', '(', ')').Trim();
+        return TableSchema.IsRelativeUnit(u) || UnitReader.IsKnownSpelling(u);
+    });
+
     private static bool IsNumber(string text) =>
         NumberText.TryParse(text.Replace('\u2212', '-').Trim('(', ')'), false, out _)
         || NumberText.TryParse(text.Replace(",", "", StringComparison.Ordinal).Replace('\u2212', '-'), false, out _);
@@ -167,7 +190,7 @@ internal static partial class HeaderMatcher
         return cells.Select(ws => new Piece(ws, string.Join(" ", ws.Select(w => w.Text)))).OrderBy(p => p.Left).ToList();
     }
 
-    private static HeaderMatch? MatchSpec(TableSpec spec, List<Piece> pieces, IReadOnlyList<TextLine> lines)
+    private static HeaderMatch? MatchSpec(TableSpec spec, List<Piece> pieces, IReadOnlyList<TextLine> lines, bool relaxed = false)
     {
         var cells = new List<HeaderCell>();
         var used = new HashSet<string>(StringComparer.Ordinal);
@@ -196,7 +219,7 @@ internal static partial class HeaderMatcher
             cells.Add(new HeaderCell(printed, words.Min(w => w.Left), words.Max(w => w.Right), m.Column, m.Name, m.Unit, m.Subscript));
         }
         var match = new HeaderMatch(spec, cells, lines, tight);
-        if (match.Known < 2 || match.Known < match.Unknown) return null;
+        if (match.Known < 2 || (match.Known < match.Unknown && !relaxed)) return null;
         // A run of words cut into names counts when it names three columns or more, or two by words of their own
         // ("support restraint"); "Load case W" is a label, not the columns 'case' and 'w'.
         if (tight && pieces.Count == 1 && match.Known < 3 && cells.Any(c => !c.IsKnown || TableSchema.Normalize(c.Name).Length < 2)) return null;
@@ -257,9 +280,12 @@ internal static partial class HeaderMatcher
     {
         string t = Geometry.Collapse(text).TrimEnd(':', '*', '†').Trim();
         if (t.Length == 0) return null;
-        if (spec == TableSchema.EndMoments && Wide(t) is { } wide) return wide;
         var (name, unit) = TableSchema.SplitHeader(t);
         if (unit is not null && unit.Length == 0) unit = null;
+        // A name of the format comes first: "MOMENT (KNM)" and "MEMBER" are columns, not the member ends "OMENT" and "EMBER".
+        if (spec == TableSchema.EndMoments && !(Column(spec, name) is not null && (unit is null || UnitReader.TryRead(unit, QuantityKind.Moment) is not null))
+            && Wide(t) is { } wide)
+            return wide;
         if (Column(spec, name) is { } c) return new CellMatch(c, name, c.Type == ColumnType.Number ? unit : null, null);
         if (unit is null)
         {

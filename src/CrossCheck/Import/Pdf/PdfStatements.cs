@@ -177,11 +177,58 @@ internal static partial class PdfStatements
         return m.Success ? m.Groups["id"].Value : null;
     }
 
-    /// <summary>The load case a caption names (<c>Table 4: End moments, load case G+W</c>), or null.</summary>
+    /// <summary>The table of the format a caption names by one of its names (<c>Table 3 - Applied loads (ULS-2)</c>), or null.</summary>
+    public static TableSpec? NamedTable(string text)
+    {
+        string t = " " + TableSchema.Normalize(CaptionWords().Replace(text, " ")) + " ";
+        foreach (var spec in TableSchema.All.Where(s => s != TableSchema.Info))
+            foreach (var name in spec.Synonyms.Prepend(spec.Name))
+                if (t.Contains(" " + TableSchema.Normalize(name) + " ", StringComparison.Ordinal)) return spec;
+        return null;
+    }
+
+    /// <summary>
+    /// The load case a caption names, or null: <c>Table 4: End moments, load case G+W</c>, <c>case ULS-2</c>,
+    /// <c>Loads (ULS-2)</c>, or <c>ULS-2: end moments</c> (an id before a colon). An id in parentheses or before a colon must
+    /// look like a case id (a digit, a <c>+</c>, or capitals), and not be a unit, a note word or a title-block key.
+    /// </summary>
     public static string? CaptionCase(string text)
     {
-        var m = CaptionCaseRx().Match(Geometry.Collapse(text));
-        return m.Success ? m.Groups["id"].Value.TrimEnd('.', ',', ':', ';') : null;
+        string t = Geometry.Collapse(text);
+        var m = CaptionCaseRx().Match(t);
+        if (m.Success) return m.Groups["id"].Value.TrimEnd('.', ',', ':', ';');
+        foreach (Match p in ParenthesisedId().Matches(t))
+            if (LooksLikeCase(p.Groups["id"].Value)) return p.Groups["id"].Value;
+        var lead = LeadingId().Match(t);
+        return lead.Success && LooksLikeCase(lead.Groups["id"].Value) && KeyOf(lead.Groups["id"].Value) is null ? lead.Groups["id"].Value : null;
+    }
+
+    private static bool LooksLikeCase(string id)
+    {
+        if (id.Length == 0 || NotCases.Contains(id.ToLowerInvariant().TrimEnd('.'))) return false;
+        if (TableSchema.IsRelativeUnit(id) || UnitReader.IsKnownSpelling(id)) return false;
+        return id.Any(char.IsDigit) || id.Contains('+', StringComparison.Ordinal) || (id.Length >= 2 && id.All(c => !char.IsLetter(c) || char.IsUpper(c)));
+    }
+
+    private static readonly HashSet<string> NotCases = new(StringComparer.Ordinal)
+    {
+        "continued", "cont", "contd", "cont'd", "note", "notes", "units", "unit", "table", "figure", "fig", "see", "typ", "typical", "all",
+        "ref", "rev", "date", "by", "job", "project", "page", "sheet", "si", "uk", "us", "eu", "nts", "tbc", "na", "n/a",
+    };
+
+    /// <summary>
+    /// True for a rule typed in characters (<c>------  ------</c>, <c>=====</c>, <c>+----+----+</c>), as a plain-text printout
+    /// draws under its headers: not a row.
+    /// </summary>
+    public static bool IsRule(string text)
+    {
+        int rule = 0;
+        foreach (char c in text)
+        {
+            if (c is '-' or '=' or '_' or '–' or '—' or '―' or '─' or '━' or '═' or '~') rule++;
+            else if (!(char.IsWhiteSpace(c) || c is '+' or '|' or ':' or '*' or '.')) return false;
+        }
+        return rule >= 3;
     }
 
     /// <summary>True for page-number lines (<c>Page 2 of 5</c>, <c>- 3 -</c>, <c>Sheet 4</c>).</summary>
@@ -219,4 +266,13 @@ internal static partial class PdfStatements
 
     [GeneratedRegex(@"\d+")]
     private static partial Regex Digits();
+
+    [GeneratedRegex(@"\((?<id>[A-Za-z0-9][A-Za-z0-9+\-_./]{0,11})\)")]
+    private static partial Regex ParenthesisedId();
+
+    [GeneratedRegex(@"^(?<id>[A-Za-z0-9][A-Za-z0-9+\-_./]{0,11})\s*:")]
+    private static partial Regex LeadingId();
+
+    [GeneratedRegex(@"[^\p{L}\p{N}\s\-]+")]
+    private static partial Regex CaptionWords();
 }

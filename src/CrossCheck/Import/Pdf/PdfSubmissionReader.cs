@@ -48,10 +48,13 @@ public static class PdfSubmissionReader
     }
 
     /// <summary>One reading of a document: its lines into the tables of the format.</summary>
-    private static PdfExtraction Convert(PdfReading r, string path)
+    internal static PdfExtraction Convert(PdfReading r, string path)
     {
         var finder = r.Finder;
         finder.Run();
+        TableRoles.Decide(r);
+        Refusals.TwoLevelHeaders(r);
+        Refusals.Images(r, r.Finder.Document);
         var tableLines = new HashSet<TextLine>(finder.Tables.SelectMany(t => t.Header.Lines.Concat(t.RowLines).Concat(t.RowCase.Values.Select(v => v.Label))));
         var attached = new HashSet<TextLine>(finder.Tables.SelectMany(t => t.Above.Concat(t.Below)));
         var info = DocumentStatements.Read(r, tableLines, attached);

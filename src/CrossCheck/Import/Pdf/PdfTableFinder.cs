@@ -2,44 +2,6 @@ using System.Text.RegularExpressions;
 
 namespace CrossCheck.Import.Pdf;
 
-/// <summary>A table found in a PDF: its header, columns, the lines of its rows, and the lines around it that speak about it.</summary>
-internal sealed class FoundTable(HeaderMatch header)
-{
-    public HeaderMatch Header { get; } = header;
-    public TableSpec Spec => Header.Spec;
-    public List<FoundColumn> Columns { get; } = header.Cells.Select(c => new FoundColumn(c, c.Left, c.Right)).ToList();
-
-    /// <summary>The lines of the rows, top to bottom (across pages when the table continues).</summary>
-    public List<TextLine> RowLines { get; } = [];
-
-    /// <summary>Load-case labels printed between rows (<c>Load case DL</c>): the label in force for each row line.</summary>
-    public Dictionary<TextLine, (string Case, TextLine Label)> RowCase { get; } = [];
-
-    /// <summary>Caption and group-header lines just above the header.</summary>
-    public List<TextLine> Above { get; } = [];
-
-    /// <summary>Note lines just below the last row (units, what parentheses mean).</summary>
-    public List<TextLine> Below { get; } = [];
-
-    /// <summary>The load-case label in force where this part of a table begins (printed in the part before).</summary>
-    public (string Case, TextLine Label)? InheritedCase { get; set; }
-
-    /// <summary>Second lines of wrapped text cells, by the row they belong to, with their column.</summary>
-    public Dictionary<TextLine, List<(TextLine Line, int Column)>> Wrapped { get; } = [];
-
-    /// <summary>Units from a units row under the header, by column index.</summary>
-    public Dictionary<int, string>? UnitsRow { get; set; }
-
-    /// <summary>True while the table ran to the foot of its page and may continue on the next.</summary>
-    public bool Open { get; set; }
-
-    /// <summary>The rows placed in columns (set when the document has been read).</summary>
-    public List<TableLayout.Placed> Placed { get; set; } = [];
-
-    public TextLine First => Header.Lines[0];
-    public int LastPage => RowLines.Count > 0 ? RowLines[^1].Page : Header.Lines[^1].Page;
-}
-
 /// <summary>
 /// Walks a PDF's lines top to bottom and finds the tables of the submission format among prose, headings and page
 /// furniture. A table starts at a header row (<see cref="HeaderMatcher"/>) and takes the lines below it while they
@@ -54,8 +16,11 @@ internal sealed partial class PdfTableFinder
     private readonly Dictionary<TextLine, int> _index = [];
     private readonly Dictionary<int, HeaderMatch?> _headers = [];
 
+    private readonly TextDocument _doc;
+
     public PdfTableFinder(TextDocument doc)
     {
+        _doc = doc;
         _lines = doc.Lines.ToList();
         for (int i = 0; i < _lines.Count; i++) _index[_lines[i]] = i;
         Furniture = FindFurniture(doc);
@@ -70,6 +35,8 @@ internal sealed partial class PdfTableFinder
     public HashSet<TextLine> Consumed { get; } = [];
 
     public IReadOnlyList<TextLine> Lines => _lines;
+
+    public TextDocument Document => _doc;
 
     public void Run()
     {
@@ -93,6 +60,11 @@ internal sealed partial class PdfTableFinder
             if (HeaderAt(i) is { } h)
             {
                 var t = new FoundTable(h);
+                // A header repeated at the top of the next page continues the table above it (a layout fact, not a new table).
+                if (Tables.Count > 0 && Tables[^1] is var last && last.Spec == h.Spec && last.LastPage == line.Page - 1 && last.RowLines.Count > 0
+                    && last.Header.Signature.Order(StringComparer.Ordinal).SequenceEqual(h.Signature.Order(StringComparer.Ordinal))
+                    && !TabularAbove(i))
+                    t.ContinuationOf = last;
                 // The header repeated on the next page: the load-case label in force carries on.
                 if (before is not null && before.Spec == h.Spec && before.Header.Signature.SequenceEqual(h.Signature) && before.RowLines.Count > 0
                     && before.RowCase.TryGetValue(before.RowLines[^1], out var inherited))
@@ -110,6 +82,14 @@ internal sealed partial class PdfTableFinder
             t.Placed = t.RowLines.Count == 0 ? [] : TableLayout.Place(t.Columns, t.RowLines, t.Header.Tight).Rows;
     }
 
+    /// <summary>Whether a line of a table stands above line <paramref name="i"/> on its page (then a header there starts a table of its own).</summary>
+    private bool TabularAbove(int i)
+    {
+        for (int k = i - 1; k >= 0 && _lines[k].Page == _lines[i].Page; k--)
+            if (!Furniture.Contains(_lines[k]) && LooksTabular(_lines[k]) && !Tables.Any(t => t.Above.Contains(_lines[k]))) return true;
+        return false;
+    }
+
     private HeaderMatch? HeaderAt(int i)
     {
         if (_headers.TryGetValue(i, out var cached)) return cached;
@@ -120,8 +100,25 @@ internal sealed partial class PdfTableFinder
             block.Add(_lines[k]);
         }
         var h = Furniture.Contains(_lines[i]) || block.Count == 0 ? null : HeaderMatcher.Match(block);
+        // A header with words the format does not know, under a caption that names its table, or first on a sheet named after it.
+        if (h is null && block.Count > 0 && !Furniture.Contains(_lines[i]) && NamedAbove(i) is { } named) h = HeaderMatcher.MatchNamed(_lines[i], named);
         _headers[i] = h;
         return h;
+    }
+
+    /// <summary>The table a caption just above line <paramref name="i"/> names (<c>Table 3 - Loads</c>), or the table its sheet is named after.</summary>
+    private TableSpec? NamedAbove(int i)
+    {
+        var line = _lines[i];
+        for (int k = i - 1; k >= 0 && k >= i - 2; k--)
+        {
+            var above = _lines[k];
+            if (above.Page != line.Page || Consumed.Contains(above) || above.Baseline - line.Baseline > 4 * line.Size) break;
+            if (Furniture.Contains(above) || above.Chunks().Count > 1) continue;
+            if (PdfStatements.NamedTable(above.Text) is { } spec) return spec;
+        }
+        if (_doc.PageTables?.GetValueOrDefault(line.Page) is { } sheet && !Tables.Any(t => t.First.Page == line.Page && t.Spec == sheet)) return sheet;
+        return null;
     }
 
     private bool ContinuesWithoutHeader(FoundTable t, TextLine line)
@@ -319,7 +316,7 @@ internal sealed partial class PdfTableFinder
         var set = new HashSet<TextLine>();
         foreach (var page in doc.Pages)
             foreach (var line in page.Lines)
-                if (InMargin(line, page) && PdfStatements.IsPageNumber(line.Text)) set.Add(line);
+                if ((InMargin(line, page) && PdfStatements.IsPageNumber(line.Text)) || PdfStatements.IsRule(line.Text)) set.Add(line);
         if (doc.Pages.Count < 2) return set;
         var groups = new Dictionary<string, List<(TextLine Line, TextPage Page)>>(StringComparer.Ordinal);
         foreach (var page in doc.Pages)

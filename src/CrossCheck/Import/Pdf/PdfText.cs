@@ -89,11 +89,18 @@ internal sealed class Chunk(IReadOnlyList<TextWord> words)
 }
 
 /// <summary>The text of one page, as lines from the top.</summary>
-internal sealed record TextPage(int Number, double Width, double Height, IReadOnlyList<TextLine> Lines, int Images);
+internal sealed record TextPage(int Number, double Width, double Height, IReadOnlyList<TextLine> Lines, int Images)
+{
+    /// <summary>The images drawn on a page that has text (left, bottom, right, top in points), to be named as not read.</summary>
+    public IReadOnlyList<(double Left, double Bottom, double Right, double Top)> ImageBoxes { get; init; } = [];
+}
 
 /// <summary>The text of a PDF.</summary>
 internal sealed record TextDocument(string File, IReadOnlyList<TextPage> Pages)
 {
+    /// <summary>The table a page is named after (a workbook's sheet named <c>Loads</c>): its first header row may use words the format does not know.</summary>
+    public IReadOnlyDictionary<int, TableSpec>? PageTables { get; init; }
+
     public IEnumerable<TextLine> Lines => Pages.SelectMany(p => p.Lines);
 }
 

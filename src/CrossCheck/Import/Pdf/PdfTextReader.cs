@@ -117,7 +117,8 @@ internal static class PdfTextReader
                 else if (lines.Count > 0) textPages++;
                 else if (images > 0) { imagePages++; problems.Add(new InputProblem(pageRef, Messages.PdfPageImageOnly, ProblemSeverity.Warning)); }
                 if (rotated > 0 && lines.Count > 0) problems.Add(new InputProblem(pageRef, Messages.PdfRotatedText(rotated), ProblemSeverity.Warning));
-                pages.Add(sideways ? new TextPage(i, page.Height, page.Width, lines, images) : new TextPage(i, page.Width, page.Height, lines, images));
+                pages.Add(sideways ? new TextPage(i, page.Height, page.Width, lines, images)
+                    : new TextPage(i, page.Width, page.Height, lines, images) { ImageBoxes = lines.Count > 0 ? SafeImageBoxes(page) : [] });
             }
             for (int i = 1; i <= n; i++)
             {
@@ -190,6 +191,22 @@ internal static class PdfTextReader
                 problems.Add(new InputProblem(whole, Messages.PdfUnreadable));
         }
         return (null, problems);
+    }
+
+    /// <summary>Where the images of a page are drawn; none when the library cannot tell (it only decides a warning).</summary>
+    private static List<(double, double, double, double)> SafeImageBoxes(Page page)
+    {
+        try
+        {
+            if (page.NumberOfImages == 0) return [];
+            return page.GetImages().Select(im => (im.BoundingBox.Left, im.BoundingBox.Bottom, im.BoundingBox.Right, im.BoundingBox.Top)).ToList();
+        }
+#pragma warning disable CA1031 // Image positions only decide a warning.
+        catch (Exception)
+#pragma warning restore CA1031
+        {
+            return [];
+        }
     }
 
     private static int SafeImageCount(Page page)

@@ -3,17 +3,28 @@ namespace CrossCheck.Import.Pdf;
 /// <summary>A column of a table found in a PDF: its header cell (none for a column printed without one) and where its values sit.</summary>
 internal sealed class FoundColumn(HeaderCell? header, double left, double right)
 {
-    public HeaderCell? Header { get; } = header;
+    /// <summary>The header cell; its column of the format is replaced when the column's role is decided from its cells.</summary>
+    public HeaderCell? Header { get; set; } = header;
+
+    /// <summary>How the column's role was decided (set once the document's tables are placed).</summary>
+    public Roles.RoleDecision? Decision { get; set; }
     public double HeadLeft { get; } = left;
     public double HeadRight { get; } = right;
 
     /// <summary>Typical extent of the values (median left and right edges), once rows have been placed.</summary>
     public (double Left, double Right)? Data { get; set; }
 
+    /// <summary>
+    /// The band the column owns when the table's alignment was decided from its rows (<see cref="TableLayout"/>): from
+    /// its header's left edge to the next header's (headers set left, numbers right, as a spreadsheet prints), or from
+    /// the previous header's right edge to its own. Null: the header's own extent.
+    /// </summary>
+    public (double Left, double Right)? Zone { get; set; }
+
     /// <summary>Distance from a piece of text to this column (0 when it overlaps the header or the values).</summary>
     public double Distance(double l, double r)
     {
-        double d = Geometry.Distance(l, r, HeadLeft, HeadRight);
+        double d = Zone is var (zl, zr) ? Geometry.Distance(l, r, zl, zr) : Geometry.Distance(l, r, HeadLeft, HeadRight);
         if (Data is var (dl, dr)) d = Math.Min(d, Geometry.Distance(l, r, dl, dr));
         return d;
     }
@@ -50,7 +61,105 @@ internal static class TableLayout
     /// </summary>
     public static (List<Placed> Rows, int FirstBad) Place(List<FoundColumn> columns, IReadOnlyList<TextLine> lines, bool tight)
     {
+        var first = PlaceBy(columns, lines, tight, out var edges);
+        // Cells are placed by the header extents; when the columns they make are not each aligned on one edge, the
+        // table may be set another way (headers left and numbers right, each number ending just left of the next
+        // header): the bands the headers' left or right edges make are tried, and the reading whose rows fit best and
+        // whose columns are aligned wins. Decided once per table.
+        // A stray cell or two in a long table (a dash set centred) is not a sign of another alignment.
+        int cells = edges.Sum(e => e.Lefts.Count), off = Misaligned(edges, lines);
+        if (columns.Count < 2 || columns.Any(c => c.Zone is not null) || off == 0 || (off < 3 && 50 * off < cells)) return first;
+        var data = columns.Select(c => c.Data).ToList();
+        var best = (Rows: first, Score: (first.FirstBad, -off), Zones: (List<(double, double)?>?)null);
+        foreach (var zones in new[] { LeftBands(columns), RightBands(columns) })
+        {
+            for (int k = 0; k < columns.Count; k++) { columns[k].Zone = zones[k]; columns[k].Data = null; }
+            var trial = PlaceBy(columns, lines, tight, out var trialEdges);
+            var score = (trial.FirstBad, -Misaligned(trialEdges, lines));
+            if (score.CompareTo(best.Score) > 0) best = (trial, score, zones);
+        }
+        for (int k = 0; k < columns.Count; k++)
+        {
+            columns[k].Zone = best.Zones?[k];
+            if (best.Zones is null) columns[k].Data = data[k];
+        }
+        if (best.Zones is not null) return PlaceBy(columns, lines, tight, out _);
+        return first;
+    }
+
+    /// <summary>Bands from each header's left edge to the next one's: headers set left over numbers set right.</summary>
+    private static List<(double, double)?> LeftBands(List<FoundColumn> columns)
+    {
+        var zones = new List<(double, double)?>();
+        for (int k = 0; k < columns.Count; k++)
+        {
+            double left = columns[k].HeadLeft - 0.5, right = k + 1 < columns.Count ? columns[k + 1].HeadLeft - 0.2 : double.MaxValue / 4;
+            zones.Add((left, Math.Max(right, columns[k].HeadRight)));
+        }
+        return zones;
+    }
+
+    /// <summary>Bands from the previous header's right edge to each header's own: headers set right over values set left.</summary>
+    private static List<(double, double)?> RightBands(List<FoundColumn> columns)
+    {
+        var zones = new List<(double, double)?>();
+        for (int k = 0; k < columns.Count; k++)
+        {
+            double left = k > 0 ? columns[k - 1].HeadRight + 0.2 : -double.MaxValue / 4, right = columns[k].HeadRight + 0.4;
+            zones.Add((Math.Min(left, columns[k].HeadLeft), right));
+        }
+        return zones;
+    }
+
+    /// <summary>
+    /// How many placed cells stand off their column's alignment: for each column, the cells that share neither its
+    /// left edge, its right edge, its centre nor its decimal point (half a font size) with most of the column.
+    /// </summary>
+    private static int Misaligned(List<Edges> edges, IReadOnlyList<TextLine> lines)
+    {
+        double em = lines.Count == 0 ? 1 : Math.Max(1, lines[0].Size);
+        int off = 0;
+        foreach (var e in edges)
+        {
+            int n = e.Lefts.Count;
+            if (n < 2) continue;
+            int best = 0;
+            foreach (var anchor in new[] { e.Lefts, e.Rights, e.Centres, e.Decimals })
+            {
+                var sorted = anchor.ToList();
+                sorted.Sort();
+                double median = sorted[n / 2];
+                int near = 0;
+                foreach (double x in anchor) if (Math.Abs(x - median) <= 0.5 * em) near++;
+                best = Math.Max(best, near);
+            }
+            off += n - best;
+        }
+        return off;
+    }
+
+    /// <summary>Where the cells placed in one column sit: left and right edges, centres and decimal points.</summary>
+    internal sealed class Edges
+    {
+        public List<double> Lefts { get; } = [];
+        public List<double> Rights { get; } = [];
+        public List<double> Centres { get; } = [];
+        public List<double> Decimals { get; } = [];
+
+        public void Add(RowPiece p)
+        {
+            Lefts.Add(p.Left);
+            Rights.Add(p.Right);
+            Centres.Add((p.Left + p.Right) / 2);
+            int dot = p.Text.IndexOfAny(['.', ',']);
+            Decimals.Add(dot < 0 || p.Text.Length == 0 ? p.Right : p.Left + ((p.Right - p.Left) * dot / p.Text.Length));
+        }
+    }
+
+    private static (List<Placed> Rows, int FirstBad) PlaceBy(List<FoundColumn> columns, IReadOnlyList<TextLine> lines, bool tight, out List<Edges> lastEdges)
+    {
         var placed = new List<Placed>();
+        lastEdges = [];
         int firstBad = lines.Count;
         bool moved = true;
         for (int pass = 0; pass < 3; pass++)
@@ -60,7 +169,8 @@ internal static class TableLayout
             if (pass == 2 && !moved) break;
             moved = false;
             placed.Clear();
-            var edges = columns.Select(_ => (Lefts: new List<double>(), Rights: new List<double>())).ToList();
+            var edges = columns.Select(_ => new Edges()).ToList();
+            lastEdges = edges;
             firstBad = lines.Count;
             for (int i = 0; i < lines.Count; i++)
             {
@@ -71,7 +181,8 @@ internal static class TableLayout
             }
             for (int k = 0; k < columns.Count; k++)
             {
-                var (ls, rs) = edges[k];
+                var ls = edges[k].Lefts;
+                var rs = edges[k].Rights;
                 if (ls.Count == 0) continue;
                 ls.Sort();
                 rs.Sort();
@@ -85,7 +196,7 @@ internal static class TableLayout
 
     /// <summary>Places one line, or returns null when it is not a row of the table.</summary>
     public static Placed? PlaceLine(List<FoundColumn> columns, TextLine line, bool tight,
-        List<(List<double> Lefts, List<double> Rights)>? edges = null, bool lenient = false)
+        List<Edges>? edges = null, bool lenient = false)
     {
         var pieces = Pieces(columns, line, tight);
         if (pieces is null || pieces.Count == 0 || pieces.Count > columns.Count + 2) return null;
@@ -174,7 +285,7 @@ internal static class TableLayout
                 if (Geometry.Overlap(p.Left, p.Right, columns[j].HeadLeft, columns[j].HeadRight) > 0.15 * em) under++;
             if (under > 1) return null;
             cells[c] = cells[c] is null ? p.Text : cells[c] + " " + p.Text;
-            if (edges is not null) { edges[c].Lefts.Add(p.Left); edges[c].Rights.Add(p.Right); }
+            edges?[c].Add(p);
         }
         // Text left of the first column belongs to it unless the first column has a value of its own in this row.
         if (leading is not null && cells.Length > 0 && cells[0] is null) { cells[0] = leading; leading = null; }

@@ -13,6 +13,7 @@ internal sealed class BeamReader : ITableReader
         if (d.Layout != GeometryLayout.Beam || d.Table("supports") is not { } supportsTable || d.Table("spans") is not { } spansTable) return;
         var sv = d.View(supportsTable, TableSchema.Supports);
         var pv = d.View(spansTable, TableSchema.Spans, relativeStiffness: !d.HasE);
+        d.WarnEIgnored(pv);
         d.Remember(pv, "length", QuantityKind.Length);
         var supports = new List<(string Id, Restraint R, double Sy, double Sr, RawRow Row)>();
         var seen = new Dictionary<string, SourceRef>(StringComparer.Ordinal);
@@ -42,7 +43,7 @@ internal sealed class BeamReader : ITableReader
         }
         if (spans.Count > 0 && supports.Count != spans.Count + 1)
         {
-            d.Error(new SourceRef(sv.Raw.File, "supports", sv.Raw.Header.Line), Messages.SpanSupportCount(spans.Count, supports.Count));
+            d.Error(sv.Raw.HeaderAt("supports") with { Page = null }, Messages.SpanSupportCount(spans.Count, supports.Count));
             d.GeometryIncomplete = true;
             return;
         }

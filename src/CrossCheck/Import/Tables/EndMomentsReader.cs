@@ -51,7 +51,7 @@ internal sealed class EndMomentsReader : ITableReader
             }
             moments.Add(new ClaimedEndMoment(c, memberId, at, end, cw, asWritten, v.CellRef(row, "moment")));
         }
-        if (moments.Count == 0 && !v.Rows.Any()) d.Error(new SourceRef(t.File, "end-moments", t.Header.Line), Messages.NoClaims);
+        if (moments.Count == 0 && !v.Rows.Any()) d.Error(t.HeaderAt("end-moments"), Messages.NoClaims);
         d.Claims = new Claims(moments, [], []);
     }
 }

@@ -19,6 +19,12 @@ internal static class GeometryCells
         ["i"] = Hinge.Start, ["j"] = Hinge.End,
     };
 
+    /// <summary>True for a word of the restraint vocabulary (<c>fixed</c>, <c>pinned</c>, <c>roller</c>, ...).</summary>
+    public static bool IsRestraintWord(string text) => RestraintWords.ContainsKey(TableSchema.Normalize(text));
+
+    /// <summary>True for a word of the hinge vocabulary (<c>none</c>, <c>start</c>, <c>end</c>, <c>both</c>, <c>i</c>, <c>j</c>).</summary>
+    public static bool IsHingeWord(string text) => HingeWords.ContainsKey(TableSchema.Normalize(text));
+
     /// <summary>E (when the submission gives it; else 1, for relative stiffness), I and A of a member or span row.</summary>
     public static (double? E, double? I, double? A) Section(SubmissionDraft d, TableView v, RawRow row)
     {

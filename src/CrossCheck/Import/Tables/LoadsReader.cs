@@ -17,6 +17,9 @@ internal sealed class LoadsReader : ITableReader
         ["gravity"] = LoadDirection.Down,
     };
 
+    /// <summary>True for a word of the direction vocabulary (<c>down</c>, <c>up</c>, <c>-y</c>, <c>gravity</c>, ...).</summary>
+    public static bool IsDirection(string text) => DirWords.ContainsKey(TableSchema.Normalize(text));
+
     public void Read(SubmissionDraft d)
     {
         if (d.Table("loads") is not { } t) { d.MissingTable("loads"); return; }
@@ -43,6 +46,7 @@ internal sealed class LoadsReader : ITableReader
             if ((d.GeometryIncomplete || d.RejectedMembers.Contains(on) || d.RejectedJoints.Contains(on)) && !isMember && !isJoint) { d.RejectedCases.Add(c); continue; }
             if (TargetProblem(kind.Target, isMember, isJoint, kindText, on) is { } problem) { d.Error(v.CellRef(row, "on"), problem); continue; }
             bool onMember = kind.Target == LoadTarget.Member || (kind.Target == LoadTarget.MemberOrJoint && isMember);
+            WarnForeignValues(d, v, row, kind, kindText);
             var dir = ParseDir(d, v, row, kind);
             double length = onMember ? model.Length(member) : 0;
             var load = kind.Read(new LoadRow(v, row, d.Problems, d.Defaults.Length, c, on, onMember, length, dir));
@@ -50,9 +54,26 @@ internal sealed class LoadsReader : ITableReader
             loads.Add(load);
             if (!order.Contains(c)) order.Add(c);
         }
-        if (!v.Rows.Any()) d.Error(new SourceRef(t.File, "loads", t.Header.Line, null, t.Header.Page), Messages.NoLoads);
+        if (!v.Rows.Any()) d.Error(t.HeaderAt("loads"), Messages.NoLoads);
         foreach (var (id, _) in d.RowsWithErrors(v, "case", "1")) d.RejectedCases.Add(id);
         d.Cases.AddRange(order.Select(id => new LoadCase(id, loads.Where(l => l.Case == id).ToList())));
+    }
+
+    private static readonly string[] ValueColumns = ["P", "w", "w end", "M", "a", "b"];
+
+    /// <summary>
+    /// A value the row's kind does not read (a <c>P</c> on a UDL row, a <c>w</c> on a point load) is not used, and is
+    /// often the sign of a cell read or typed into the wrong column: the reviewer is told, with the cell.
+    /// </summary>
+    private static void WarnForeignValues(SubmissionDraft d, TableView v, RawRow row, LoadKind kind, string kindText)
+    {
+        foreach (var column in ValueColumns)
+        {
+            if (kind.Uses.Contains(column) || !v.Has(column)) continue;
+            string text = v.Text(row, column);
+            if (text.Length == 0 || text is "-" or "–" or "—" or "0") continue;
+            d.Warn(v.CellRef(row, column), Messages.ValueNotForKind(column, text, kindText, kind.Uses));
+        }
     }
 
     /// <summary>What is wrong with the id a load acts on, for a kind that acts on <paramref name="target"/>; null when nothing.</summary>

@@ -9,6 +9,7 @@ internal sealed class MembersReader : ITableReader
     {
         if (d.Layout != GeometryLayout.Frame || d.Table("members") is not { } table) return;
         var mv = d.View(table, TableSchema.Members, relativeStiffness: !d.HasE);
+        d.WarnEIgnored(mv);
         var joints = d.Joints;
         var memberSeen = new Dictionary<string, SourceRef>(StringComparer.Ordinal);
         var jointIds = joints.Select(j => j.Id).ToHashSet(StringComparer.Ordinal);
@@ -35,10 +36,34 @@ internal sealed class MembersReader : ITableReader
                 double scale = Math.Max(1, Math.Max(Math.Abs(a.X) + Math.Abs(a.Y), Math.Abs(b.X) + Math.Abs(b.Y)));
                 if (!(len > 1e-9 * scale)) { d.Error(mv.RowRef(row), Messages.ZeroLength(id)); ok = false; }
                 else if (len > d.Limits.MaxLength) { d.Error(mv.RowRef(row), Messages.MemberTooLong(id, len, d.Limits.MaxLength)); ok = false; }
+                else if (!LengthAgrees(d, mv, row, id, len)) ok = false;
             }
             if (!ok || E is null || I is null) continue;
             d.Members.Add(new Member(id, s, e, E.Value, I.Value, A, hinge, mv.RowRef(row)));
         }
+        ReportRejected(d, mv);
+    }
+
+    /// <summary>
+    /// A printed member length must agree with the joint coordinates: to half a unit in the last printed digit, or
+    /// 0.2 % (a rounded length such as 5.83 for √34 passes). A length that disagrees is an error: one of them was
+    /// written or read wrong, and the model cannot say which.
+    /// </summary>
+    private static bool LengthAgrees(SubmissionDraft d, TableView mv, RawRow row, string id, double len)
+    {
+        if (!mv.Has("length") || mv.Number(row, "length") is not double given) return true;
+        string text = mv.Text(row, "length");
+        double toSi = mv.Unit("length")?.ToSi ?? 1;
+        int dot = text.IndexOfAny(['.', ',']);
+        int decimals = dot < 0 || text.Contains('e', StringComparison.OrdinalIgnoreCase) ? 0 : text.Length - dot - 1;
+        double half = 0.5 * Math.Pow(10, -decimals) * toSi;
+        if (Math.Abs(given - len) <= Math.Max(half, 0.002 * len) + (1e-9 * len)) return true;
+        d.Error(mv.CellRef(row, "length"), Messages.LengthDisagrees(id, text, len / toSi, mv.Unit("length")?.Symbol ?? "m"));
+        return false;
+    }
+
+    private static void ReportRejected(SubmissionDraft d, TableView mv)
+    {
         foreach (var (id, row) in d.RowsWithErrors(mv, "member"))
         {
             d.RejectedMembers.Add(id);

@@ -128,7 +128,28 @@ internal sealed class SubmissionDraft(string source, IReadOnlyDictionary<string,
     {
         var t = tables.GetValueOrDefault("members") ?? tables.GetValueOrDefault("spans");
         if (t is null) return false;
-        return t.Header.Cells.Any(c => TableSchema.Normalize(TableSchema.SplitHeader(c).Name) is "e" or "modulus" or "elastic modulus" or "young's modulus");
+        bool e = t.Header.Cells.Any(c => TableSchema.Normalize(TableSchema.SplitHeader(c).Name) is "e" or "modulus" or "elastic modulus" or "young's modulus");
+        return e && !RelativeI(t);
+    }
+
+    /// <summary>True when the table's I column is headed as relative (<c>I (rel.)</c>, <c>I/I₀</c>, <c>k</c>): stiffness is then relative, E = 1.</summary>
+    public static bool RelativeI(RawTable t)
+    {
+        for (int i = 0; i < t.Header.Cells.Count; i++)
+        {
+            string cell = t.Header.Cells[i];
+            var spec = TableSchema.Find(t.Name) ?? TableSchema.Members;
+            if (TableSchema.ResolveColumn(spec, TableSchema.SplitHeader(cell).Name)?.Name != "I") continue;
+            if (TableSchema.IsRelativeStiffness(cell)) return true;
+            if (TableSchema.SplitHeader(cell).Unit is null && t.ColumnUnits?.TryGetValue(i, out var u) == true && TableSchema.IsRelativeUnit(u)) return true;
+        }
+        return false;
+    }
+
+    /// <summary>Warns once that the E column is not used because I is given as relative.</summary>
+    public void WarnEIgnored(TableView v)
+    {
+        if (!HasE && v.Has("E") && RelativeI(v.Raw)) Warn(v.HeaderRef("E"), Messages.EIgnoredForRelativeI);
     }
 }
 

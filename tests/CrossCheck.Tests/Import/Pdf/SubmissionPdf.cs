@@ -48,6 +48,8 @@ public sealed record Layout(string Name)
     public double? ColumnWidthEm { get; init; }
     public double GapEm { get; init; } = 1.5;
     public string? RunningHeader { get; init; }
+    /// <summary>The header to print for a column of a table (null: as the other settings say).</summary>
+    public Func<string, string, string?>? Rename { get; init; }
 
     public override string ToString() => Name;
 }
@@ -163,7 +165,8 @@ public static class SubmissionPdf
             var (name, unit) = TableSchema.SplitHeader(t.Header.Cells[i]);
             var c = TableSchema.ResolveColumn(spec, name);
             if (c is null) continue;
-            cols.Add(new Column(c, layout.Synonyms ? Words.GetValueOrDefault(c.Name, c.Name) : name, string.IsNullOrEmpty(unit) ? null : unit, i));
+            string printedName = layout.Rename?.Invoke(spec.Name, c.Name) ?? (layout.Synonyms ? Words.GetValueOrDefault(c.Name, c.Name) : name);
+            cols.Add(new Column(c, printedName, string.IsNullOrEmpty(unit) ? null : unit, i));
         }
         if (layout.ShuffleSeed is int seed) cols = cols.Shuffled(seed);
         var rows = t.Rows.Where(r => !r.IsBlank).ToList();

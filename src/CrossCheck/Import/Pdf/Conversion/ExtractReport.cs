@@ -35,10 +35,11 @@ internal static class ExtractReport
         {
             foreach (var c in s.Columns)
             {
-                if (c.Column is null) { columns.Add($"{c.Printed} → ignored"); continue; }
+                string how = c.Decision is { } d ? $" ({d.Describe()})" : "";
+                if (c.Column is null) { columns.Add($"{c.Printed} → ignored{how}"); continue; }
                 string unit = c.EffectiveUnit is { } eu ? $" [{eu}]" : "";
                 string from = c.External is not null ? " (unit from outside the header)" : "";
-                columns.Add($"{c.Printed} → {c.Column.Name}{unit}{from}");
+                columns.Add($"{c.Printed} → {c.Column.Name}{unit}{from}{how}");
             }
         }
         string? note = s.Spec == TableSchema.Distribution ? "a moment-distribution working table, one column per member end"

@@ -5,6 +5,9 @@ namespace CrossCheck.Import.Pdf.Conversion;
 /// <summary>A column of a segment: the format's column (null = not part of the format), and its unit.</summary>
 internal sealed record SegmentColumn(ColumnSpec? Column, string Header, string? Unit, string? External, string Printed)
 {
+    /// <summary>How the column's role was decided, for <c>crosscheck extract</c>.</summary>
+    public Roles.RoleDecision? Decision { get; init; }
+
     public string? EffectiveUnit => Unit ?? External;
 }
 

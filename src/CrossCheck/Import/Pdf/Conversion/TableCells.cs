@@ -17,21 +17,30 @@ internal static class TableCells
             var h = t.Columns[k].Header!;
             if (h.Column is { } c)
             {
-                string? unit = c.Type == ColumnType.Number ? h.Unit ?? t.UnitsRow?.GetValueOrDefault(k) : null;
+                string? unit = c.Type == ColumnType.Number ? h.Unit ?? t.UnitsRow?.GetValueOrDefault(k) ?? FirstPartUnit(t, c) : null;
                 string? external = c.Type == ColumnType.Number && unit is null
-                    ? OutsideUnits.For(r, t, t.Columns[k], c.Kind, t.Spec == TableSchema.Displacements) : null;
-                seg.Columns.Add(new SegmentColumn(c, HeaderName(t.Spec, h), unit, external, h.Printed));
+                    ? OutsideUnits.For(r, t, t.Columns[k], c.Kind, t.Spec == TableSchema.Displacements)
+                      ?? (t.Origin != t ? OutsideUnits.For(r, t.Origin, t.Origin.Columns.FirstOrDefault(o => o.Header?.Column == c) ?? t.Columns[k], c.Kind, t.Spec == TableSchema.Displacements) : null)
+                    : null;
+                seg.Columns.Add(new SegmentColumn(c, HeaderName(t.Spec, h), unit, external, h.Printed) { Decision = t.Columns[k].Decision });
             }
             else
             {
-                seg.Columns.Add(new SegmentColumn(null, h.Printed, null, null, h.Printed));
+                // A header whose words name a column it was not read as is written blank, so that it is not read twice.
+                string header = HeaderMatcher.MatchCell(t.Spec, h.Printed)?.Column is null ? h.Printed : "";
+                seg.Columns.Add(new SegmentColumn(null, header, null, null, h.Printed) { Decision = t.Columns[k].Decision });
             }
             keep.Add(k);
         }
         string? captionCase = CaptionCase(t);
         bool addCase = t.Spec.Columns.Any(c => c.Name == "case") && !seg.Columns.Any(c => c.Column?.Name == "case")
                        && (t.RowCase.Count > 0 || captionCase is not null);
-        if (addCase) seg.Columns.Add(new SegmentColumn(t.Spec.Column("case"), "case", null, null, "case"));
+        if (addCase)
+        {
+            string how = t.RowCase.Count > 0 ? "from the load-case labels between its rows"
+                : $"from the caption \"{PdfReading.Shorten(CaptionLine(t)?.Text ?? "")}\"";
+            seg.Columns.Add(new SegmentColumn(t.Spec.Column("case"), "case", null, null, "case") { Decision = new Roles.RoleDecision(t.Spec.Column("case"), Roles.RoleBasis.Layout, 0.95, how) });
+        }
         int leading = t.Placed.Count(p => p.Leading is not null);
         if (leading > 0)
             r.Ignored.Add(new PdfIgnored(new SourceRef(r.File, t.Spec.Name, t.First.Number, null, t.First.Page),
@@ -74,8 +83,23 @@ internal static class TableCells
                         yield return c;
     }
 
-    /// <summary>The load case a caption above the table names (<c>Load case 2: wind</c>), if any.</summary>
-    public static string? CaptionCase(FoundTable t) => t.Above.Select(l => PdfStatements.CaptionCase(l.Text)).FirstOrDefault(c => c is not null);
+    /// <summary>
+    /// The load case a caption above the table names (<c>Load case 2: wind</c>, <c>Loads (ULS-2)</c>), if any; a part that
+    /// continues a table on the next page under its repeated header takes the case of the first part's caption.
+    /// </summary>
+    public static string? CaptionCase(FoundTable t) => CaptionLine(t) is { } line ? PdfStatements.CaptionCase(line.Text) : null;
+
+    /// <summary>The caption line that names the table's load case (the first part's, for a continuation), if any.</summary>
+    private static TextLine? CaptionLine(FoundTable t) =>
+        t.Above.FirstOrDefault(l => PdfStatements.CaptionCase(l.Text) is not null) ?? (t.ContinuationOf is { } first ? CaptionLine(first) : null);
+
+    /// <summary>The unit the first part of a continued table gives a column (its header or units row), when this part repeats the header without it.</summary>
+    private static string? FirstPartUnit(FoundTable t, ColumnSpec c)
+    {
+        if (t.ContinuationOf is not { } first) return null;
+        int k = first.Columns.FindIndex(o => o.Header?.Column == c);
+        return k < 0 ? null : first.Columns[k].Header!.Unit ?? first.UnitsRow?.GetValueOrDefault(k) ?? FirstPartUnit(first, c);
+    }
 
     /// <summary>The header name to write: as printed when the format reads it the same way, else the format's name.</summary>
     private static string HeaderName(TableSpec spec, HeaderCell h) =>
