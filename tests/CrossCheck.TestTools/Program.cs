@@ -12,10 +12,13 @@ using CrossCheck.TestTools;
 //   time-screen N [SEED]                        screening throughput, one at a time and on every core
 //   register-pause REGISTER SUBMISSION          record a review and stop inside its transaction (to be killed)
 //   register-write REGISTER SUBMISSION N TAG    record N reviews as N rounds of reference TAG
+//   building FILE MEMBERS|STOREYSxBAYS [MISTAKE] [SEED]
+//                                               write a multi-storey frame with one planted mistake (MISTAKE: none,
+//                                               fem (default), slip, moved, wrong; MEMBERS: 300, 1000 or 5000)
 var inv = CultureInfo.InvariantCulture;
 if (args.Length == 0)
 {
-    Console.Error.WriteLine("usage: generate DIR N [SEED] | time-screen N [SEED] | register-pause REGISTER SUBMISSION | register-write REGISTER SUBMISSION N TAG");
+    Console.Error.WriteLine("usage: generate DIR N [SEED] | time-screen N [SEED] | register-pause REGISTER SUBMISSION | register-write REGISTER SUBMISSION N TAG | building FILE MEMBERS [MISTAKE] [SEED]");
     return 2;
 }
 switch (args[0])
@@ -49,6 +52,23 @@ switch (args[0])
         using var register = ReviewRegister.Open(args[1]);
         for (int i = 0; i < n; i++) register.Record(review, args[4], SubmissionNames.DisplayName(args[2]), $"{args[4]}-{Environment.ProcessId}-{i}");
         Console.WriteLine($"recorded {n}");
+        return 0;
+    }
+    case "building" when args.Length >= 3:
+    {
+        var size = args[2].Split('x');
+        var (storeys, bays) = size.Length == 2 ? (int.Parse(size[0], inv), int.Parse(size[1], inv)) : BuildingFrame.ForMembers(int.Parse(args[2], inv));
+        var mistake = (args.Length > 3 ? args[3] : "fem") switch
+        {
+            "none" => BuildingMistake.None,
+            "fem" => BuildingMistake.FixedEndMoment,
+            "slip" => BuildingMistake.CopyingSlip,
+            "moved" => BuildingMistake.LoadMoved,
+            "wrong" => BuildingMistake.WrongClaim,
+            var other => throw new ArgumentException($"unknown mistake {other}: none, fem, slip, moved, wrong"),
+        };
+        string planted = BuildingFrame.Write(args[1], storeys, bays, mistake, args.Length > 4 ? int.Parse(args[4], inv) : 1);
+        Console.WriteLine($"{args[1]}: {storeys} storeys x {bays} bays, {storeys * ((2 * bays) + 1)} members; planted: {planted}");
         return 0;
     }
     default:

@@ -51,7 +51,7 @@ internal sealed class CheckContext
 /// <summary>The checks of the claimed numbers, in the order the memo lists them. To add a check, add a class and a line here.</summary>
 internal sealed class ClaimChecks
 {
-    private static readonly IClaimCheck[] All =
+    internal static readonly IClaimCheck[] All =
     [
         new JointEquilibriumCheck(),
         new ReleasedEndCheck(),
@@ -76,14 +76,25 @@ internal sealed class ClaimChecks
 
     public List<Flag> Run(string caseId)
     {
-        var claims = _s.Claims.EndMoments.Where(c => c.Case == caseId && c.End is not null)
-            .ToDictionary(c => new EndKey(c.Member, c.End!.Value));
         var flags = new List<Flag>();
-        if (claims.Count == 0) return flags;
-        double peak = claims.Values.Max(c => Math.Abs(c.Moment));
-        var band = ToleranceBand.For(_options, peak, _options.AbsoluteTolerance * _s.Info.Units.Moment.ToSi);
-        var context = new CheckContext(_s, _options, _statics, _kinematics, _s.Case(caseId) ?? new LoadCase(caseId, []), claims, band);
+        if (Context(caseId) is not { } context) return flags;
         foreach (var check in All) check.Run(context, flags);
         return flags;
+    }
+
+    /// <summary>One check of one case (for measurements).</summary>
+    internal void RunOne(string caseId, IClaimCheck check, List<Flag> flags)
+    {
+        if (Context(caseId) is { } context) check.Run(context, flags);
+    }
+
+    private CheckContext? Context(string caseId)
+    {
+        var claims = _s.Claims.EndMoments.Where(c => c.Case == caseId && c.End is not null)
+            .ToDictionary(c => new EndKey(c.Member, c.End!.Value));
+        if (claims.Count == 0) return null;
+        double peak = claims.Values.Max(c => Math.Abs(c.Moment));
+        var band = ToleranceBand.For(_options, peak, _options.AbsoluteTolerance * _s.Info.Units.Moment.ToSi);
+        return new CheckContext(_s, _options, _statics, _kinematics, _s.Case(caseId) ?? new LoadCase(caseId, []), claims, band);
     }
 }
