@@ -44,8 +44,18 @@ internal sealed class CheckContext
 
     public Quoting Quote { get; }
 
+    private Dictionary<string, double>? _couples;
+
     /// <summary>The couple applied at a joint in this case (clockwise, N·m).</summary>
-    public double AppliedCouple(string joint) => Case.Loads.OfType<JointCouple>().Where(l => l.Joint == joint).Sum(l => l.M);
+    public double AppliedCouple(string joint)
+    {
+        if (_couples is null)
+        {
+            _couples = new Dictionary<string, double>(StringComparer.Ordinal);
+            foreach (var l in Case.Loads.OfType<JointCouple>()) _couples[l.Joint] = _couples.GetValueOrDefault(l.Joint) + l.M;
+        }
+        return _couples.GetValueOrDefault(joint);
+    }
 }
 
 /// <summary>The checks of the claimed numbers, in the order the memo lists them. To add a check, add a class and a line here.</summary>

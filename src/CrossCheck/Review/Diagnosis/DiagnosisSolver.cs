@@ -17,7 +17,7 @@ internal sealed class DiagnosisSolver
     private readonly Lazy<FactoredFrame?> _factored;
     private FrameUpdates.Braced? _braced;
     private bool _bracedTried;
-    private int _fullSolves;
+    private int _factorisations;
     private int _otherSolves;
 
     public DiagnosisSolver(StructureModel model)
@@ -30,10 +30,10 @@ internal sealed class DiagnosisSolver
     public FactoredFrame? Factored => _factored.Value;
 
     /// <summary>Linear solves made (with a factor, plus whole analyses and new factorisations), for measurements.</summary>
-    public int Solves => (_factored.IsValueCreated ? _factored.Value?.Solves ?? 0 : 0) + _fullSolves + _otherSolves;
+    public int Solves => (_factored.IsValueCreated ? _factored.Value?.Solves ?? 0 : 0) + _factorisations + _otherSolves;
 
-    /// <summary>Whole analyses or new factorisations made (the expensive part), for measurements.</summary>
-    public int Factorisations => _fullSolves + (_factored.IsValueCreated ? 1 : 0);
+    /// <summary>Factorisations made (the submitted structure's, the braced one's, a changed structure's, a whole analysis), for measurements.</summary>
+    public int Factorisations => _factorisations + (_factored.IsValueCreated ? 1 : 0);
 
     /// <summary>The ends as element references of the factorised structure.</summary>
     public EndRef[] Refs(IReadOnlyList<EndKey> keys)
@@ -49,7 +49,7 @@ internal sealed class DiagnosisSolver
     {
         var f = FactoredFrame.TryBuild(model, loadCase, hold);
         if (f is null) return Full(model, loadCase, keys, hold);
-        _fullSolves++;
+        _factorisations++;
         var local = f.Local(loadCase);
         var moments = f.Moments(f.Expand(f.SolveCase(loadCase, local), movements: true), local, Refs(f, keys));
         _otherSolves += f.Solves;
@@ -63,6 +63,7 @@ internal sealed class DiagnosisSolver
         {
             _braced = FrameUpdates.Brace(f);
             _bracedTried = true;
+            _factorisations++;
         }
         if (_braced is null) return Altered(_model, loadCase, keys, hold: true);
         _otherSolves++;
@@ -111,7 +112,7 @@ internal sealed class DiagnosisSolver
 
     private double[] Full(StructureModel model, LoadCase loadCase, IReadOnlyList<EndKey> keys, bool hold)
     {
-        _fullSolves++;
+        _factorisations++;
         var result = _solver.Solve(model, [loadCase], hold).Cases[0];
         return keys.Select(k => result.EndMoment(k.Member, k.End)).ToArray();
     }
