@@ -1,5 +1,6 @@
 using System.CommandLine;
 using System.Globalization;
+using CrossCheck.Common;
 using CrossCheck.Jobs;
 using CrossCheck.Register;
 using CrossCheck.Review;
@@ -63,7 +64,8 @@ internal static class HistoryCommand
             var refs = register.References();
             if (refs.Count == 0) { console.WriteLine("The register holds no reviews yet."); return ExitCodes.Concur; }
             var t = new Table().Border(TableBorder.Simple);
-            foreach (var h in new[] { "reference", "rounds", "reviews", "latest round", "date", "verdict", "open comments" }) t.AddColumn(h);
+            foreach (var (h, right) in new[] { ("reference", false), ("rounds", true), ("reviews", true), ("latest", true), ("date", false), ("verdict", false), ("open comments", true) })
+                t.AddColumn(right ? new TableColumn(h).RightAligned() : new TableColumn(h));
             foreach (var r in refs)
                 t.AddRow(Markup.Escape(r.Reference), N(r.Rounds), N(r.Reviews), N(r.Latest.Round), Markup.Escape(r.Latest.ReviewDate),
                     Markup.Escape(r.Latest.Verdict), N(r.Latest.FindingCount));
@@ -77,22 +79,27 @@ internal static class HistoryCommand
             io.Error.WriteLine($"crosscheck: the register '{path}' has no reviews of reference '{reference}' (run 'crosscheck history' for the list).");
             return ExitCodes.InputError;
         }
-        console.MarkupLine($"[bold]{Markup.Escape(reference)}[/]: {history.Select(h => h.Review.Round).Distinct().Count()} round(s), {history.Count} review(s)");
+        int rounds = history.Select(h => h.Review.Round).Distinct().Count();
+        console.MarkupLine($"[bold]{Markup.Escape(reference)}[/]: {Words.Count(rounds, "round")}, {Words.Count(history.Count, "review")}");
+        // Fits a 100-column terminal: short headers, one column for closed / persisting / new, the input hash shortened.
         var table = new Table().Border(TableBorder.Simple);
-        foreach (var h in new[] { "round", "revision", "date", "reviewer", "verdict", "discrepant ends", "comments", "closed", "persisting", "new", "tool", "input" })
-            table.AddColumn(h);
+        foreach (var (h, right) in new[] { ("round", false), ("rev", false), ("date", false), ("reviewer", false), ("verdict", false), ("disc", true),
+                                            ("cmts", true), ("cl/pe/new", true), ("input", false) })
+        {
+            var column = new TableColumn(h).Padding(0, 0, 1, 0);
+            table.AddColumn(right ? column.RightAligned() : column);
+        }
         foreach (var h in history)
         {
             var r = h.Review;
-            bool first = h.Previous is null;
-            table.AddRow(N(r.Round) + (h.Repeat ? " (repeat)" : ""), Markup.Escape(r.Revision ?? "—"), Markup.Escape(r.ReviewDate), Markup.Escape(r.Reviewer ?? "—"),
-                Markup.Escape(r.Verdict), N(r.EndsDiscrepant), N(r.FindingCount), first ? "—" : N(h.Closed.Count), first ? "—" : N(h.Persisting.Count),
-                first ? "—" : N(h.New.Count), Markup.Escape(r.ToolVersion), Markup.Escape(Short(r.InputHash)));
+            string changes = h.Previous is null ? "—" : $"{N(h.Closed.Count)}/{N(h.Persisting.Count)}/{N(h.New.Count)}";
+            table.AddRow(N(r.Round) + (h.Repeat ? " rpt" : ""), Markup.Escape(Cut(r.Revision ?? "—", 4)), Markup.Escape(r.ReviewDate),
+                Markup.Escape(Cut(r.Reviewer ?? "—", 14)), Markup.Escape(r.Verdict), N(r.EndsDiscrepant), N(r.FindingCount), changes, Markup.Escape(Short(r.InputHash)));
         }
         console.Write(table);
         foreach (var h in history)
         {
-            string head = $"round {h.Review.Round}{(h.Repeat ? " (repeat)" : "")}";
+            string head = $"round {h.Review.Round}{(h.Repeat ? " (repeat)" : "")}{(h.Review.ToolVersion != ToolInfo.Version ? $" (CrossCheck {h.Review.ToolVersion})" : "")}";
             if (h.Previous is null)
             {
                 console.WriteLine($"{head}: raised {Ids(h.New)}");
@@ -132,7 +139,9 @@ internal static class HistoryCommand
 
     private static string Ids(IReadOnlyList<ComparedComment> list) => list.Count == 0 ? "none" : string.Join(", ", list.Select(c => c.Id));
 
-    private static string Short(string hash) => hash.StartsWith("sha256:", StringComparison.Ordinal) && hash.Length > 19 ? hash[7..19] : hash;
+    private static string Short(string hash) => hash.StartsWith("sha256:", StringComparison.Ordinal) && hash.Length > 15 ? hash[7..15] : hash;
+
+    private static string Cut(string text, int max) => text.Length <= max ? text : text[..(max - 1)] + "…";
 
     private static string N(int v) => v.ToString(CultureInfo.InvariantCulture);
 }

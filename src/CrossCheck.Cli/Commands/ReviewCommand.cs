@@ -2,6 +2,7 @@ using System.CommandLine;
 using CrossCheck.Common;
 using CrossCheck.Import;
 using CrossCheck.Jobs;
+using CrossCheck.Model;
 using CrossCheck.Review;
 using Spectre.Console;
 
@@ -76,35 +77,52 @@ internal static class ReviewCommand
     {
         var console = CommandSupport.Console(io);
         var s = review.Submission;
-        var mu = s.Info.Units.Moment;
+        var quote = new Quoting(s);
         string colour = review.Verdict switch { Verdict.Concur => "green", Verdict.ConcurWithComments => "yellow", _ => "red" };
-        console.MarkupLine($"[bold]{Markup.Escape(s.Info.Title ?? s.Source)}[/]  verdict: [bold {colour}]{Markup.Escape(review.Verdict.Words())}[/]");
+        console.MarkupLine($"[bold]{Markup.Escape(s.Info.Title ?? s.Source)}[/]  verdict: [bold {colour}]{Markup.Escape(review.Verdict.Json())}[/]");
         var counts = new Table().Border(TableBorder.Simple);
-        foreach (var h in new[] { "case", "agree", "minor", "discrepant", "missing", "unmatched", "major flags", "minor flags", "likely cause" })
-            counts.AddColumn(h);
+        counts.AddColumn("case");
+        foreach (var h in new[] { "agree", "minor", "discrepant", "missing", "unmatched", "comments" }) counts.AddColumn(new TableColumn(h).RightAligned());
+        counts.AddColumn("likely cause");
         foreach (var c in review.Cases)
-            counts.AddRow(Markup.Escape(c.Case), $"{c.Count(EndStatus.Agree)}", $"{c.Count(EndStatus.Minor)}", $"{c.Count(EndStatus.Discrepant)}",
-                $"{c.Count(EndStatus.Missing)}", $"{c.Count(EndStatus.Unmatched)}", $"{c.Flags.Count(f => f.Severity == Severity.Major)}",
-                $"{c.Flags.Count(f => f.Severity == Severity.Minor)}", Markup.Escape(c.Causes.FirstOrDefault()?.Code ?? "—"));
+        {
+            int comments = review.Comments.Count(cm => cm.Cases.Contains(c.Case));
+            counts.AddRow(Markup.Escape(c.Case), Num(c.Count(EndStatus.Agree)), Num(c.Count(EndStatus.Minor)), Num(c.Count(EndStatus.Discrepant)),
+                Num(c.Count(EndStatus.Missing)), Num(c.Count(EndStatus.Unmatched)), Num(comments), Markup.Escape(c.Causes.FirstOrDefault()?.Kind.Term().Title ?? "—"));
+        }
         console.Write(counts);
-        var worst = review.AllEndMoments.Where(e => e.Status is EndStatus.Discrepant or EndStatus.Minor)
+        var worst = review.AllEndMoments.Where(e => e.Status is EndStatus.Discrepant or EndStatus.Minor && e.Claim is not null && e.End is not null)
             .OrderByDescending(e => Math.Abs(e.Difference ?? 0)).Take(5).ToList();
         if (worst.Count > 0)
         {
-            var t = new Table().Border(TableBorder.Simple).Title(Markup.Escape($"largest differences [{mu.Symbol}, clockwise]"));
-            foreach (var h in new[] { "case", "member", "at", "claimed", "recomputed", "difference", "status" }) t.AddColumn(h);
+            var t = new Table().Border(TableBorder.Simple).Title(Markup.Escape($"largest differences [{quote.ConventionNote}]"));
+            foreach (var h in new[] { "case", "member", "at" }) t.AddColumn(h);
+            foreach (var h in new[] { "claimed", "recomputed", "difference" }) t.AddColumn(new TableColumn(h).RightAligned());
+            t.AddColumn("status");
             foreach (var e in worst)
-                t.AddRow(Markup.Escape(e.Case), Markup.Escape(e.Member), Markup.Escape(e.At), Fmt.Number(mu.FromSi(e.Claimed ?? 0)),
-                    Fmt.Number(mu.FromSi(e.Recomputed ?? 0)), Fmt.Number(mu.FromSi(e.Difference ?? 0)), e.Status.Json());
+            {
+                var end = e.End!.Value;
+                double diff = quote.MomentUnit.FromSi(s.Info.SignConvention.FromClockwise(e.Difference!.Value, end));
+                t.AddRow(Markup.Escape(e.Case), Markup.Escape(e.Member), Markup.Escape(e.At), Markup.Escape(Quoting.ClaimNumber(e.Claim!)),
+                    quote.EndNumber(e.Recomputed!.Value, end), Fmt.Number(diff, "+0.0#;-0.0#;0.0"), e.Status.Json());
+            }
             console.Write(t);
         }
-        foreach (var f in review.AllFlags.Where(f => f.Severity != Severity.Info).Take(8))
-            console.MarkupLine($"  [{(f.Severity == Severity.Major ? "red" : "yellow")}]{f.Severity.Json()}[/] {Markup.Escape(f.Kind.Json())}, {Markup.Escape(f.Where)}");
-        int more = review.AllFlags.Count(f => f.Severity != Severity.Info) - 8;
-        if (more > 0) console.MarkupLine($"  ... and {more} more in the memo");
+        const int Listed = 8;
+        foreach (var cm in review.Comments.Take(Listed))
+        {
+            string what = cm.Cause is { } cause ? cause.Term().Title : cm.Symptoms.Count > 0 ? Kind(cm.Symptoms[0].Kind) : "";
+            console.MarkupLine($"  [{(cm.Severity == Severity.Major ? "red" : "yellow")}]{cm.Severity.Json(),-5}[/] {Markup.Escape(cm.Id)}  case {Markup.Escape(cm.Case)}, {Markup.Escape(cm.Where)}: {Markup.Escape(what)}");
+        }
+        if (review.Comments.Count > Listed) console.MarkupLine($"  ... and {review.Comments.Count - Listed} more in the memo");
         if (rounds is not null) console.MarkupLine(Markup.Escape(RoundsLine(rounds)));
         if (memoPath is not null) console.MarkupLine($"memo: {Markup.Escape(memoPath)}");
     }
+
+    private static string Num(int n) => n.ToString(System.Globalization.CultureInfo.InvariantCulture);
+
+    /// <summary>The words of a symptom's kind ("end moment", "joint equilibrium").</summary>
+    private static string Kind(string code) => ReviewTerms.AllFlags.FirstOrDefault(t => t.Code == code)?.Title ?? code;
 
     /// <summary>One line about the register round: <c>register: round 2 of DEMO-FB-01 — 2 closed, 1 persisting, 1 new (against round 1)</c>.</summary>
     internal static string RoundsLine(RoundComparison c) =>

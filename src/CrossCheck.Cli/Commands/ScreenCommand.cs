@@ -149,7 +149,7 @@ internal static class ScreenCommand
         }
         string internalErrors = report.Count(ScreenOutcome.InternalError) > 0 ? $", {report.Count(ScreenOutcome.InternalError)} internal errors" : "";
         console.WriteLine(string.Create(CultureInfo.InvariantCulture,
-            $"{report.Rows.Count} submissions: {report.Count(ScreenOutcome.Concur)} concur, {report.Count(ScreenOutcome.Comments)} concur with comments, {report.Count(ScreenOutcome.Revise)} revise, {report.Count(ScreenOutcome.InputError)} input errors{internalErrors} ({report.Elapsed.TotalSeconds:0.0} s, {report.SubmissionsPerSecond:0.#} per second, {report.Parallelism} at a time)."));
+            $"{report.Rows.Count} submissions: {report.Count(ScreenOutcome.Concur)} concur, {report.Count(ScreenOutcome.Comments)} concur-with-comments, {report.Count(ScreenOutcome.Revise)} revise, {report.Count(ScreenOutcome.InputError)} input errors{internalErrors} ({report.Elapsed.TotalSeconds:0.0} s, {report.SubmissionsPerSecond:0.#} per second, {report.Parallelism} at a time)."));
         console.WriteLine($"index: {Path.Combine(report.OutputFolder, Screener.IndexFile)}");
         console.WriteLine($"summary: {Path.Combine(report.OutputFolder, Screener.SummaryFile)}");
         if (report.RegisterPath is not null) console.WriteLine($"register: {report.RegisterPath}");

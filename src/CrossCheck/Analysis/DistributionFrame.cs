@@ -19,6 +19,7 @@ internal sealed class DistributionFrame
         Members = model.Members;
         _joint = model.Joints.Select((j, i) => (j.Id, i)).ToDictionary(x => x.Id, x => x.i, StringComparer.Ordinal);
         Columns = Members.SelectMany(m => new[] { (m.Id, MemberEnd.Start), (m.Id, MemberEnd.End) }).ToList();
+        OverhangTip = Members.Select(m => IsOverhang(m)).ToArray();
         int n = Columns.Count;
         Stiffness = new double[n];
         Carry = new double[n];
@@ -31,7 +32,7 @@ internal sealed class DistributionFrame
             JointOf[i] = _joint[m.JointAt(end)];
             var far = end == MemberEnd.Start ? MemberEnd.End : MemberEnd.Start;
             double L = Length(m), ei = m.E * m.I;
-            if (m.IsReleased(end)) continue;
+            if (m.IsReleased(end) || OverhangTip[i / 2] is not null) continue;
             // Modified stiffness when the far end is hinged, or is a lone pin (unless this end is one too:
             // a member pinned at both ends is simply balanced at both).
             if (m.IsReleased(far) || (o.ModifiedStiffness && IsPinLike(m, far) && !IsPinLike(m, end)))
@@ -74,6 +75,12 @@ internal sealed class DistributionFrame
     /// <summary>The member's far end is a released pin (modified stiffness).</summary>
     public bool[] PinnedFar { get; }
 
+    /// <summary>
+    /// Per member: the free tip of an overhang, or null. As engineers distribute by hand, an overhang takes no
+    /// distributed moment (stiffness 0 at its root) and its end moments are statical (common practice).
+    /// </summary>
+    public MemberEnd?[] OverhangTip { get; }
+
     /// <summary>Joint index of each column.</summary>
     public int[] JointOf { get; }
 
@@ -86,6 +93,17 @@ internal sealed class DistributionFrame
 
     /// <summary>The column at the other end of the same member.</summary>
     public static int FarColumn(int i) => i % 2 == 0 ? i + 1 : i - 1;
+
+    /// <summary>
+    /// The free tip of a member that is an overhang whose root does not move across it: the tip's translations turn this
+    /// member's chord alone (so its moments are statical and no sway case is needed for them).
+    /// </summary>
+    private MemberEnd? IsOverhang(Member m)
+    {
+        if (LoadResultants.OverhangTip(_model, m) is not MemberEnd tip) return null;
+        var own = Kinematics.ChordRotation(m).Terms.Keys;
+        return own.All(u => Members.All(o => o.Id == m.Id || !Kinematics.ChordRotation(o).Terms.ContainsKey(u))) ? tip : null;
+    }
 
     /// <summary>A pin or roller (or free end) with this member alone: released once at the start when using modified stiffness.</summary>
     private bool IsPinLike(Member m, MemberEnd end)

@@ -24,6 +24,14 @@ internal static class DistributionLoads
         for (int mi = 0; mi < members.Count; mi++)
         {
             var m = members[mi];
+            if (frame.OverhangTip[mi] is MemberEnd tip)
+            {
+                // An overhang's moments are statical: its root carries the moment of its own loads, its tip none.
+                double root = LoadResultants.OverhangRootMoment(model, m, tip, c);
+                fem[2 * mi] = tip == MemberEnd.End ? root : 0;
+                fem[(2 * mi) + 1] = tip == MemberEnd.End ? 0 : root;
+                continue;
+            }
             var a = model.Joint(m.Start);
             var b = model.Joint(m.End);
             double L = frame.Length(m), cos = (b.X - a.X) / L, sin = (b.Y - a.Y) / L;

@@ -14,7 +14,8 @@ internal static class SwayEquations
     public static List<int> Modes(DistributionFrame frame)
     {
         var kin = frame.Kinematics;
-        return kin.TranslationUnknowns.Where(u => frame.Members.Any(m => kin.ChordRotation(m).Terms.ContainsKey(u))).ToList();
+        // An overhang's tip moves freely and its moments are statical: its translation needs no sway case.
+        return kin.TranslationUnknowns.Where(u => frame.Members.Where((m, i) => frame.OverhangTip[i] is null).Any(m => kin.ChordRotation(m).Terms.ContainsKey(u))).ToList();
     }
 
     /// <summary>A sway of a size that gives fixed-end moments of order 100 units keeps the table readable.</summary>

@@ -9,7 +9,7 @@ internal static class Messages
 
     public static string UnknownColumn(string header, TableSpec t) =>
         F($"column '{header}' is not part of table '{t.Name}' and was ignored (expected: {string.Join(", ", t.Columns.Select(c => c.Name))})");
-    public static string DuplicateColumn(string name) => F($"column '{name}' appears twice; only the first is used");
+    public static string DuplicateColumn(string name) => F($"column '{name}' appears twice in the header; give each column once");
     public static string MissingColumn(ColumnSpec c, TableSpec t) => F($"table '{t.Name}' needs a column '{c.Name}'");
     public static string MissingColumnForRow(string column, string? because) =>
         F($"this row needs a value in column '{column}'{Because(because)}, but the table has no such column");
@@ -38,7 +38,7 @@ internal static class Messages
     public static string MissingTable(string name, string? hint = null) => F($"the submission has no '{name}' table{(hint is null ? "" : "; " + hint)}");
     public static string UnknownTable(string name) =>
         F($"'{name}' is not a table of the submission format and was ignored (tables: {string.Join(", ", TableSchema.All.Select(t => t.Name))})");
-    public static string DuplicateTable(string name) => F($"table '{name}' appears more than once; only the first is used");
+    public static string DuplicateTable(string name) => F($"table '{name}' appears more than once; give each table once (put all its rows in one table)");
     public static string BothGeometries => "give either joints + members or supports + spans, not both";
     public static string NoGeometry => "the submission needs a 'joints' and a 'members' table (or 'supports' and 'spans' for a continuous beam)";
     public static string DuplicateId(string kind, string id, string firstAt) => F($"{kind} '{id}' is defined twice (first at {firstAt})");

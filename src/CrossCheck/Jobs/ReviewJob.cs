@@ -136,7 +136,7 @@ public sealed class ReviewJob(TimeProvider? time = null)
                 ReviewFailure.NotAnalysable, problem.Message);
         }
         var review = ReviewEngine.Review(s, analysis, options, warnings.Select(w => w.ToString()));
-        if (options.ShowWorking) review = review with { Working = ReferenceWorking.Compute(s) };
+        if (options.ShowWorking) review = review with { Working = ReferenceWorking.Compute(s, review) };
         return new ReviewOutcome(path, review, [], warnings);
     }
 
@@ -158,9 +158,25 @@ public sealed class ReviewJob(TimeProvider? time = null)
         return template is null ? MemoRenderer.Render(model, memoFormat) : template.Render(model);
     }
 
-    /// <summary><c>&lt;submission&gt;-review.&lt;ext&gt;</c> in the current folder.</summary>
-    public static string DefaultOutputPath(string submission, ReviewFormat format) =>
-        $"{SubmissionNames.SafeStem(SubmissionNames.BaseName(submission))}-review.{Extension(format)}";
+    /// <summary>
+    /// <c>&lt;submission&gt;-review.&lt;ext&gt;</c> in the current folder. A submission that is not CSV (a PDF, a
+    /// workbook) keeps its kind in the name (<c>hall-pdf-review.md</c>), so that the memos of <c>hall.csv</c> and
+    /// <c>hall.pdf</c> neither overwrite each other nor leave the reader guessing which is which.
+    /// </summary>
+    public static string DefaultOutputPath(string submission, ReviewFormat format) => DefaultFileName(submission, format);
+
+    /// <summary>The default memo file name of a submission (see <see cref="DefaultOutputPath"/>).</summary>
+    public static string DefaultFileName(string submission, ReviewFormat format)
+    {
+        string stem = SubmissionNames.BaseName(submission);
+        string ext = Directory.Exists(submission) ? "" : Path.GetExtension(submission).TrimStart('.').ToLowerInvariant();
+        if (ext.Length > 0 && ext != "csv") stem = $"{stem}-{ext}";
+        return $"{SubmissionNames.SafeStem(stem)}-review.{Extension(format)}";
+    }
+
+    /// <summary>The file to write: <paramref name="outPath"/> as given, or — when it names an existing folder — the default file name inside it.</summary>
+    public static string Target(string outPath, string submission, ReviewFormat format) =>
+        Directory.Exists(outPath) ? Path.Combine(outPath, DefaultFileName(submission, format)) : outPath;
 
     public static string Extension(ReviewFormat format) => format switch
     {
@@ -218,7 +234,7 @@ public sealed class ReviewJob(TimeProvider? time = null)
             return Refuse($"the memo template has an error: {ex.Message}", read);
         }
         var done = new ReviewJobOutcome(ReviewJobStatus.Reviewed, request.Path) { Review = review, Warnings = read.Warnings, Rounds = rounds };
-        string? target = request.OutputPath ?? (format == ReviewFormat.Json ? null : DefaultOutputPath(request.Path, format));
+        string? target = request.OutputPath is { } given ? Target(given, request.Path, format) : format == ReviewFormat.Json ? null : DefaultOutputPath(request.Path, format);
         if (target is null) return done with { Text = content };
         if (format == ReviewFormat.Pdf)
         {
@@ -250,8 +266,9 @@ public sealed class ReviewJob(TimeProvider? time = null)
         if (request.Format != ReviewFormat.Json) return outcome;
         string json = ReviewJson.WriteInputErrors(request.Path, read.Errors);
         if (request.OutputPath is null) return outcome with { Text = json };
-        return JobOutput.TryWrite(request.OutputPath, json, out var problem)
-            ? outcome with { WrittenTo = request.OutputPath }
+        string target = Target(request.OutputPath, request.Path, ReviewFormat.Json);
+        return JobOutput.TryWrite(target, json, out var problem)
+            ? outcome with { WrittenTo = target }
             : outcome with { Problem = problem };
     }
 }

@@ -83,7 +83,9 @@ public sealed class MemoModel
         Warnings = review.InputWarnings.ToList();
 
         InfoRows = s.Info.Other.Select(kv => new MemoPair(kv.Key, kv.Value)).ToList();
-        Joints = s.Model.Joints.Select(j => new MemoJoint(j.Id, Fmt.Number(u.Length.FromSi(j.X), "0.###"), Fmt.Number(u.Length.FromSi(j.Y), "0.###"),
+        var xs = Words.FixedColumn(s.Model.Joints.Select(j => u.Length.FromSi(j.X)).ToList(), 3);
+        var ys = Words.FixedColumn(s.Model.Joints.Select(j => u.Length.FromSi(j.Y)).ToList(), 3);
+        Joints = s.Model.Joints.Select((j, i) => new MemoJoint(j.Id, xs[i], ys[i],
             RestraintWord(j.Restraint), j.Movement.IsZero ? "" : Movement(j.Movement, u), j.Source.Citation)).ToList();
         // As engineers print section properties: E in GPa, I in 10⁶ mm⁴ (2400 for 2.4 × 10⁹ mm⁴), A in mm², one number of
         // decimals down each column.
@@ -359,4 +361,7 @@ public sealed class MemoCase
 
     /// <summary>Members with differing claims left without a detail drawing (beyond <see cref="MemoDiagrams.MaxDetailsPerCase"/>).</summary>
     public int DetailsOmitted { get; }
+
+    /// <summary>"3 more members of this case have differing claims and no detail drawing; ..."</summary>
+    public string DetailsOmittedText => $"{Words.Count(DetailsOmitted, "more member")} of this case {(DetailsOmitted == 1 ? "has" : "have")} differing claims and no detail drawing; the table above lists them.";
 }

@@ -1,4 +1,5 @@
 using System.Globalization;
+using CrossCheck.Common;
 using CrossCheck.Review;
 
 namespace CrossCheck.Memo;
@@ -35,7 +36,7 @@ public sealed class MemoRounds
         Summary = p is null
             ? $"Recorded in the review register as round {Round} of reference {Reference}; there is no earlier round to compare with.{repeat}"
             : string.Create(CultureInfo.InvariantCulture,
-                $"Recorded in the review register as round {Round} of reference {Reference}. Against round {PreviousRound} (revision {PreviousRevision}, reviewed {PreviousDate}, verdict: {PreviousVerdict}): {comparison.Closed.Count} comment(s) closed, {comparison.Persisting.Count} persisting, {comparison.New.Count} new.{repeat}");
+                $"Recorded in the review register as round {Round} of reference {Reference}. Against round {PreviousRound} (revision {PreviousRevision}, reviewed {PreviousDate}, verdict: {PreviousVerdict}): {Words.Count(comparison.Closed.Count, "comment")} closed, {comparison.Persisting.Count} persisting, {comparison.New.Count} new.{repeat}");
         Closed = comparison.Closed.Select(c => Row(c, "closed")).ToList();
         Persisting = comparison.Persisting.Select(c => Row(c, "persisting")).ToList();
         New = comparison.New.Select(c => Row(c, "new")).ToList();

@@ -29,9 +29,9 @@ public static class WorkingAppendix
         var html = new StringBuilder();
         var mu = s.Info.Units.Moment;
         string stop = Fmt.Number(ReferenceWorking.StopBelow, "0.###");
-        md.Append("Reference working by CrossCheck (Hardy Cross, simultaneous balancing, modified stiffness 3EI/L at pinned far ends, ")
+        md.Append("Reference working by CrossCheck (Hardy Cross, simultaneous balancing; an overhang takes no distributed moment and carries its statical root moment; ")
           .Append($"stopped when every carry-over is below {stop} {mu.Symbol}, then a final balance). Moments in {mu.Symbol}, clockwise on the member end.\n");
-        html.Append($"<p class=\"muted\">Reference working by CrossCheck (Hardy Cross, simultaneous balancing, modified stiffness 3EI/L at pinned far ends, stopped when every carry-over is below {stop} {Esc(mu.Symbol)}, then a final balance). Moments in {Esc(mu.Symbol)}, clockwise on the member end.</p>\n");
+        html.Append($"<p class=\"muted\">Reference working by CrossCheck (Hardy Cross, simultaneous balancing; an overhang takes no distributed moment and carries its statical root moment; stopped when every carry-over is below {stop} {Esc(mu.Symbol)}, then a final balance). Moments in {Esc(mu.Symbol)}, clockwise on the member end.</p>\n");
         foreach (var c in working.Cases)
         {
             if (c.Result is not { } result)
@@ -40,8 +40,8 @@ public static class WorkingAppendix
                 html.Append($"<h3>Load case {Esc(c.Case)}</h3><p>{Esc(c.Problem ?? "")}</p>\n");
                 continue;
             }
-            md.Append($"\n### Load case {c.Case}\n");
-            html.Append($"<h3>Load case {Esc(c.Case)}</h3>\n");
+            md.Append($"\n### Load case {c.Case}\n\nStiffness: {c.Method}.\n");
+            html.Append($"<h3>Load case {Esc(c.Case)}</h3>\n<p class=\"muted\">Stiffness: {Esc(c.Method)}.</p>\n");
             Table(result.NoSway, mu, md, html, s.Model);
             foreach (var sw in result.Sway)
             {

@@ -84,47 +84,9 @@ internal sealed class ClaimStatics
     }
 
     /// <summary>Resultant of a load in global axes and its anticlockwise moment about (x0, y0).</summary>
-    public (double Fx, double Fy, double Moment) Resultant(Load load, double x0, double y0)
-    {
-        (double, double, double) Force(double x, double y, double fx, double fy) => (fx, fy, ((x - x0) * fy) - ((y - y0) * fx));
-        switch (load)
-        {
-            case JointForce f:
-            {
-                var j = _model.Joint(f.Joint);
-                var (ux, uy) = f.Direction.Vector();
-                return Force(j.X, j.Y, f.P * ux, f.P * uy);
-            }
-            case JointCouple c: return (0, 0, -c.M);
-            case MemberCouple c: return (0, 0, -c.M);
-            case PointLoad p:
-            {
-                var (x, y) = PointOn(p.Member, p.A);
-                var (ux, uy) = p.Direction.Vector();
-                return Force(x, y, p.P * ux, p.P * uy);
-            }
-            case DistributedLoad d:
-            {
-                double len = d.B - d.A;
-                double total = (d.WStart + d.WEnd) / 2 * len;
-                if (d.WStart + d.WEnd == 0) return (0, 0, 0);
-                double centroid = d.A + (len * (d.WStart + (2 * d.WEnd)) / (3 * (d.WStart + d.WEnd)));
-                var (x, y) = PointOn(d.Member, centroid);
-                var (ux, uy) = d.Direction.Vector();
-                return Force(x, y, total * ux, total * uy);
-            }
-            default: return (0, 0, 0);
-        }
-    }
+    public (double Fx, double Fy, double Moment) Resultant(Load load, double x0, double y0) => LoadResultants.Of(_model, load, x0, y0);
 
-    public (double X, double Y) PointOn(string member, double a)
-    {
-        var m = _model.Member(member);
-        var s = _model.Joint(m.Start);
-        var e = _model.Joint(m.End);
-        double L = _model.Length(m);
-        return (s.X + ((e.X - s.X) * a / L), s.Y + ((e.Y - s.Y) * a / L));
-    }
+    public (double X, double Y) PointOn(string member, double a) => LoadResultants.PointOn(_model, member, a);
 
     /// <summary>Global x-component of the member loads on the part of a member above the height <paramref name="yCut"/>.</summary>
     public double HorizontalLoadAbove(string caseId, Member m, double yCut)

@@ -85,13 +85,7 @@ internal static class Comparison
         foreach (var c in claims)
         {
             var rec = result.Reactions.TryGetValue(c.Joint, out var r) ? r : new Reaction(0, 0, 0);
-            void Add(string comp, double? claimed, double recomputed, ToleranceBand band)
-            {
-                if (claimed is double v) list.Add(new QuantityFinding(caseId, c.Joint, comp, v, recomputed, band.Status(v - recomputed), c.Source));
-            }
-            Add("Rx", c.Rx, rec.Rx, forces);
-            Add("Ry", c.Ry, rec.Ry, forces);
-            Add("M", c.M, rec.M, moments);
+            Components(list, caseId, c.Joint, c.Source, [("Rx", c.Rx, rec.Rx, forces), ("Ry", c.Ry, rec.Ry, forces), ("M", c.M, rec.M, moments)]);
         }
         return list;
     }
@@ -115,14 +109,16 @@ internal static class Comparison
         foreach (var c in claims)
         {
             if (!result.Displacements.TryGetValue(c.Joint, out var d)) continue;
-            void Add(string comp, double? claimed, double recomputed, ToleranceBand band)
-            {
-                if (claimed is double v) list.Add(new QuantityFinding(caseId, c.Joint, comp, v, recomputed, band.Status(v - recomputed), c.Source));
-            }
-            Add("ux", c.Ux, d.Ux, translations);
-            Add("uy", c.Uy, d.Uy, translations);
-            Add("rotation", c.Rotation, d.Rotation, rotations);
+            Components(list, caseId, c.Joint, c.Source, [("ux", c.Ux, d.Ux, translations), ("uy", c.Uy, d.Uy, translations), ("rotation", c.Rotation, d.Rotation, rotations)]);
         }
         return list;
+    }
+
+    /// <summary>One finding per claimed component of a reaction or displacement row (components not claimed are skipped).</summary>
+    private static void Components(List<QuantityFinding> list, string caseId, string joint, SourceRef source,
+        (string Component, double? Claimed, double Recomputed, ToleranceBand Band)[] components)
+    {
+        foreach (var (component, claimed, recomputed, band) in components)
+            if (claimed is double v) list.Add(new QuantityFinding(caseId, joint, component, v, recomputed, band.Status(v - recomputed), source));
     }
 }

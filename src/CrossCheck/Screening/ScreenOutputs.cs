@@ -19,11 +19,12 @@ public static class ScreenOutputs
 
     public static string OutcomeWords(ScreenOutcome o) => o switch
     {
-        ScreenOutcome.Concur => Verdict.Concur.Words(),
-        ScreenOutcome.Comments => Verdict.ConcurWithComments.Words(),
-        ScreenOutcome.Revise => Verdict.Revise.Words(),
-        ScreenOutcome.InputError => "Input error",
-        _ => "Internal error",
+        // One set of verdict words for the terminal, the screen, the history and the CSV: the contract codes.
+        ScreenOutcome.Concur => Verdict.Concur.Json(),
+        ScreenOutcome.Comments => Verdict.ConcurWithComments.Json(),
+        ScreenOutcome.Revise => Verdict.Revise.Json(),
+        ScreenOutcome.InputError => "input error",
+        _ => "internal error",
     };
 
     /// <summary><c>2 closed, 1 persisting, 1 new</c>, <c>first round</c>, and <c>(files unchanged)</c> for a repeat review; empty without a register.</summary>
@@ -71,7 +72,7 @@ public sealed class ScreenIndexModel
         Folder = Path.GetFileName(Path.TrimEndingDirectorySeparator(report.Folder));
         FolderPath = report.Folder;
         ReviewDate = Clock.Iso(o.Date ?? Clock.Today(TimeProvider.System));
-        Reviewer = o.Reviewer ?? "(not stated — use --reviewer)";
+        Reviewer = o.Reviewer ?? "—";
         ToolVersion = ToolInfo.Version;
         AbsoluteTolerance = Fmt.Number(o.AbsoluteTolerance, "0.0##");
         RelativeTolerancePercent = Fmt.Number(o.RelativeTolerance * 100, "0.##");
@@ -104,8 +105,8 @@ public sealed class ScreenIndexModel
             ScreenOutputs.OutcomeWords(r.Outcome),
             ScreenOutputs.OutcomeWord(r.Outcome),
             N(v?.CountEnds(EndStatus.Discrepant)),
-            N(v?.CountFlags(Severity.Major)),
-            N(v?.CountFlags(Severity.Minor)),
+            N(v?.Comments.Count(c => c.Severity == Severity.Major)),
+            N(v?.Comments.Count(c => c.Severity == Severity.Minor)),
             v is null ? "" : r.TopFinding,
             rounds,
             r.ErrorText ?? "");

@@ -67,17 +67,25 @@ public static class SubmissionFinder
 
     private static bool IsSqliteCompanion(string suffix) => suffix is "-wal" or "-shm" or "-journal";
 
-    /// <summary>Safe stems, made unique ignoring case (so outputs do not collide on case-insensitive disks either).</summary>
+    /// <summary>
+    /// Safe stems, made unique ignoring case (so outputs do not collide on case-insensitive disks either). Files whose
+    /// names differ only in their extension (<c>hall.csv</c> and <c>hall.pdf</c>) keep the extension in the stem
+    /// (<c>hall-csv</c>, <c>hall-pdf</c>), so each memo says which file it reviews; any other clash is numbered.
+    /// </summary>
     private static List<ScreenItem> AssignStems(List<(string Name, string Path, bool Folder)> items)
     {
+        string Plain((string Name, string Path, bool Folder) x) => SubmissionNames.SafeStem(x.Folder ? x.Name : Path.GetFileNameWithoutExtension(x.Name));
+        var shared = items.GroupBy(Plain, StringComparer.OrdinalIgnoreCase).Where(g => g.Count() > 1).Select(g => g.Key).ToHashSet(StringComparer.OrdinalIgnoreCase);
         var used = new HashSet<string>(StringComparer.OrdinalIgnoreCase);
         var result = new List<ScreenItem>();
-        foreach (var (name, path, folder) in items)
+        foreach (var item in items)
         {
-            string stem = SubmissionNames.SafeStem(folder ? name : Path.GetFileNameWithoutExtension(name));
+            string stem = Plain(item);
+            if (shared.Contains(stem) && !item.Folder && Path.GetExtension(item.Name) is { Length: > 1 } ext)
+                stem = SubmissionNames.SafeStem($"{stem}-{ext[1..].ToLowerInvariant()}");
             string candidate = stem;
             for (int k = 2; !used.Add(candidate); k++) candidate = $"{stem}-{k}";
-            result.Add(new ScreenItem(name, path, candidate, folder));
+            result.Add(new ScreenItem(item.Name, item.Path, candidate, item.Folder));
         }
         return result;
     }

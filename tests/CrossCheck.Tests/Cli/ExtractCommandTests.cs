@@ -124,7 +124,7 @@ public class ExtractCommandTests
         using var t = new TempSubmission();
         var review = CliRunner.Run("review", DemoPdf("shed-frame"), "--out", Path.Combine(t.Folder, "memo.md"));
         review.ExitCode.ShouldBe(ExitCodes.Comments, review.Err);
-        review.Out.ShouldContain("verdict: Revise and resubmit");
+        review.Out.ShouldContain("verdict: revise");
         File.ReadAllText(Path.Combine(t.Folder, "memo.md")).ShouldContain("shed-frame.pdf p.2 line");
 
         var solve = CliRunner.Run("solve", DemoPdf("footbridge"), "--format", "csv");

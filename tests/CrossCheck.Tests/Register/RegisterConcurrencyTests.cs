@@ -78,8 +78,8 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
         var rb = ChildProcess.Finish(b);
         ra.Code.ShouldBe(2, ra.Err + ra.Out); // both batches hold broken submissions
         rb.Code.ShouldBe(2, rb.Err + rb.Out);
-        ra.Out.ShouldContain("12 submissions: 6 concur, 1 concur with comments, 3 revise, 2 input errors");
-        rb.Out.ShouldContain("12 submissions: 6 concur, 1 concur with comments, 3 revise, 2 input errors");
+        ra.Out.ShouldContain("12 submissions: 6 concur, 1 concur-with-comments, 3 revise, 2 input errors");
+        rb.Out.ShouldContain("12 submissions: 6 concur, 1 concur-with-comments, 3 revise, 2 input errors");
         using var r = ReviewRegister.Open(db);
         r.Check().ShouldBeEmpty();
         r.Reviews().Count.ShouldBe(20);

@@ -130,7 +130,7 @@ public class ResubmissionTests
         string memo2 = File.ReadAllText(memo);
         memo2.ShouldContain("| Review register | round 2 of KY-LB-02 (previous: round 1, 2026-12-01) |");
         memo2.ShouldContain("### Against the previous round");
-        memo2.ShouldContain("Against round 1 (revision A, reviewed 2026-12-01, verdict: Revise and resubmit): 1 comment(s) closed, 1 persisting, 1 new.");
+        memo2.ShouldContain("Against round 1 (revision A, reviewed 2026-12-01, verdict: Revise and resubmit): 1 comment closed, 1 persisting, 1 new.");
         memo2.ShouldContain("| closed | EM-2-BC-B |");
         memo2.ShouldContain("| **persisting** | EM-1-AB | minor | 1 |");
         memo2.ShouldContain("| **new** | EM-3-CD | minor | 3 |");
@@ -159,7 +159,7 @@ public class ResubmissionTests
 
         var history = CliRunner.Run("history", "KY-LB-02", "--register", db);
         history.ExitCode.ShouldBe(ExitCodes.Concur, history.Err);
-        history.Out.ShouldContain("KY-LB-02: 2 round(s), 4 review(s)");
+        history.Out.ShouldContain("KY-LB-02: 2 rounds, 4 reviews");
         history.Out.ShouldContain("round 2 against round 1: closed EM-2-BC-B; persisting EM-1-AB; new EM-3-CD");
         history.Out.ShouldContain("2 (repeat)");
         CliRunner.Run("history", "--register", db).Out.ShouldContain("KY-LB-02");

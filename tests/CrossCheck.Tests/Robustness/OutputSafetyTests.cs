@@ -126,19 +126,29 @@ public class OutputSafetyTests
         Directory.GetFiles(t.Folder).ShouldBe([path]);
     }
 
-    [Theory]
-    [InlineData("review", "--out")]
-    [InlineData("solve", "--out")]
-    public void OutputPathThatIsAFolder_IsAnInputError_NotACrash(string command, string option)
+    [Fact]
+    public void SolveOutputPathThatIsAFolder_IsAnInputError_NotACrash()
     {
         using var t = new TempSubmission();
         string folder = Path.Combine(t.Folder, "taken");
         Directory.CreateDirectory(folder);
-        var r = CliRunner.Run(command, ShedFrame, option, folder);
+        var r = CliRunner.Run("solve", ShedFrame, "--out", folder);
         r.ExitCode.ShouldBe(ExitCodes.InputError, r.Err);
         r.Err.ShouldContain($"crosscheck: cannot write '{folder}'");
         r.Err.ShouldNotContain("internal error");
         r.Err.ShouldNotContain("   at ");
         Directory.GetFileSystemEntries(folder).ShouldBeEmpty();
+    }
+
+    [Fact]
+    public void ReviewOutputPathThatIsAFolder_WritesTheMemoIntoIt()
+    {
+        using var t = new TempSubmission();
+        string folder = Path.Combine(t.Folder, "memos");
+        Directory.CreateDirectory(folder);
+        var r = CliRunner.Run("review", ShedFrame, "--out", folder);
+        r.ExitCode.ShouldBe(ExitCodes.Comments, r.Err);
+        Directory.GetFileSystemEntries(folder).Select(Path.GetFileName).ShouldBe(["shed-frame-review.md"]);
+        r.Out.ShouldContain(Path.Combine(folder, "shed-frame-review.md"));
     }
 }

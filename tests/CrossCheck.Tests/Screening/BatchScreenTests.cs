@@ -113,7 +113,7 @@ public partial class BatchScreenTests
         r.Out.ShouldContain("screening 6 submissions");
         for (int k = 1; k <= 6; k++) r.Out.ShouldContain($"[{k}/6] ");
         r.Out.ShouldContain("discrepant ends");
-        r.Out.ShouldContain("6 submissions: 4 concur, 1 concur with comments, 1 revise, 0 input errors");
+        r.Out.ShouldContain("6 submissions: 4 concur, 1 concur-with-comments, 1 revise, 0 input errors");
         r.Out.ShouldContain("4 submissions — concur, nothing to answer");
         r.Out.ShouldNotContain("\u001b["); // no terminal control codes when redirected
         r.Out.ShouldContain($"register: {batch.Register}");
@@ -134,7 +134,7 @@ public partial class BatchScreenTests
         var cmd = ScreenCommand.Create(io);
         int code = cmd.Parse(["screen", batch.Folder, "--out", batch.Out, "--no-register"]).Invoke(new System.CommandLine.InvocationConfiguration { Output = output, Error = error });
         code.ShouldBe(ExitCodes.InputError, error.ToString());
-        output.ToString().ShouldContain("4 submissions: 2 concur, 0 concur with comments, 1 revise, 1 input errors");
+        output.ToString().ShouldContain("4 submissions: 2 concur, 0 concur-with-comments, 1 revise, 1 input errors");
     }
 
     [Fact]

@@ -57,7 +57,7 @@ public class ScreenSafetyTests
         t.Write("reg.db-wal", "");
         var found = SubmissionFinder.Find(t.Folder, [Path.Combine(t.Folder, "out"), Path.Combine(t.Folder, "reg.db")]);
         found.Items.Select(i => i.Name).ShouldBe(["A", "a.csv", "calc one.pdf", "student 7", "student 8"]);
-        found.Items.Select(i => i.Stem).ShouldBe(["A", "a-2", "calc_one", "student_7", "student_8"]);
+        found.Items.Select(i => i.Stem).ShouldBe(["A", "a-csv", "calc_one", "student_7", "student_8"]);
         found.Items.Single(i => i.Name == "student 7").Path.ShouldEndWith(Path.Combine("student 7", "calc.csv"));
         found.Items.Single(i => i.Name == "student 8").Path.ShouldEndWith(Path.Combine("student 8", "scan.pdf"));
         found.Items.Single(i => i.Name == "A").Path.ShouldEndWith("A");

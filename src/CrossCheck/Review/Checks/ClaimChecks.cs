@@ -14,35 +14,19 @@ internal interface IClaimCheck
 }
 
 /// <summary>What every check of one load case may use.</summary>
-internal sealed class CheckContext
+/// <param name="Submission">The submission under review.</param>
+/// <param name="Options">The reviewer's tolerances.</param>
+/// <param name="Statics">Statics of single members from the claimed moments and the member's loads.</param>
+/// <param name="Kinematics">The joint and chord rotations the supports and rigid members allow.</param>
+/// <param name="Case">The load case checked.</param>
+/// <param name="Claims">The claimed member-end moments of the case that name an end the model has.</param>
+/// <param name="Band">The moment bands of the checks: the reviewer's tolerances on the largest claimed moment of the case.</param>
+internal sealed record CheckContext(Submission Submission, ReviewOptions Options, ClaimStatics Statics, Kinematics Kinematics, LoadCase Case,
+    IReadOnlyDictionary<EndKey, ClaimedEndMoment> Claims, ToleranceBand Band)
 {
-    public CheckContext(Submission submission, ReviewOptions options, ClaimStatics statics, Kinematics kinematics, LoadCase loadCase,
-        IReadOnlyDictionary<EndKey, ClaimedEndMoment> claims, ToleranceBand band)
-    {
-        Submission = submission;
-        Options = options;
-        Statics = statics;
-        Kinematics = kinematics;
-        Case = loadCase;
-        Claims = claims;
-        Band = band;
-        Quote = new Quoting(submission);
-    }
-
-    public Submission Submission { get; }
     public StructureModel Model => Submission.Model;
-    public ReviewOptions Options { get; }
-    public ClaimStatics Statics { get; }
-    public Kinematics Kinematics { get; }
-    public LoadCase Case { get; }
 
-    /// <summary>The claimed member-end moments of the case that name an end the model has.</summary>
-    public IReadOnlyDictionary<EndKey, ClaimedEndMoment> Claims { get; }
-
-    /// <summary>The moment bands of the checks: the reviewer's tolerances on the largest claimed moment of the case.</summary>
-    public ToleranceBand Band { get; }
-
-    public Quoting Quote { get; }
+    public Quoting Quote { get; } = new(Submission);
 
     private Dictionary<string, double>? _couples;
 

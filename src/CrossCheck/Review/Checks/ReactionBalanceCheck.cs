@@ -50,9 +50,13 @@ internal sealed class ReactionBalanceCheck : IClaimCheck
 
     private static bool IsHorizontalIdle(LoadCase c) => c.Loads.All(l => l switch
     {
-        PointLoad p => p.Direction is LoadDirection.Up or LoadDirection.Down,
-        DistributedLoad d => d.Direction is LoadDirection.Up or LoadDirection.Down,
         JointForce f => f.Direction is LoadDirection.Up or LoadDirection.Down,
+        MemberLoad ml => ml.Shape() switch
+        {
+            ConcentratedForce p => p.Direction is LoadDirection.Up or LoadDirection.Down,
+            LinearlyVaryingLoad d => d.Direction is LoadDirection.Up or LoadDirection.Down,
+            _ => true,
+        },
         _ => true,
     });
 }

@@ -91,7 +91,7 @@ internal sealed class StoreyShearCheck : IClaimCheck
             double fx = load switch
             {
                 JointForce jf when x.Model.Joint(jf.Joint).Y > yCut => x.Statics.Resultant(jf, 0, 0).Fx,
-                MemberLoad ml when x.Model.TryGetMember(ml.Member, out var mm) => ml is MemberCouple ? 0 : PartAbove(x, mm, ml, yCut),
+                MemberLoad ml when x.Model.TryGetMember(ml.Member, out var mm) => ml.Shape() is ConcentratedCouple ? 0 : PartAbove(x, mm, ml, yCut),
                 _ => 0,
             };
             lateral += fx;

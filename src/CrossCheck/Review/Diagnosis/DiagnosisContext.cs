@@ -94,16 +94,16 @@ internal sealed class DiagnosisContext
     /// <summary>A clockwise end moment in the author's unit and convention.</summary>
     public string EndMoment(double clockwise, MemberEnd end) => Quote.EndMoment(clockwise, end);
 
-    /// <summary>"point load 40 kN at 4 m (calc.csv line 33)".</summary>
+    /// <summary>"point load 40 kN at 4 m (calc.csv line 33)", from the load's shape (any load kind).</summary>
     public string Describe(MemberLoad load)
     {
         string where = load.Source.Citation;
-        return load switch
+        return load.Shape() switch
         {
-            PointLoad p => $"point load {Quote.LoadForce(p.P)} at {Quote.Length(p.A)} ({where})",
-            DistributedLoad d when d.IsUniform => $"uniform load {Quote.LineLoad(d.WStart)} ({where})",
-            DistributedLoad d => $"linear load {Quote.LineLoad(d.WStart)} to {Quote.LineLoad(d.WEnd)} ({where})",
-            MemberCouple c => $"couple {Quote.Moment(Math.Abs(c.M))} at {Quote.Length(c.A)} ({where})",
+            ConcentratedForce p => $"point load {Quote.LoadForce(p.P)} at {Quote.Length(p.A)} ({where})",
+            LinearlyVaryingLoad d when d.WStart == d.WEnd => $"uniform load {Quote.LineLoad(d.WStart)} ({where})",
+            LinearlyVaryingLoad d => $"linear load {Quote.LineLoad(d.WStart)} to {Quote.LineLoad(d.WEnd)} ({where})",
+            ConcentratedCouple c => $"couple {Quote.Moment(Math.Abs(c.M))} at {Quote.Length(c.A)} ({where})",
             _ => $"load ({where})",
         };
     }

@@ -13,7 +13,11 @@ public sealed record WrongCell(string Row, int RowNumber, string Column, Working
 /// <param name="KnockOn">Largest change of a final moment (N·m) if the table is redone with correct arithmetic from its first wrong cell on.</param>
 /// <param name="KnockOns">Per column of the table: the author's final moment minus the final moment with correct arithmetic.</param>
 public sealed record WorkingAudit(string Case, string Variant, int CellsChecked, int CellsWrong, WrongCell? First, double KnockOn, string KnockOnColumn,
-    IReadOnlyList<(string Member, MemberEnd End, double KnockOn)> KnockOns);
+    IReadOnlyList<(string Member, MemberEnd End, double KnockOn)> KnockOns)
+{
+    /// <summary>True when the author's factors follow modified stiffness (3EI/L at pinned far ends).</summary>
+    public bool ModifiedStiffness { get; init; }
+}
 
 /// <summary>
 /// Audits an author's moment-distribution working table cell by cell: distribution factors against K/ΣK (plain 4EI/L
@@ -46,7 +50,7 @@ public static class WorkingTableAudit
         }
         var knockOns = table.Columns.Select((c, i) => (c.Member, c.End, authorFinal[i] - corrected.Final[i])).ToList();
         return new WorkingAudit(table.Case, useModified ? "modified stiffness (3EI/L at pinned far ends)" : "plain stiffness (4EI/L)",
-            audit.Checked, audit.Wrong.Count, audit.Wrong.FirstOrDefault(), knock, knockColumn, knockOns);
+            audit.Checked, audit.Wrong.Count, audit.Wrong.FirstOrDefault(), knock, knockColumn, knockOns) { ModifiedStiffness = useModified };
     }
 
     private sealed class Ctx

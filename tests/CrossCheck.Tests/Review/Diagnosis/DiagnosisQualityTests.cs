@@ -28,9 +28,15 @@ public class DiagnosisQualityTests(ITestOutputHelper output)
     public void PerCause_RankedFirstAndFound_AndNoFalseCauses()
     {
         var rows = new SortedDictionary<string, (int Seeded, int First, int Found)>(StringComparer.Ordinal);
+        var notOneComment = new List<string>();
         foreach (var seeded in ((IEnumerable<object[]>)DiagnosisTests.All).Select(d => (DiagnosisTests.Seeded)d[0]))
         {
-            var causes = DiagnosisTests.Review(seeded.Model(), seeded.Claims()).Cases[0].Causes;
+            var review = DiagnosisTests.Review(seeded.Model(), seeded.Claims());
+            var causes = review.Cases[0].Causes;
+            // One mistake, one major comment, with every finding it explains beneath it.
+            var majors = review.Comments.Where(c => c.Severity == Severity.Major).ToList();
+            if (majors.Count != 1 || majors[0].Cause is null)
+                notOneComment.Add($"{seeded}: {string.Join("; ", review.Comments.Select(c => $"{c.Id} {c.Severity}"))}");
             var (n, first, found) = rows.GetValueOrDefault(seeded.Code);
             rows[seeded.Code] = (n + 1, first + (causes.FirstOrDefault()?.Code == seeded.Code ? 1 : 0), found + (causes.Any(c => c.Code == seeded.Code) ? 1 : 0));
         }
@@ -65,14 +71,17 @@ public class DiagnosisQualityTests(ITestOutputHelper output)
             }
         }
 
-        var table = new StringBuilder("cause                      seeded  ranked first  found\n");
+        var table = new StringBuilder("cause                     planted  ranked first  found\n");
         foreach (var (code, (n, first, found)) in rows)
             table.Append(CultureInfo.InvariantCulture, $"{code,-26} {n,6}  {first,12}  {found,5}\n");
         table.Append(CultureInfo.InvariantCulture, $"correct submissions: {references.Count}, false causes: {correctFalse}\n");
         table.Append(CultureInfo.InvariantCulture, $"random single slips: {slips}, with a false cause: {slipFalse} ({string.Join(", ", falseCodes.Select(kv => $"{kv.Key} {kv.Value}"))})\n");
         output.WriteLine(table.ToString());
 
+        output.WriteLine($"planted mistakes not given exactly one major comment naming the mistake: {notOneComment.Count}");
+        foreach (var n in notOneComment) output.WriteLine("  " + n);
         rows.Values.ShouldAllBe(r => r.First == r.Seeded, table.ToString());
+        notOneComment.ShouldBeEmpty();
         correctFalse.ShouldBe(0, table.ToString());
         slips.ShouldBeGreaterThan(100);
         slipFalse.ShouldBe(0, table.ToString());
@@ -105,36 +114,8 @@ public class DiagnosisQualityTests(ITestOutputHelper output)
         (double, double)[] fem = [Udl(20, 5), Sum(Udl(12, 7.5), Point(60, 3, 7.5)), Point(45, 1.5, 4)];
         var rows = HandTable.Build(ei, [1, 1, 1], [false, false, false, false], fem, 8);
         var final = rows.Last().Values;
-        var csv = new StringBuilder("""
-            [info]
-            key,value
-            force unit,kN
-            length unit,m
-
-            [supports]
-            support,restraint
-            J0,pinned
-            J1,roller
-            J2,roller
-            J3,roller
-
-            [spans]
-            span,length,E [GPa],I [mm^4]
-            S1,5,200,200e6
-            S2,7.5,200,400e6
-            S3,4,200,150e6
-
-            [loads]
-            on,kind,w,P,a
-            S1,udl,20,,
-            S2,udl,12,,
-            S2,point,,60,3
-            S3,point,,45,1.5
-
-            [end-moments]
-            member,at,moment
-
-            """);
+        // Beam 4a as the table-audit tests write it, then the author's claims and table.
+        var csv = new StringBuilder(WorkingTableAuditTests.Beam).Append("[end-moments]\nmember,at,moment\n");
         string[] ids = ["S1", "S2", "S3"];
         for (int i = 0; i < 3; i++)
             csv.Append(CultureInfo.InvariantCulture, $"{ids[i]},start,{final[2 * i]:0.00}\n{ids[i]},end,{final[(2 * i) + 1]:0.00}\n");

@@ -17,7 +17,7 @@ public class WorkingTableAuditTests
     private static readonly double[] L = [5, 7.5, 4];
     private static readonly (double, double)[] Fem = [Udl(20, 5), Sum(Udl(12, 7.5), Point(60, 3, 7.5)), Point(45, 1.5, 4)];
 
-    private const string Beam = """
+    internal const string Beam = """
         [info]
         key,value
         force unit,kN
@@ -224,5 +224,22 @@ public class OverhangTableTests
         var audit = review.Cases[0].Audit.ShouldNotBeNull();
         audit.First.ShouldBeNull($"first wrong cell: {audit.First}");
         review.Verdict.ShouldBe(Verdict.Concur, string.Join("\n", review.Comments.Select(c => $"{c.Id}: {c.Text}")));
+    }
+
+    [Theory]
+    [InlineData("pinned", false)]
+    [InlineData("pinned", true)]
+    public void ReferenceWorking_FollowsTheAuthorsMethod_AndGivesTheOverhangNoDistributedMoment(string restraintA, bool modified)
+    {
+        var review = Reviewing.Of(Csv(restraintA, modified));
+        var working = ReferenceWorking.Compute(review.Submission, review).Cases.ShouldHaveSingleItem();
+        working.Method.ShouldBe((modified ? "modified stiffness 3EI/L at pinned far ends" : "plain stiffness 4EI/L") + ", as in the author's table");
+        var table = working.Result.ShouldNotBeNull().NoSway;
+        var df = table.Rows.First(r => r.Step == CrossCheck.Analysis.DistributionStep.DistributionFactor);
+        int cdAtC = table.Columns.ToList().IndexOf(("CD", CrossCheck.Model.MemberEnd.Start));
+        (df.Values[cdAtC] ?? 0).ShouldBe(0, "the overhang takes no distributed moment");
+        // Root of the overhang: w·a²/2 = 36 kN·m hogging, −36 kN·m clockwise on CD at C (statics, common practice).
+        working.Final[cdAtC].ShouldBe(-36000, 1);
+        working.Result.Sway.ShouldBeEmpty("an overhang's tip needs no sway case");
     }
 }
