@@ -67,6 +67,9 @@ public static class ReviewProfile
                 Lap("diagnosis: factorisation");
                 _ = x.Evidence.Adjoint;
                 Lap("diagnosis: adjoint");
+                var one = x.Case.Loads[0];
+                for (int k = 0; k < 10; k++) _ = x.LoadEffect([one]);
+                Lap("diagnosis: 10 single-load effects");
                 foreach (var family in Diagnoser.Families)
                 {
                     int n;

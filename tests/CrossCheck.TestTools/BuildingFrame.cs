@@ -19,6 +19,8 @@ public enum BuildingMistake
     LoadMoved,
     /// <summary>One claim of case G off by 30 % of the case's peak moment: a wrong figure that is no recognisable mistake.</summary>
     WrongClaim,
+    /// <summary>Every claim of case G off by 5 to 30 % of the case's peak moment, either way: the worst case for the diagnosis.</summary>
+    EveryClaimWrong,
 }
 
 /// <summary>
@@ -126,6 +128,14 @@ public static class BuildingFrame
                 rows[k] = r with { Moment = Math.Round(r.Moment + (0.3 * peak), 2) };
             }
             planted = $"the claim for {r.Member} at {r.At} in case G written {rows[k].Moment.ToString("0.00", inv)} for {r.Moment.ToString("0.00", inv)}";
+        }
+        if (mistake == BuildingMistake.EveryClaimWrong)
+        {
+            double peak = rows.Where(r => r.Case == "G").Max(r => Math.Abs(r.Moment));
+            for (int k = 0; k < rows.Count; k++)
+                if (rows[k].Case == "G")
+                    rows[k] = rows[k] with { Moment = Math.Round(rows[k].Moment + (peak * (0.05 + (0.25 * rnd.NextDouble())) * (rnd.Next(2) == 0 ? -1 : 1)), 2) };
+            planted = "every claim of case G off by 5 to 30 % of its peak moment";
         }
         var claims = new StringBuilder("\n[end-moments]\ncase,member,at,moment [kN·m]\n");
         foreach (var r in rows) claims.Append(inv, $"{r.Case},{r.Member},{r.At},{r.Moment:0.00}\n");

@@ -14,7 +14,7 @@ using CrossCheck.TestTools;
 //   register-write REGISTER SUBMISSION N TAG    record N reviews as N rounds of reference TAG
 //   building FILE MEMBERS|STOREYSxBAYS [MISTAKE] [SEED]
 //                                               write a multi-storey frame with one planted mistake (MISTAKE: none,
-//                                               fem (default), slip, moved, wrong; MEMBERS: 300, 1000 or 5000)
+//                                               fem (default), slip, moved, wrong, all-wrong; MEMBERS: 300, 1000 or 5000)
 var inv = CultureInfo.InvariantCulture;
 if (args.Length == 0)
 {
@@ -65,7 +65,8 @@ switch (args[0])
             "slip" => BuildingMistake.CopyingSlip,
             "moved" => BuildingMistake.LoadMoved,
             "wrong" => BuildingMistake.WrongClaim,
-            var other => throw new ArgumentException($"unknown mistake {other}: none, fem, slip, moved, wrong"),
+            "all-wrong" => BuildingMistake.EveryClaimWrong,
+            var other => throw new ArgumentException($"unknown mistake {other}: none, fem, slip, moved, wrong, all-wrong"),
         };
         string planted = BuildingFrame.Write(args[1], storeys, bays, mistake, args.Length > 4 ? int.Parse(args[4], inv) : 1);
         Console.WriteLine($"{args[1]}: {storeys} storeys x {bays} bays, {storeys * ((2 * bays) + 1)} members; planted: {planted}");

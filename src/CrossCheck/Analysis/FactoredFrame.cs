@@ -94,23 +94,55 @@ internal sealed class FactoredFrame
 
     /// <summary>Clockwise end moments at <paramref name="ends"/> from joint displacements and the case's member loads.</summary>
     /// <param name="replaced">An element to use in place of the model's own (a member altered by a hypothesis), or null.</param>
-    public double[] Moments(double[] d, CaseLoads local, IReadOnlyList<EndRef> ends, MemberElement? replaced = null)
+    public double[] Moments(double[] d, CaseLoads local, IReadOnlyList<EndRef> ends, MemberElement? replaced = null) =>
+        Moments(d, i => local.Fixed[i], ends, replaced);
+
+    private double[] Moments(double[] d, Func<int, double[]?> fixedOf, IReadOnlyList<EndRef> ends, MemberElement? replaced)
     {
         var result = new double[ends.Count];
         int last = -1;
-        double[] f = [];
+        double start = 0, endMoment = 0;
         for (int i = 0; i < ends.Count; i++)
         {
             var (element, end) = ends[i];
             if (element != last)
             {
                 var e = replaced is not null && replaced.Member.Id == Frame.Elements[element].Member.Id ? replaced : Frame.Elements[element];
-                f = FrameRecovery.EndForces(e, d, local.Fixed[element], out _);
+                (start, endMoment) = EndMoments(e, d, fixedOf(element));
                 last = element;
             }
-            result[i] = end == MemberEnd.Start ? -f[2] : -f[5];
+            result[i] = end == MemberEnd.Start ? start : endMoment;
         }
         return result;
+    }
+
+    private readonly double[] _local = new double[6];
+    private static readonly double[] NoFixed = new double[6];
+
+    /// <summary>
+    /// The clockwise end moments of one member, as <see cref="FrameRecovery.EndForces"/> gives them (the same arithmetic
+    /// in the same order), without its allocations: the search asks for thousands.
+    /// </summary>
+    internal (double Start, double End) EndMoments(MemberElement e, double[] d, double[]? fixedLocal)
+    {
+        var dofs = e.Dofs;
+        double c = e.Cos, s = e.Sin;
+        var dl = _local;
+        dl[0] = (c * d[dofs[0]]) + (s * d[dofs[1]]);
+        dl[1] = (-s * d[dofs[0]]) + (c * d[dofs[1]]);
+        dl[2] = d[dofs[2]];
+        dl[3] = (c * d[dofs[3]]) + (s * d[dofs[4]]);
+        dl[4] = (-s * d[dofs[3]]) + (c * d[dofs[4]]);
+        dl[5] = d[dofs[5]];
+        var f = fixedLocal ?? NoFixed;
+        ElementMatrices.RecoverReleased(e.LocalK, f, e.Released, dl);
+        double m1 = f[2], m2 = f[5];
+        for (int b = 0; b < 6; b++)
+        {
+            m1 += e.LocalK[2, b] * dl[b];
+            m2 += e.LocalK[5, b] * dl[b];
+        }
+        return (-m1, -m2);
     }
 
     /// <summary>
@@ -119,10 +151,18 @@ internal sealed class FactoredFrame
     /// </summary>
     public double[] LoadEffect(IReadOnlyList<Load> loads, IReadOnlyList<EndRef> ends)
     {
-        var loadCase = new LoadCase("·", loads);
-        var local = Local(loadCase);
-        var d = Expand(Solve(ReducedLoad(loadCase, local, movements: false)), movements: false);
-        return Moments(d, local, ends);
+        // The loads' joint forces and fixed-end actions gathered where they act, not over the whole structure.
+        var f = new double[Frame.DofCount];
+        var fixedLocal = new Dictionary<int, double[]>();
+        foreach (var load in loads)
+        {
+            var (actions, element) = Scatter(load, (dof, v) => f[dof] += v);
+            if (actions is null) continue;
+            if (fixedLocal.TryGetValue(element, out var sum)) for (int a = 0; a < 6; a++) sum[a] += actions[a];
+            else fixedLocal[element] = actions;
+        }
+        var d = _still.Expand(Solve(_still.Reduce(f)));
+        return Moments(d, i => fixedLocal.GetValueOrDefault(i), ends, null);
     }
 
     /// <summary>
@@ -229,8 +269,8 @@ internal sealed class Adjoint
         var (fixedLocal, element) = _frame.Scatter(load, (dof, v) => sum += _w[dof] * v);
         if (element >= 0 && _weights.TryGetValue(element, out var ws))
         {
-            var f = FrameRecovery.EndForces(_frame.Frame.Elements[element], _frame.Still, fixedLocal, out _);
-            sum += (ws.Start * -f[2]) + (ws.End * -f[5]);
+            var (start, end) = _frame.EndMoments(_frame.Frame.Elements[element], _frame.Still, fixedLocal);
+            sum += (ws.Start * start) + (ws.End * end);
         }
         return sum;
     }

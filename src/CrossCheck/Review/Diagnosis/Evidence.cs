@@ -108,14 +108,6 @@ internal sealed class Evidence
         }
     }
 
-    /// <summary>Whether a load hypothesis changing the claims by the effect of <paramref name="added"/> minus that of <paramref name="removed"/> can pass.</summary>
-    public bool MayExplain(IEnumerable<Load> added, IEnumerable<Load> removed)
-    {
-        if (Adjoint is not { } a) return true;
-        double overlap = added.Sum(a.Of) - removed.Sum(a.Of);
-        return MayExplain(overlap);
-    }
-
     /// <summary>
     /// Members whose ends or whose neighbours' ends differ (a neighbour shares a joint), at most
     /// <see cref="MaxLocalCandidates"/>, those with the largest differences first; every member in the exhaustive search.

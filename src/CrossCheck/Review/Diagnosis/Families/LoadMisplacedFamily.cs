@@ -22,9 +22,12 @@ internal sealed class LoadMisplacedFamily : IHypothesisFamily
         if (loads.Count == 0 && foreign.Count == 0) yield break;
         var alone = new Dictionary<int, double[]>();
         double[] Alone(int i) => alone.TryGetValue(i, out var known) ? known : alone[i] = x.LoadEffect([loads[i]]);
+        // The overlap of each load's own effect with the differences, once per load (a moved load needs it eight times).
+        var adjoint = x.Evidence.Adjoint;
+        var overlap = adjoint is null ? null : loads.Select(adjoint.Of).ToArray();
         for (int i = 0; i < loads.Count; i++)
         {
-            if (!x.Evidence.MayExplain([], [loads[i]])) continue;
+            if (overlap is not null && !x.Evidence.MayExplain(-overlap[i])) continue;
             var effect = Alone(i);
             yield return new Hypothesis(CauseCode.LoadMisplaced, 3, x.Recomputed.Zip(effect, (a, b) => a - b).ToArray(),
                 $"The claims leave out the {x.LoadWords(loads[i])}.")
@@ -33,7 +36,7 @@ internal sealed class LoadMisplacedFamily : IHypothesisFamily
         foreach (var (i, to) in moved)
         {
             var there = ((MemberLoad)loads[i]) with { Member = to };
-            if (!x.Evidence.MayExplain([there], [loads[i]])) continue;
+            if (adjoint is not null && !x.Evidence.MayExplain(adjoint.Of(there) - overlap![i])) continue;
             var effect = Alone(i);
             var thereEffect = x.LoadEffect([there]);
             yield return new Hypothesis(CauseCode.LoadMisplaced, 4, x.Recomputed.Select((v, k) => v - effect[k] + thereEffect[k]).ToArray(),
@@ -42,7 +45,7 @@ internal sealed class LoadMisplacedFamily : IHypothesisFamily
         }
         foreach (var load in foreign)
         {
-            if (!x.Evidence.MayExplain([load], [])) continue;
+            if (adjoint is not null && !x.Evidence.MayExplain(adjoint.Of(load))) continue;
             var extra = x.LoadEffect([load]);
             yield return new Hypothesis(CauseCode.LoadMisplaced, 4, x.Recomputed.Zip(extra, (a, b) => a + b).ToArray(),
                 $"The claims include the {x.LoadWords(load)} of case {load.Case}, which does not belong to case {x.Case.Id}.")
