@@ -21,6 +21,16 @@ public static class Program
             ScreenStagesRun.Run(args[1], args.Length > 2 ? int.Parse(args[2], System.Globalization.CultureInfo.InvariantCulture) : 3);
             return;
         }
+        if (args.Length > 1 && args[0] == "review-profile")
+        {
+            ReviewProfile.Run(args[1], args.Length > 2 ? int.Parse(args[2], System.Globalization.CultureInfo.InvariantCulture) : 2);
+            return;
+        }
+        if (args.Length > 1 && args[0] == "hypotheses")
+        {
+            HypothesisCount.Run(args[1], args.Length > 2 && args[2] == "exhaustive");
+            return;
+        }
         if (args.Length > 1 && args[0] == "profile-pdf") { ProfilePdf.Run(args[1]); return; }
         if (args.Length > 1 && args[0] == "profile") { Profile.Run(int.Parse(args[1], System.Globalization.CultureInfo.InvariantCulture)); return; }
         BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);

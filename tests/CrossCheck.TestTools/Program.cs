@@ -15,10 +15,13 @@ using CrossCheck.TestTools;
 //   register-stats REGISTER                      reviews, references, rounds, duplicates and check problems (for the benchmark)
 // REGISTER is a file path or a PostgreSQL URI or connection string.
 //   hostile CLI_DLL [SEED]                      make a fresh set of hostile inputs, run each through the CLI, print the counts
+//   building FILE MEMBERS|STOREYSxBAYS [MISTAKE] [SEED]
+//                                               write a multi-storey frame with one planted mistake (MISTAKE: none,
+//                                               fem (default), slip, moved, wrong, all-wrong; MEMBERS: 300, 1000 or 5000)
 var inv = CultureInfo.InvariantCulture;
 if (args.Length == 0)
 {
-    Console.Error.WriteLine("usage: generate DIR N [SEED] | time-screen N [SEED] | register-pause REGISTER SUBMISSION | register-write REGISTER SUBMISSION N TAG | register-stats REGISTER");
+    Console.Error.WriteLine("usage: generate DIR N [SEED] | time-screen N [SEED] | register-pause REGISTER SUBMISSION | register-write REGISTER SUBMISSION N TAG | register-stats REGISTER | hostile CLI_DLL [SEED] | building FILE MEMBERS [MISTAKE] [SEED]");
     return 2;
 }
 switch (args[0])
@@ -60,6 +63,24 @@ switch (args[0])
     case "hostile" when args.Length >= 2:
         return HostileReport.Run(Path.GetFullPath(args[1]), args.Length > 2 ? int.Parse(args[2], inv) : 1,
             Path.GetFullPath(Path.Combine(AppContext.BaseDirectory, "..", "..", "..", "..", "..", "fixtures", "demo", "shed-frame")));
+    case "building" when args.Length >= 3:
+    {
+        var size = args[2].Split('x');
+        var (storeys, bays) = size.Length == 2 ? (int.Parse(size[0], inv), int.Parse(size[1], inv)) : BuildingFrame.ForMembers(int.Parse(args[2], inv));
+        var mistake = (args.Length > 3 ? args[3] : "fem") switch
+        {
+            "none" => BuildingMistake.None,
+            "fem" => BuildingMistake.FixedEndMoment,
+            "slip" => BuildingMistake.CopyingSlip,
+            "moved" => BuildingMistake.LoadMoved,
+            "wrong" => BuildingMistake.WrongClaim,
+            "all-wrong" => BuildingMistake.EveryClaimWrong,
+            var other => throw new ArgumentException($"unknown mistake {other}: none, fem, slip, moved, wrong, all-wrong"),
+        };
+        string planted = BuildingFrame.Write(args[1], storeys, bays, mistake, args.Length > 4 ? int.Parse(args[4], inv) : 1);
+        Console.WriteLine($"{args[1]}: {storeys} storeys x {bays} bays, {storeys * ((2 * bays) + 1)} members; planted: {planted}");
+        return 0;
+    }
     default:
         Console.Error.WriteLine($"unknown or incomplete command: {string.Join(' ', args)}");
         return 2;

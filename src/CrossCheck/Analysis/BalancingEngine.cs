@@ -42,7 +42,9 @@ internal static class BalancingEngine
     }
 
     /// <summary>One distribution from the fixed-end moments <paramref name="fem"/> with couples <paramref name="applied"/> at the joints.</summary>
-    public static DistributionTable Distribute(DistributionFrame frame, double[] fem, double[] applied, string title, out int cycles, out bool converged, int maxCycles = MaxCycles)
+    /// <param name="record">Write every row down; without it the table holds the final row only (a large frame's many cycles are not kept).</param>
+    public static DistributionTable Distribute(DistributionFrame frame, double[] fem, double[] applied, string title, out int cycles, out bool converged,
+        int maxCycles = MaxCycles, bool record = true)
     {
         var o = frame.Options;
         var columns = frame.Columns;
@@ -57,7 +59,7 @@ internal static class BalancingEngine
         var sum = new double[jointCount];
         for (int i = 0; i < n; i++) if (balanced[jointOf[i]]) sum[jointOf[i]] += stiffness[i];
         for (int i = 0; i < n; i++) df[i] = balanced[jointOf[i]] && sum[jointOf[i]] > 0 ? stiffness[i] / sum[jointOf[i]] : 0;
-        rows.Add(new DistributionRow(DistributionStep.DistributionFactor, 0, df));
+        if (record) rows.Add(new DistributionRow(DistributionStep.DistributionFactor, 0, df));
         var current = (double[])fem.Clone();
         // Modified stiffness: release each pin once, carrying half of its release to the near end.
         for (int i = 0; i < n; i++)
@@ -70,7 +72,7 @@ internal static class BalancingEngine
             current[far] = target;
             current[i] += release / 2;
         }
-        rows.Add(new DistributionRow(DistributionStep.FixedEndMoment, 0, current.Select(v => (double?)v).ToArray()));
+        if (record) rows.Add(new DistributionRow(DistributionStep.FixedEndMoment, 0, current.Select(v => (double?)v).ToArray()));
         double scale = Math.Max(current.Select(Math.Abs).DefaultIfEmpty(0).Max(), applied.Select(Math.Abs).DefaultIfEmpty(0).Max());
         double tol = 1e-12 * Math.Max(scale, 1e-300);
         cycles = 0;
@@ -94,7 +96,7 @@ internal static class BalancingEngine
             bool stopHere = o.Cycles is int k && cycles >= k;
             if (stopHere && (!o.FinalBalance || !lastWasCarry)) break;
             for (int i = 0; i < n; i++) current[i] += bal[i];
-            rows.Add(new DistributionRow(DistributionStep.Balance, cycles + 1, bal.Select(v => (double?)v).ToArray()));
+            if (record) rows.Add(new DistributionRow(DistributionStep.Balance, cycles + 1, bal.Select(v => (double?)v).ToArray()));
             if (stopHere) break;
             // Carry over to far ends.
             var co = new double[n];
@@ -107,7 +109,7 @@ internal static class BalancingEngine
             }
             for (int i = 0; i < n; i++) { current[i] += co[i]; maxCo = Math.Max(maxCo, Math.Abs(co[i])); }
             cycles++;
-            rows.Add(new DistributionRow(DistributionStep.CarryOver, cycles, co.Select(v => (double?)v).ToArray()));
+            if (record) rows.Add(new DistributionRow(DistributionStep.CarryOver, cycles, co.Select(v => (double?)v).ToArray()));
             lastWasCarry = true;
             if (maxCo <= tol) { converged = true; break; }
             if (o.StopWhenCarryOversBelow is double limit && maxCo < limit)
@@ -120,7 +122,7 @@ internal static class BalancingEngine
                     for (int i = 0; i < n; i++)
                         if (balanced[jointOf[i]]) fb[i] = -(df[i] ?? 0) * (ub[jointOf[i]] - applied[jointOf[i]]);
                     for (int i = 0; i < n; i++) current[i] += fb[i];
-                    rows.Add(new DistributionRow(DistributionStep.Balance, cycles + 1, fb.Select(v => (double?)v).ToArray()));
+                    if (record) rows.Add(new DistributionRow(DistributionStep.Balance, cycles + 1, fb.Select(v => (double?)v).ToArray()));
                 }
                 break;
             }

@@ -27,18 +27,7 @@ internal static class FrameRecovery
         for (int i = 0; i < elements.Length; i++)
         {
             var e = elements[i];
-            var dofs = e.Dofs;
-            double[] dg = [d[dofs[0]], d[dofs[1]], d[dofs[2]], d[dofs[3]], d[dofs[4]], d[dofs[5]]];
-            var dl = ElementMatrices.ToLocal(dg, e.Cos, e.Sin);
-            var fixedLocal = local.Fixed[i] ?? new double[6];
-            ElementMatrices.RecoverReleased(e.LocalK, fixedLocal, e.Released, dl);
-            var f = new double[6];
-            for (int a = 0; a < 6; a++)
-            {
-                double s = fixedLocal[a];
-                for (int b = 0; b < 6; b++) s += e.LocalK[a, b] * dl[b];
-                f[a] = s;
-            }
+            var f = EndForces(e, d, local.Fixed[i], out var dl);
             endForces[i] = f;
             localDisp[i] = dl;
             var g = ElementMatrices.ToGlobal(f, e.Cos, e.Sin);
@@ -92,6 +81,28 @@ internal static class FrameRecovery
             }
         }
         return new RecoveredCase(new CaseResult(loadCase.Id, members, displacements, reactions), reactionVec, endForces, reactions);
+    }
+
+    /// <summary>
+    /// Local end forces of one member (N1, V1, M1, N2, V2, M2, moments anticlockwise) from the joint displacements
+    /// <paramref name="d"/> and the member's fixed-end actions: the rotations of released ends recovered first.
+    /// </summary>
+    public static double[] EndForces(MemberElement e, double[] d, double[]? fixedLocal, out double[] localDisplacements)
+    {
+        var dofs = e.Dofs;
+        double[] dg = [d[dofs[0]], d[dofs[1]], d[dofs[2]], d[dofs[3]], d[dofs[4]], d[dofs[5]]];
+        var dl = ElementMatrices.ToLocal(dg, e.Cos, e.Sin);
+        fixedLocal ??= new double[6];
+        ElementMatrices.RecoverReleased(e.LocalK, fixedLocal, e.Released, dl);
+        var f = new double[6];
+        for (int a = 0; a < 6; a++)
+        {
+            double s = fixedLocal[a];
+            for (int b = 0; b < 6; b++) s += e.LocalK[a, b] * dl[b];
+            f[a] = s;
+        }
+        localDisplacements = dl;
+        return f;
     }
 }
 

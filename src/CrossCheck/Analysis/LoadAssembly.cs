@@ -38,7 +38,12 @@ internal static class LoadAssembly
 
     /// <summary>The load vector F − Σ Tᵀ·f_fixed reduced onto the independent unknowns: Tᵀ(F − K·d0).</summary>
     /// <exception cref="StructureException">A load acts on a joint that does not exist.</exception>
-    public static double[] ReducedLoad(FrameLayout frame, Transformation t, LoadCase loadCase, CaseLoads local)
+    public static double[] ReducedLoad(FrameLayout frame, Transformation t, LoadCase loadCase, CaseLoads local) =>
+        t.Reduce(JointVector(frame, t, loadCase, local));
+
+    /// <summary>The load vector F − Σ f_fixed − K·d0 at every joint DOF, before reduction.</summary>
+    /// <exception cref="StructureException">A load acts on a joint that does not exist.</exception>
+    public static double[] JointVector(FrameLayout frame, Transformation t, LoadCase loadCase, CaseLoads local)
     {
         var f = new double[frame.DofCount];
         foreach (var jl in loadCase.JointLoads)
@@ -81,6 +86,6 @@ internal static class LoadAssembly
                 }
             }
         }
-        return t.Reduce(f);
+        return f;
     }
 }

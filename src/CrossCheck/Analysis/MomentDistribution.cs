@@ -17,7 +17,13 @@ namespace CrossCheck.Analysis;
 public static class MomentDistribution
 {
     /// <exception cref="NotSupportedException">Axial behaviour is elastic, or a sway case cannot be formed.</exception>
-    public static DistributionResult Run(StructureModel model, LoadCase loadCase, DistributionOptions? options = null)
+    public static DistributionResult Run(StructureModel model, LoadCase loadCase, DistributionOptions? options = null) => Run(model, loadCase, options, record: true);
+
+    /// <summary>The same distribution with its tables holding only their final rows: the answer of a large frame without its many rows.</summary>
+    /// <exception cref="NotSupportedException">Axial behaviour is elastic, or a sway case cannot be formed.</exception>
+    internal static DistributionResult Answer(StructureModel model, LoadCase loadCase, DistributionOptions options) => Run(model, loadCase, options, record: false);
+
+    private static DistributionResult Run(StructureModel model, LoadCase loadCase, DistributionOptions? options, bool record)
     {
         ArgumentNullException.ThrowIfNull(model);
         ArgumentNullException.ThrowIfNull(loadCase);
@@ -28,7 +34,7 @@ public static class MomentDistribution
 
         // No-sway stage: loads, support movements, applied couples; translations held.
         var fem = DistributionLoads.FixedEndMoments(frame, loadCase);
-        var noSway = BalancingEngine.Distribute(frame, fem, DistributionLoads.AppliedCouples(frame, loadCase), "no sway", out int cycles, out bool converged);
+        var noSway = BalancingEngine.Distribute(frame, fem, DistributionLoads.AppliedCouples(frame, loadCase), "no sway", out int cycles, out bool converged, record: record);
         var final = noSway.Final.Select(v => v ?? 0).ToArray();
 
         var sway = new List<SwayCorrection>();
@@ -40,7 +46,7 @@ public static class MomentDistribution
             {
                 var swayFem = SwayEquations.FixedEndMoments(frame, mode, SwayEquations.Scale(frame, mode));
                 var (joint, dir) = frame.Kinematics.Describe(mode);
-                var table = BalancingEngine.Distribute(frame, swayFem, new double[frame.JointCount], $"sway of joint {joint} in {dir}", out int c2, out bool conv2);
+                var table = BalancingEngine.Distribute(frame, swayFem, new double[frame.JointCount], $"sway of joint {joint} in {dir}", out int c2, out bool conv2, record: record);
                 cycles = Math.Max(cycles, c2);
                 converged &= conv2;
                 tables.Add(table);

@@ -9,7 +9,14 @@ public sealed class SkylineSolver : ILinearSolver
 {
     public static SkylineSolver Instance { get; } = new();
 
-    public ILinearFactor Factor(SparseSymmetricMatrix matrix)
+    public ILinearFactor Factor(SparseSymmetricMatrix matrix) => Decompose(matrix, dropBelow: null);
+
+    /// <summary>
+    /// The LDLᵀ factor of <paramref name="matrix"/>. With <paramref name="dropBelow"/>, a semi-definite matrix is accepted:
+    /// a scaled pivot at or below it is taken as zero (its column of L too), so that the factor's solves give a
+    /// generalised inverse and its <see cref="Factorised.Rank"/> is the numerical rank.
+    /// </summary>
+    internal static Factorised Decompose(SparseSymmetricMatrix matrix, double? dropBelow)
     {
         ArgumentNullException.ThrowIfNull(matrix);
         int n = matrix.Size;
@@ -17,6 +24,8 @@ public sealed class SkylineSolver : ILinearSolver
         for (int i = 0; i < n; i++)
         {
             double d = matrix.Diagonal(i);
+            // A semi-definite matrix may have an unknown nothing touches: its pivot is dropped.
+            if (!(d > 0) && dropBelow is not null) { scale[i] = 1; continue; }
             if (!(d > 0)) throw new SingularMatrixException($"Zero or negative stiffness on unknown {i}.", i);
             scale[i] = 1 / Math.Sqrt(d);
         }
@@ -49,6 +58,7 @@ public sealed class SkylineSolver : ILinearSolver
         // Row-oriented LDLᵀ (Crout): for row i, u_ij = L_ij·D_j first, then L_ij = u_ij / D_j.
         var diag = new double[n];
         double minRatio = double.PositiveInfinity;
+        int rank = 0;
         for (int i = 0; i < n; i++)
         {
             long ri = start[i];
@@ -69,24 +79,35 @@ public sealed class SkylineSolver : ILinearSolver
             {
                 long p = ri + (j - fi);
                 double u = v[p];
-                double l = u / diag[j];
+                double l = diag[j] == 0 ? 0 : u / diag[j]; // a dropped pivot's column of L is zero
                 v[p] = l;
                 di -= u * l;
             }
-            diag[i] = di;
             v[ri + (i - fi)] = 1;
             double ratio = di / a; // the scaled diagonal is 1, so this is the pivot ratio
+            if (dropBelow is double drop)
+            {
+                diag[i] = ratio > drop ? di : 0;
+                if (ratio > drop) rank++;
+                continue;
+            }
+            diag[i] = di;
             if (!(ratio > DenseCholeskySolver.SingularPivotRatio))
                 throw new SingularMatrixException(di <= 0 && ratio < -1e-9 ? "The stiffness matrix is not positive definite." : "The stiffness matrix is singular.", perm[i]);
             minRatio = Math.Min(minRatio, ratio);
+            rank++;
         }
-        return new Factorised(perm, first, start, v, diag, scale, n == 0 ? 1 : minRatio);
+        return new Factorised(perm, first, start, v, diag, scale, n == 0 || dropBelow is not null ? 1 : minRatio, rank);
     }
 
-    private sealed class Factorised(int[] perm, int[] first, long[] start, double[] v, double[] diag, double[] scale, double minRatio) : ILinearFactor
+    /// <summary>An LDLᵀ factor in skyline storage, on the Jacobi-scaled matrix in reverse Cuthill–McKee order.</summary>
+    internal sealed class Factorised(int[] perm, int[] first, long[] start, double[] v, double[] diag, double[] scale, double minRatio, int rank) : ILinearFactor
     {
         public int Size => perm.Length;
         public double MinPivotRatio => minRatio;
+
+        /// <summary>Pivots kept (all of them for a definite matrix).</summary>
+        public int Rank => rank;
 
         public double[] Solve(double[] rhs)
         {
@@ -101,7 +122,7 @@ public sealed class SkylineSolver : ILinearSolver
                 for (int j = first[i]; j < i; j++, p++) s -= v[p] * y[j];
                 y[i] = s;
             }
-            for (int i = 0; i < n; i++) y[i] /= diag[i];
+            for (int i = 0; i < n; i++) y[i] = diag[i] == 0 ? 0 : y[i] / diag[i];
             // Lᵀ·x = z (column sweep over rows).
             for (int i = n - 1; i >= 0; i--)
             {
@@ -112,6 +133,68 @@ public sealed class SkylineSolver : ILinearSolver
             var x = new double[n];
             for (int k = 0; k < n; k++) x[perm[k]] = y[k] * scale[perm[k]];
             return x;
+        }
+
+        /// <summary>
+        /// The entries of the (generalised) inverse Z = L⁻ᵀ·D⁺·L⁻¹ within the profile, by the Takahashi recurrences
+        /// (Z_ii = 1/d_i − Σ_k L_ki·Z_ki, Z_ij = −Σ_k L_ki·Z_kj over the rows k &gt; i of column i): as costly as the factorisation.
+        /// <see cref="Inverse"/> reads them.
+        /// </summary>
+        public double[] SelectedInverse()
+        {
+            int n = perm.Length;
+            // Rows of each column within the profile.
+            var count = new int[n + 1];
+            for (int k = 0; k < n; k++) for (int i = first[k]; i < k; i++) count[i + 1]++;
+            for (int i = 0; i < n; i++) count[i + 1] += count[i];
+            var rows = new int[count[n]];
+            var fill = (int[])count.Clone();
+            for (int k = 0; k < n; k++) for (int i = first[k]; i < k; i++) rows[fill[i]++] = k;
+            var z = new double[v.Length];
+            for (int i = n - 1; i >= 0; i--)
+            {
+                // Z_ji for the rows j > i of column i (stored in row j), then Z_ii.
+                for (int pj = count[i]; pj < count[i + 1]; pj++)
+                {
+                    int j = rows[pj];
+                    double s = 0;
+                    for (int pk = count[i]; pk < count[i + 1]; pk++)
+                    {
+                        int k = rows[pk];
+                        double lki = v[start[k] + (i - first[k])];
+                        if (lki != 0) s -= lki * (k >= j ? z[start[k] + (j - first[k])] : z[start[j] + (k - first[j])]);
+                    }
+                    z[start[j] + (i - first[j])] = s;
+                }
+                double zii = diag[i] == 0 ? 0 : 1 / diag[i];
+                for (int pk = count[i]; pk < count[i + 1]; pk++)
+                {
+                    int k = rows[pk];
+                    zii -= v[start[k] + (i - first[k])] * z[start[k] + (i - first[k])];
+                }
+                z[start[i] + (i - first[i])] = zii;
+            }
+            return z;
+        }
+
+        /// <summary>Entry (a, b) of the inverse of the original (unscaled, unpermuted) matrix from <see cref="SelectedInverse"/>; both must lie in the profile.</summary>
+        public double Inverse(double[] z, int a, int b)
+        {
+            int[] inv = InversePermutation();
+            int i = inv[a], j = inv[b];
+            if (i < j) (i, j) = (j, i);
+            if (j < first[i]) throw new ArgumentOutOfRangeException(nameof(b), "The entry lies outside the profile.");
+            return z[start[i] + (j - first[i])] * scale[a] * scale[b];
+        }
+
+        private int[]? _inv;
+
+        private int[] InversePermutation()
+        {
+            if (_inv is not null) return _inv;
+            var inv = new int[perm.Length];
+            for (int k = 0; k < perm.Length; k++) inv[perm[k]] = k;
+            return _inv = inv;
         }
     }
 }

@@ -107,6 +107,9 @@ public static class MemoRenderer
         // `e` escapes a value for HTML (as `value | html.escape` does). Built in, because a memo calls it hundreds of times
         // and a function written in the template costs a scope per call; a template may still define its own.
         globals["e"] = EscapeFunction;
+        // `cell value` makes a value safe inside a Markdown table cell (`|` escaped, line breaks as spaces): a memo of a
+        // large frame calls it for every row, so it is built in too. A template may still define its own.
+        globals["cell"] = CellFunction;
         context.PushGlobal(globals);
         try
         {
@@ -123,6 +126,25 @@ public static class MemoRenderer
     }
 
     private static readonly EscapeHtml EscapeFunction = new();
+    private static readonly TableCell CellFunction = new();
+
+    /// <summary><c>cell value</c>: the value as text with <c>|</c> escaped and line breaks as spaces, for a Markdown table cell.</summary>
+    private sealed class TableCell : IScriptCustomFunction
+    {
+        public int RequiredParameterCount => 1;
+        public int ParameterCount => 1;
+        public ScriptVarParamKind VarParamKind => ScriptVarParamKind.None;
+        public Type ReturnType => typeof(string);
+        public ScriptParameterInfo GetParameterInfo(int index) => new(typeof(object), "value");
+
+        public object? Invoke(TemplateContext context, ScriptNode? callerContext, ScriptArray arguments, ScriptBlockStatement? blockStatement) =>
+            arguments.Count == 1
+                ? (context.ObjectToString(arguments[0]) ?? "").Replace("|", "\\|", StringComparison.Ordinal).Replace("\n", " ", StringComparison.Ordinal)
+                : throw new ScriptRuntimeException(callerContext?.Span ?? context.CurrentSpan, $"cell takes one value, got {arguments.Count}");
+
+        public ValueTask<object?> InvokeAsync(TemplateContext context, ScriptNode? callerContext, ScriptArray arguments, ScriptBlockStatement? blockStatement) =>
+            new(Invoke(context, callerContext, arguments, blockStatement));
+    }
 
     /// <summary><c>e value</c>: the value as text, escaped for HTML (what <c>value | html.escape</c> gives).</summary>
     private sealed class EscapeHtml : IScriptCustomFunction

@@ -24,6 +24,8 @@ public static class ReviewEngine
         options ??= ReviewOptions.Default;
         var checks = new ClaimChecks(submission, options);
         var conditioning = ConditioningFlag(submission, analysis);
+        // One diagnoser for the whole review: the cases share its factorisation of the structure.
+        var diagnoser = new Diagnosis.Diagnoser(submission, analysis, options);
         var cases = new List<CaseReview>();
         var caseIds = analysis.Cases.Select(c => c.Case).ToList();
         foreach (var id in submission.Claims.EndMoments.Select(c => c.Case).Distinct())
@@ -40,7 +42,7 @@ public static class ReviewEngine
                 review = review with { Audit = audit, Flags = [.. review.Flags, Diagnosis.WorkingTableAudit.ToFlag(audit, submission, review.AgreeTolerance)] };
             }
             if (options.Diagnose && result is not null && review.EndMoments.Any(e => e.Status is EndStatus.Discrepant or EndStatus.Minor))
-                review = review with { Causes = new Diagnosis.Diagnoser(submission, analysis, options).Diagnose(review, cancel) };
+                review = review with { Causes = diagnoser.Diagnose(review, cancel) };
             if (conditioning is not null && result is not null)
             {
                 review = review with { Flags = [.. review.Flags, conditioning] };
@@ -50,7 +52,11 @@ public static class ReviewEngine
         }
         var verdict = VerdictOf(cases);
         var comments = CommentSchedule.Build(submission, cases);
-        return new ReviewResult(submission, options, verdict, cases, comments, analysis.Notes, inputWarnings?.ToList() ?? []) { Analysis = analysis };
+        return new ReviewResult(submission, options, verdict, cases, comments, analysis.Notes, inputWarnings?.ToList() ?? [])
+        {
+            Analysis = analysis,
+            DiagnosisWork = new DiagnosisWork(diagnoser.Tried, diagnoser.Work.Solves, diagnoser.Work.Factorisations),
+        };
     }
 
     /// <summary>

@@ -21,6 +21,19 @@ public sealed record ReviewOptions(
     bool ShowWorking = false)
 {
     public static ReviewOptions Default { get; } = new();
+
+    /// <summary>How the diagnosis searches: where the evidence is (the default), or every hypothesis (to check the first against).</summary>
+    public DiagnosisSearch Search { get; init; } = DiagnosisSearch.Focused;
+}
+
+/// <summary>How far the diagnosis searches (see <c>Review.Diagnosis.Evidence</c>).</summary>
+public enum DiagnosisSearch
+{
+    /// <summary>The hypotheses the differences can support: candidates ranked by the differences of the claims they touch, within stated bounds.</summary>
+    Focused,
+
+    /// <summary>Every hypothesis of every family, formed and scored.</summary>
+    Exhaustive,
 }
 
 /// <summary>Status of one claimed (or expected) member-end moment.</summary>
@@ -250,7 +263,12 @@ public sealed record ReviewResult(
     /// <summary>CrossCheck's own moment distribution for the memo's appendix, when it was asked for (<see cref="ReviewOptions.ShowWorking"/>).</summary>
     public ReferenceWorking? Working { get; init; }
 
+    /// <summary>What the diagnosis did (for measurements; not serialised).</summary>
+    internal DiagnosisWork DiagnosisWork { get; init; } = new(0, 0, 0);
+
     public IEnumerable<EndMomentFinding> AllEndMoments => Cases.SelectMany(c => c.EndMoments);
     public IEnumerable<Flag> AllFlags => Cases.SelectMany(c => c.Flags);
 }
 
+/// <summary>What a review's diagnosis did: hypotheses scored against the claims, linear solves and factorisations (new assemblies included).</summary>
+internal sealed record DiagnosisWork(int Tried, int Solves, int Factorisations);

@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.IO.Compression;
 using System.Text;
+using CrossCheck.Import;
 using CrossCheck.Tests.Import.Pdf;
 
 namespace CrossCheck.Tests.Support;
@@ -34,10 +35,10 @@ public static class HostileInputs
                 break;
             }
             case "too-many-rows.csv":
-                File.WriteAllText(path, SampleText.With(loads: "[loads]\ncase,on,kind,w\n" + string.Concat(Enumerable.Repeat("1,AB,udl,0.01\n", 20_001))));
+                File.WriteAllText(path, SampleText.With(loads: "[loads]\ncase,on,kind,w\n" + string.Concat(Enumerable.Repeat("1,AB,udl,0.01\n", InputLimits.Default.MaxRows + 1))));
                 break;
             case "too-many-members.csv":
-                File.WriteAllText(path, Beam(301));
+                File.WriteAllText(path, Beam(InputLimits.Default.MaxMembers + 1));
                 break;
             case "too-many-cases.csv":
                 File.WriteAllText(path, SampleText.With(loads: "[loads]\ncase,on,kind,w\n" + string.Concat(Enumerable.Range(1, 51).Select(i => $"C{i},AB,udl,{i}\n"))));

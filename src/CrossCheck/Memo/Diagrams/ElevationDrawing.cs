@@ -5,23 +5,27 @@ namespace CrossCheck.Memo.Diagrams;
 /// <summary>The elevation of the structure as read: members, joints, supports, hinges and labels, with the loads of one case when given.</summary>
 internal static class ElevationDrawing
 {
-    public static string Render(StructureModel model, StructureSketch sketch, UnitText units, LoadCase? loads, string title)
+    /// <param name="dense">A structure too large to label: members, supports, hinges and loads are drawn, ids and values left to the tables.</param>
+    public static string Render(StructureModel model, StructureSketch sketch, UnitText units, LoadCase? loads, string title, bool dense = false)
     {
         var svg = new SvgCanvas();
         var placer = new LabelPlacer();
         sketch.Members(svg, DiagramStyle.Ink, DiagramStyle.MemberWeight, "cc-member");
         sketch.Supports(svg, placer, DiagramStyle.Ink, units);
         sketch.Hinges(svg, placer, DiagramStyle.Ink);
-        sketch.Joints(svg, placer, DiagramStyle.Ink, 2.6);
+        if (!dense) sketch.Joints(svg, placer, DiagramStyle.Ink, 2.6);
         LoadSketch? loadSketch = null;
         if (loads is not null)
         {
             loadSketch = new LoadSketch(sketch, model, units);
             loadSketch.Draw(svg, placer, loads);
         }
-        sketch.JointLabels(svg, placer, DiagramStyle.Ink, DiagramStyle.JointLabelSize);
-        sketch.MemberTags(svg, placer, units, loadSketch?.LoadSides);
-        loadSketch?.Labels(svg, placer);
+        if (!dense)
+        {
+            sketch.JointLabels(svg, placer, DiagramStyle.Ink, DiagramStyle.JointLabelSize);
+            sketch.MemberTags(svg, placer, units, loadSketch?.LoadSides);
+            loadSketch?.Labels(svg, placer);
+        }
         if (loads is null) Legend(svg, model);
         return svg.Render(loads is null ? "cc-figure cc-elevation" : "cc-figure cc-loads", title, margin: 12);
     }

@@ -3,14 +3,32 @@ namespace CrossCheck.Memo.Diagrams;
 /// <summary>
 /// Greedy placement of text labels: each label takes the first of its candidate positions that does not overlap a
 /// label already placed or an area marked as taken (joints, support symbols). With no free candidate the first is used.
+/// Taken areas are kept in a grid of square cells, so a candidate is tested only against the areas near it (a large
+/// frame has thousands).
 /// </summary>
 internal sealed class LabelPlacer
 {
-    private readonly List<Box> _taken = [];
+    private const double Cell = 32;
 
-    public IReadOnlyList<Box> Taken => _taken;
+    private readonly Dictionary<(int, int), List<Box>> _cells = [];
+    private readonly List<Box> _unbounded = [];
 
-    public void Block(Box b) => _taken.Add(b);
+    public void Block(Box b)
+    {
+        if (b.IsEmpty) return;
+        if (!(b.Width < 64 * Cell && b.Height < 64 * Cell && Math.Abs(b.MinX) < 1e7 && Math.Abs(b.MinY) < 1e7))
+        {
+            _unbounded.Add(b);
+            return;
+        }
+        var (x0, y0, x1, y1) = Cells(b);
+        for (int i = x0; i <= x1; i++)
+            for (int j = y0; j <= y1; j++)
+            {
+                if (!_cells.TryGetValue((i, j), out var list)) _cells[(i, j)] = list = [];
+                list.Add(b);
+            }
+    }
 
     /// <summary>Chooses a centre for a label of the given size among <paramref name="candidates"/> (in order of preference).</summary>
     public Pt Place(IEnumerable<Pt> candidates, double width, double height)
@@ -20,16 +38,34 @@ internal sealed class LabelPlacer
         {
             first ??= c;
             var box = Box.Around(c, width + 2, height);
-            if (!_taken.Any(t => t.Overlaps(box)))
+            if (!IsTaken(box))
             {
-                _taken.Add(box);
+                Block(box);
                 return c;
             }
         }
         var chosen = first ?? new Pt(0, 0);
-        _taken.Add(Box.Around(chosen, width + 2, height));
+        Block(Box.Around(chosen, width + 2, height));
         return chosen;
     }
+
+    private bool IsTaken(Box box)
+    {
+        if (box.IsEmpty) return false;
+        foreach (var t in _unbounded) if (t.Overlaps(box)) return true;
+        if (!(box.Width < 64 * Cell && box.Height < 64 * Cell && Math.Abs(box.MinX) < 1e7 && Math.Abs(box.MinY) < 1e7))
+            return _cells.Values.Any(list => list.Any(t => t.Overlaps(box)));
+        var (x0, y0, x1, y1) = Cells(box);
+        for (int i = x0; i <= x1; i++)
+            for (int j = y0; j <= y1; j++)
+                if (_cells.TryGetValue((i, j), out var list))
+                    foreach (var t in list)
+                        if (t.Overlaps(box)) return true;
+        return false;
+    }
+
+    private static (int X0, int Y0, int X1, int Y1) Cells(Box b) =>
+        ((int)Math.Floor(b.MinX / Cell), (int)Math.Floor(b.MinY / Cell), (int)Math.Floor(b.MaxX / Cell), (int)Math.Floor(b.MaxY / Cell));
 
     /// <summary>
     /// Candidates for a label that should sit just beyond <paramref name="tip"/> in direction <paramref name="outward"/>:

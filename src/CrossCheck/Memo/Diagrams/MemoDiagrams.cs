@@ -17,6 +17,13 @@ public sealed class MemoDiagrams
     /// <summary>At most this many member details per case; the memo says how many more there were.</summary>
     public const int MaxDetailsPerCase = 12;
 
+    /// <summary>
+    /// Above this many members the drawings of the whole structure are too small to label: they show the members,
+    /// supports, hinges, loads and diagrams, mark only the claims that differ, and write ids and values only at the
+    /// members whose claims differ (this many at most, the worst first). The tables give every figure.
+    /// </summary>
+    public const int MaxLabelledMembers = 150;
+
     private readonly Dictionary<string, IReadOnlyList<MemoFigure>> _case = new(StringComparer.Ordinal);
     private readonly Dictionary<string, IReadOnlyList<MemoFigure>> _details = new(StringComparer.Ordinal);
     private readonly Dictionary<string, int> _omitted = new(StringComparer.Ordinal);
@@ -42,11 +49,15 @@ public sealed class MemoDiagrams
         var model = s.Model;
         var units = new UnitText(s.Info.Units);
         var sketch = new StructureSketch(model, StructureSketch.ViewFor(model));
+        bool dense = model.Members.Count > MaxLabelledMembers;
+        string large = dense
+            ? $" The structure has {model.Members.Count.ToString(CultureInfo.InvariantCulture)} members, too many to label at this size: ids and values are left to the tables."
+            : "";
         int n = 1;
         var structure = new MemoFigure(n++, "structure",
-            ElevationDrawing.Render(model, sketch, units, null, "The structure as read"),
-            "The structure as read, to scale: joints (bold), members with their lengths, supports and member-end hinges. " +
-            "Check it against the calculation's own sketch.");
+            ElevationDrawing.Render(model, sketch, units, null, "The structure as read", dense),
+            (dense ? "The structure as read, to scale: members, supports and member-end hinges." : "The structure as read, to scale: joints (bold), members with their lengths, supports and member-end hinges.") +
+            " Check it against the calculation's own sketch." + large);
         var result = new MemoDiagrams(structure);
         string mu = s.Info.Units.Moment.Symbol;
         bool sagging = s.Info.SignConvention == SignConvention.Sagging;
@@ -60,17 +71,19 @@ public sealed class MemoDiagrams
             if (loads is not null)
             {
                 figures.Add(new MemoFigure(n++, "loads",
-                    ElevationDrawing.Render(model, sketch, units, loads, $"Loads of case {c.Case}"),
-                    $"Load case {c.Case}: the loads as read. Arrows point the way each load acts; the arrows of a distributed load grow with its intensity."));
+                    ElevationDrawing.Render(model, sketch, units, loads, $"Loads of case {c.Case}", dense),
+                    $"Load case {c.Case}: the loads as read. Arrows point the way each load acts; the arrows of a distributed load grow with its intensity." + large));
             }
-            var layout = MomentLayout.Build(model, caseResult, c, sketch, PeakPixelsFor(sketch, model));
+            var layout = MomentLayout.Build(model, caseResult, c, sketch, PeakPixelsFor(sketch, model), coarse: dense);
             int discrepant = c.EndMoments.Count(e => e.Status == EndStatus.Discrepant && e.End is not null);
             int minor = c.EndMoments.Count(e => e.Status == EndStatus.Minor && e.End is not null);
             figures.Add(new MemoFigure(n++, "moments",
-                MomentDrawing.Render(model, sketch, layout, units, c.Case),
+                MomentDrawing.Render(model, sketch, layout, units, c.Case, dense),
                 $"Load case {c.Case}: recomputed bending moment [{mu}], drawn on the tension side of each member at one scale for the case; " +
                 "values are magnitudes at the member ends and at the largest span moments. Each claimed end moment is marked where it would plot " +
-                $"(diamond: agrees; triangle: minor difference; ringed cross: discrepant; square: not claimed). {Count(discrepant, "discrepant end")}, {Count(minor, "minor difference")}."));
+                $"(diamond: agrees; triangle: minor difference; ringed cross: discrepant; square: not claimed). {Count(discrepant, "discrepant end")}, {Count(minor, "minor difference")}." +
+                (dense ? $" The structure has {model.Members.Count.ToString(CultureInfo.InvariantCulture)} members: only the claims that differ are marked, and values are written at the " +
+                         $"members whose claims differ (at most {MaxLabelledMembers.ToString(CultureInfo.InvariantCulture)}, the worst first)." : "")));
             result._case[c.Case] = figures;
 
             var flagged = c.EndMoments

@@ -14,11 +14,13 @@ internal static class MomentDrawing
 
     public const string DetailClass = "cc-detail-bmd";
 
-    public static string Render(StructureModel model, StructureSketch sketch, MomentLayout layout, UnitText units, string caseId)
+    /// <param name="dense">A structure too large to label throughout: agreeing claims are not marked, and ids and values are written only at the
+    /// members whose claims differ (at most <see cref="MemoDiagrams.MaxLabelledMembers"/>, the worst first).</param>
+    public static string Render(StructureModel model, StructureSketch sketch, MomentLayout layout, UnitText units, string caseId, bool dense = false)
     {
         var svg = new SvgCanvas();
         var placer = new LabelPlacer();
-        var legend = Draw(svg, placer, model, sketch, layout, units, detail: false);
+        var legend = Draw(svg, placer, model, sketch, layout, units, detail: false, dense);
         Legend(svg, units, legend);
         return svg.Render("cc-figure cc-moments", $"Bending moment diagram, load case {caseId}", margin: 12);
     }
@@ -30,7 +32,8 @@ internal static class MomentDrawing
     /// Draws the diagram, structure, claims and labels onto <paramref name="svg"/>. In <paramref name="detail"/> mode
     /// (one member, larger) the paths get <see cref="DetailClass"/> and the labels say more.
     /// </summary>
-    internal static Shown Draw(SvgCanvas svg, LabelPlacer placer, StructureModel model, StructureSketch sketch, MomentLayout layout, UnitText units, bool detail)
+    internal static Shown Draw(SvgCanvas svg, LabelPlacer placer, StructureModel model, StructureSketch sketch, MomentLayout layout, UnitText units, bool detail,
+        bool dense = false)
     {
         foreach (var t in layout.Members)
             svg.Path(t.Outline, close: true, DiagramStyle.MomentFill, DiagramStyle.Moment, DiagramStyle.OutlineWeight, cssClass: detail ? DetailClass : DiagramClass,
@@ -38,7 +41,14 @@ internal static class MomentDrawing
         sketch.Members(svg, DiagramStyle.Ink, detail ? DiagramStyle.MemberWeight : DiagramStyle.FaintMemberWeight, "cc-axis");
         if (!detail) sketch.Supports(svg, placer, DiagramStyle.Muted);
         sketch.Hinges(svg, placer, DiagramStyle.Ink);
-        sketch.Joints(svg, placer, DiagramStyle.Ink, 2.2);
+        if (!dense) sketch.Joints(svg, placer, DiagramStyle.Ink, 2.2);
+        // What gets labels: every member, or in a dense drawing the members whose claims differ, the worst first.
+        var labelled = dense
+            ? layout.Members.Where(t => t.Claims.Any(c => c.Status != EndStatus.Agree))
+                .OrderByDescending(t => t.Claims.Max(c => c.Status == EndStatus.Discrepant ? 2 : c.Status == EndStatus.Agree ? 0 : 1))
+                .ThenByDescending(t => t.Claims.Max(c => Math.Abs((c.ClaimedBending ?? c.RecomputedBending) - c.RecomputedBending)))
+                .Take(MemoDiagrams.MaxLabelledMembers).ToList()
+            : layout.Members;
 
         bool anyClaimedLine = false;
         var presentMarks = new HashSet<EndStatus>();
@@ -47,15 +57,18 @@ internal static class MomentDrawing
             svg.Path(t.ClaimedLine!, close: false, null, DiagramStyle.Ink, 1.2, "5 3", cssClass: "cc-claimed-line", extra: ("data-member", t.Member));
             anyClaimedLine = true;
         }
-        foreach (var c in layout.Members.SelectMany(t => t.Claims))
+        foreach (var c in layout.Members.SelectMany(t => t.Claims).Where(c => !dense || c.Status != EndStatus.Agree))
         {
             placer.Block(Marker(svg, c));
             presentMarks.Add(c.Status);
         }
 
-        JointLabels(svg, placer, model, sketch, layout, detail);
-        ValueLabels(svg, placer, layout, units, detail);
-        ClaimLabels(svg, placer, layout, units, detail);
+        var joints = dense
+            ? labelled.SelectMany(t => { var m = model.Member(t.Member); return new[] { m.Start, m.End }; }).Distinct().Select(model.Joint).ToList()
+            : model.Joints;
+        JointLabels(svg, placer, model, joints, sketch, layout, detail);
+        ValueLabels(svg, placer, labelled, layout.Peak, units, detail);
+        ClaimLabels(svg, placer, labelled, layout.Peak, units, detail);
         return new Shown(anyClaimedLine, presentMarks);
     }
 
@@ -86,9 +99,22 @@ internal static class MomentDrawing
         }
     }
 
-    private static void JointLabels(SvgCanvas svg, LabelPlacer placer, StructureModel model, StructureSketch sketch, MomentLayout layout, bool detail)
+    private static void JointLabels(SvgCanvas svg, LabelPlacer placer, StructureModel model, IReadOnlyList<Joint> joints, StructureSketch sketch, MomentLayout layout,
+        bool detail)
     {
-        foreach (var j in model.Joints)
+        // The end ordinates drawn at each joint, so that its label keeps clear of them.
+        var ordinates = new Dictionary<string, List<Pt>>(StringComparer.Ordinal);
+        foreach (var t in layout.Members)
+        {
+            var m = model.Member(t.Member);
+            foreach (var v in t.Values.Where(v => v.IsEnd && (v.Tip - v.Axis).Length > 4))
+            {
+                string at = v.X > 0 ? m.End : m.Start;
+                if (!ordinates.TryGetValue(at, out var list)) ordinates[at] = list = [];
+                list.Add(v.Tip - v.Axis);
+            }
+        }
+        foreach (var j in joints)
         {
             var at = sketch.At(j.Id);
             var dirs = sketch.MemberDirections(j.Id);
@@ -103,8 +129,7 @@ internal static class MomentDrawing
                 continue;
             }
             if (j.IsSupport) dirs.Add(sketch.SupportDirection(j));
-            foreach (var v in layout.Members.SelectMany(t => t.Values).Where(v => v.IsEnd && v.Axis.DistanceTo(at) < 0.5 && (v.Tip - v.Axis).Length > 4))
-                dirs.Add((v.Tip - v.Axis).Unit);
+            foreach (var o in ordinates.GetValueOrDefault(j.Id) ?? []) dirs.Add(o.Unit);
             double size = DiagramStyle.JointLabelSize - 1;
             double w = DiagramStyle.TextWidth(j.Id, size, bold: true);
             var c = placer.Place(LabelPlacer.Around(at, StructureSketch.WidestGap(dirs), 7, w, size * 1.2), w, size * 1.2);
@@ -112,19 +137,20 @@ internal static class MomentDrawing
         }
     }
 
-    private static void ValueLabels(SvgCanvas svg, LabelPlacer placer, MomentLayout layout, UnitText units, bool detail)
+    private static void ValueLabels(SvgCanvas svg, LabelPlacer placer, IReadOnlyList<MemberTrace> members, double peak, UnitText units, bool detail)
     {
-        double tiny = 0.005 * layout.Peak;
-        var written = new List<(Pt Tip, string Text)>();
+        double tiny = 0.005 * peak;
+        var written = new Dictionary<string, List<Pt>>(StringComparer.Ordinal);
         // Ends first (they carry the claims), then span values.
-        foreach (var v in layout.Members.SelectMany(t => t.Values.Select(v => (t, v))).OrderBy(p => p.v.IsEnd ? 0 : 1))
+        foreach (var v in members.SelectMany(t => t.Values.Select(v => (t, v))).OrderBy(p => p.v.IsEnd ? 0 : 1))
         {
             if (Math.Abs(v.v.Bending) <= tiny) continue;
-            string text = units.MomentMagnitude(v.v.Bending, layout.Peak);
+            string text = units.MomentMagnitude(v.v.Bending, peak);
             if (detail && !v.v.IsEnd) text += $" at {units.Length(v.v.X)}";
             // One label where two members' ordinates meet at the same point with the same value (continuous beams).
-            if (written.Any(w => w.Text == text && w.Tip.DistanceTo(v.v.Tip) < 4)) continue;
-            written.Add((v.v.Tip, text));
+            if (!written.TryGetValue(text, out var tips)) written[text] = tips = [];
+            if (tips.Any(tip => tip.DistanceTo(v.v.Tip) < 4)) continue;
+            tips.Add(v.v.Tip);
             var along = (v.t.End - v.t.Start).Unit;
             if (v.v.IsEnd && v.v.X > 0) along *= -1;
             double size = DiagramStyle.LabelSize, w = DiagramStyle.TextWidth(text, size, bold: !v.v.IsEnd), h = size * 1.2;
@@ -133,23 +159,24 @@ internal static class MomentDrawing
         }
     }
 
-    private static void ClaimLabels(SvgCanvas svg, LabelPlacer placer, MomentLayout layout, UnitText units, bool detail)
+    private static void ClaimLabels(SvgCanvas svg, LabelPlacer placer, IReadOnlyList<MemberTrace> members, double peak, UnitText units, bool detail)
     {
         var written = new List<(Pt At, string Text)>();
-        foreach (var t in layout.Members)
+        var differing = members.SelectMany(x => x.Claims).Where(o => o.Status != EndStatus.Agree).ToList();
+        foreach (var t in members)
             foreach (var c in t.Claims.Where(c => c.Status is EndStatus.Minor or EndStatus.Discrepant or EndStatus.Missing
-                         || (detail && Math.Abs(c.ClaimedBending ?? 0) > 0.005 * layout.Peak)))
+                         || (detail && Math.Abs(c.ClaimedBending ?? 0) > 0.005 * peak)))
             {
                 string text = c.ClaimedBending is double b
-                    ? $"claim {units.MomentMagnitude(b, layout.Peak)}{(c.OffScale ? " (off scale)" : "")}"
+                    ? $"claim {units.MomentMagnitude(b, peak)}{(c.OffScale ? " (off scale)" : "")}"
                     : "not claimed";
                 // Claims of different members that plot close together (a frame corner) say whose they are.
-                var others = layout.Members.SelectMany(x => x.Claims).Where(o => o.Member != c.Member && o.Status != EndStatus.Agree
+                var others = differing.Where(o => o.Member != c.Member
                     && o.Claimed.DistanceTo(c.Claimed) < 24 && !(o.ClaimedBending is double ob && c.ClaimedBending is double tb
-                    && units.MomentMagnitude(ob, layout.Peak) == units.MomentMagnitude(tb, layout.Peak) && o.Claimed.DistanceTo(c.Claimed) < 4));
+                    && units.MomentMagnitude(ob, peak) == units.MomentMagnitude(tb, peak) && o.Claimed.DistanceTo(c.Claimed) < 4));
                 if (!detail && others.Any()) text = $"{c.Member}: {text}";
                 if (detail && c.ClaimedBending is double cb)
-                    text += c.Status == EndStatus.Agree ? ", agrees" : $", differs by {units.MomentMagnitude(cb - c.RecomputedBending, layout.Peak)}";
+                    text += c.Status == EndStatus.Agree ? ", agrees" : $", differs by {units.MomentMagnitude(cb - c.RecomputedBending, peak)}";
                 // Two members claiming the same value at the same point (a continuous beam's support) get one label.
                 if (written.Any(x => x.Text == text && x.At.DistanceTo(c.Claimed) < 4)) continue;
                 written.Add((c.Claimed, text));

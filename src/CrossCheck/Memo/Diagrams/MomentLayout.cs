@@ -53,17 +53,19 @@ internal sealed class MomentLayout
     /// Lays out the case. <paramref name="review"/> supplies the claims (may be null); members of the model that the
     /// analysis does not have are skipped.
     /// </summary>
-    public static MomentLayout Build(StructureModel model, CaseResult result, CaseReview? review, StructureSketch sketch, double peakPixels)
+    /// <param name="coarse">Sample each member at eighths and its span extremes only (a large frame drawn small).</param>
+    public static MomentLayout Build(StructureModel model, CaseResult result, CaseReview? review, StructureSketch sketch, double peakPixels, bool coarse = false)
     {
         var samples = new Dictionary<string, List<(double X, double M)>>(StringComparer.Ordinal);
         foreach (var m in model.Members)
-            if (result.Members.TryGetValue(m.Id, out var r)) samples[m.Id] = Samples(r);
+            if (result.Members.TryGetValue(m.Id, out var r)) samples[m.Id] = coarse ? Coarse(r) : Samples(r);
         double peak = samples.Values.SelectMany(s => s).Select(s => Math.Abs(s.M)).DefaultIfEmpty(0).Max();
 
         var findings = review?.EndMoments.Where(e => e.End is not null && e.Recomputed is not null && samples.ContainsKey(e.Member)).ToList() ?? [];
         double claimPeak = findings.Where(e => e.Claimed is double).Select(e => Math.Abs(e.Claimed!.Value)).DefaultIfEmpty(0).Max();
         double range = Math.Max(peak, Math.Min(claimPeak, ClaimRange * peak));
         double k = range > 0 ? peakPixels / range : 0;
+        var byMember = findings.GroupBy(f => f.Member, StringComparer.Ordinal).ToDictionary(g => g.Key, g => g.ToList(), StringComparer.Ordinal);
 
         var traces = new List<MemberTrace>();
         foreach (var m in model.Members)
@@ -94,7 +96,7 @@ internal sealed class MomentLayout
             }
 
             var claims = new List<ClaimMark>();
-            foreach (var f in findings.Where(f => f.Member == m.Id))
+            foreach (var f in byMember.GetValueOrDefault(m.Id) ?? [])
             {
                 var end = f.End!.Value;
                 double sign = end == MemberEnd.Start ? 1 : -1;
@@ -120,6 +122,13 @@ internal sealed class MomentLayout
             traces.Add(new MemberTrace(m.Id, s, e, tension, outline, claimedLine, values, claims));
         }
         return new MomentLayout(k, peak, traces);
+    }
+
+    /// <summary>The moment at eighths of the length and at both span extremes.</summary>
+    internal static List<(double X, double M)> Coarse(MemberResult r)
+    {
+        var xs = Enumerable.Range(0, 9).Select(i => r.Length * i / 8).Append(r.MaxSagging.X).Append(r.MaxHogging.X).Order().Distinct();
+        return [.. xs.Select(x => (x, r.MomentAt(x)))];
     }
 
     /// <summary>The analysis stations, refined to sixtieths of the length and including both span extremes.</summary>

@@ -28,14 +28,24 @@ internal sealed record CheckContext(Submission Submission, ReviewOptions Options
 
     public Quoting Quote { get; } = new(Submission);
 
+    private Dictionary<string, double>? _couples;
+
     /// <summary>The couple applied at a joint in this case (clockwise, N·m).</summary>
-    public double AppliedCouple(string joint) => Case.Loads.OfType<JointCouple>().Where(l => l.Joint == joint).Sum(l => l.M);
+    public double AppliedCouple(string joint)
+    {
+        if (_couples is null)
+        {
+            _couples = new Dictionary<string, double>(StringComparer.Ordinal);
+            foreach (var l in Case.Loads.OfType<JointCouple>()) _couples[l.Joint] = _couples.GetValueOrDefault(l.Joint) + l.M;
+        }
+        return _couples.GetValueOrDefault(joint);
+    }
 }
 
 /// <summary>The checks of the claimed numbers, in the order the memo lists them. To add a check, add a class and a line here.</summary>
 internal sealed class ClaimChecks
 {
-    private static readonly IClaimCheck[] All =
+    internal static readonly IClaimCheck[] All =
     [
         new JointEquilibriumCheck(),
         new ReleasedEndCheck(),
@@ -60,18 +70,29 @@ internal sealed class ClaimChecks
 
     public List<Flag> Run(string caseId, CancellationToken cancel = default)
     {
-        var claims = _s.Claims.EndMoments.Where(c => c.Case == caseId && c.End is not null)
-            .ToDictionary(c => new EndKey(c.Member, c.End!.Value));
         var flags = new List<Flag>();
-        if (claims.Count == 0) return flags;
-        double peak = claims.Values.Max(c => Math.Abs(c.Moment));
-        var band = ToleranceBand.For(_options, peak, _options.AbsoluteTolerance * _s.Info.Units.Moment.ToSi);
-        var context = new CheckContext(_s, _options, _statics, _kinematics, _s.Case(caseId) ?? new LoadCase(caseId, []), claims, band);
+        if (Context(caseId) is not { } context) return flags;
         foreach (var check in All)
         {
             cancel.ThrowIfCancellationRequested();
             check.Run(context, flags);
         }
         return flags;
+    }
+
+    /// <summary>One check of one case (for measurements).</summary>
+    internal void RunOne(string caseId, IClaimCheck check, List<Flag> flags)
+    {
+        if (Context(caseId) is { } context) check.Run(context, flags);
+    }
+
+    private CheckContext? Context(string caseId)
+    {
+        var claims = _s.Claims.EndMoments.Where(c => c.Case == caseId && c.End is not null)
+            .ToDictionary(c => new EndKey(c.Member, c.End!.Value));
+        if (claims.Count == 0) return null;
+        double peak = claims.Values.Max(c => Math.Abs(c.Moment));
+        var band = ToleranceBand.For(_options, peak, _options.AbsoluteTolerance * _s.Info.Units.Moment.ToSi);
+        return new CheckContext(_s, _options, _statics, _kinematics, _s.Case(caseId) ?? new LoadCase(caseId, []), claims, band);
     }
 }

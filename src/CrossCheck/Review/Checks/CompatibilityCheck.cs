@@ -1,6 +1,5 @@
 using CrossCheck.Analysis;
 using CrossCheck.Model;
-using MathNet.Numerics.LinearAlgebra;
 
 namespace CrossCheck.Review.Checks;
 
@@ -23,33 +22,41 @@ internal sealed class CompatibilityCheck : IClaimCheck
     {
         var rows = Equations(x);
         if (rows.Count == 0) return;
-        var unknowns = rows.SelectMany(r => r.Coef.Keys).Distinct().Order().ToList();
-        var col = unknowns.Select((u, i) => (u, i)).ToDictionary(t => t.u, t => t.i);
+        // Unknowns numbered in the order they are met; a coefficient that cancels to zero leaves its unknown out.
+        var col = new Dictionary<int, int>();
+        var equations = rows.Select(r =>
+        {
+            var used = r.Coef.Where(kv => kv.Value != 0).ToList();
+            foreach (var (u, _) in used) col.TryAdd(u, col.Count);
+            return new SparseEquation(used.Select(kv => col[kv.Key]).ToArray(), used.Select(kv => kv.Value).ToArray(), r.Rhs);
+        }).ToList();
         // Robust fit: repeatedly set aside the claim whose deletion residual (its misfit when the other claims decide
         // the rotations) is largest, so that one wrong claim is pinned on itself and not smeared over its neighbours.
-        var active = Enumerable.Range(0, rows.Count).ToList();
+        // One sparse fit, each claim set aside as a rank-one downdate of it (SparseLeastSquares): the same residuals and
+        // leverages as refitting from scratch, at the cost of one solve.
+        var fit = SparseLeastSquares.Fit(equations, col.Count);
         var culprits = new List<(int Row, double Error)>();
-        // Each step is a full least-squares fit; past a few dozen wrong claims the author has a general problem, which the
-        // flags already raised and the comparison show, and more steps would only make a large frame's review slow.
-        while (active.Count > 0 && culprits.Count < MaxFlags)
+        // Past a few dozen wrong claims the author has a general problem, which the flags already raised and the
+        // comparison show.
+        while (fit.ActiveCount > 0 && culprits.Count < MaxFlags && fit.Rank < fit.ActiveCount)
         {
-            var fit = Fit(rows, active, unknowns.Count, col);
-            if (fit is null) break;
             // The claim whose removal reduces the squared misfit most (r²/(1 − h)) is the likeliest wrong one;
-            // its deletion residual r/(1 − h) is how far it is from what the other claims imply.
+            // its deletion residual r/(1 − h) is how far it is from what the other claims imply. Claims that score
+            // alike to round-off go in their order.
             int worst = -1;
             double worstError = 0, bestScore = 0;
-            for (int k = 0; k < active.Count; k++)
+            for (int k = 0; k < rows.Count; k++)
             {
-                double h = fit.Value.Leverage[k];
+                if (!fit.IsActive(k)) continue;
+                double h = fit.Leverage[k];
                 if (h > 1 - 1e-6) continue; // nothing else checks this claim
-                double r = fit.Value.Residual[k];
+                double r = fit.Residual[k];
                 double score = r * r / (1 - h);
-                if (score > bestScore) { bestScore = score; worstError = -r / (1 - h); worst = k; } // claimed − implied
+                if (score > bestScore * (1 + 1e-9)) { bestScore = score; worstError = -r / (1 - h); worst = k; } // claimed − implied
             }
             if (worst < 0 || x.Band.Grade(worstError) == Severity.Info) break;
-            culprits.Add((active[worst], worstError));
-            active.RemoveAt(worst);
+            culprits.Add((worst, worstError));
+            fit.Remove(worst);
         }
         foreach (var (rowIndex, error) in culprits)
         {
@@ -121,32 +128,5 @@ internal sealed class CompatibilityCheck : IClaimCheck
             }
         }
         return rows;
-    }
-
-    /// <summary>Least squares over the active equations (SVD, rank-revealing); null when nothing is redundant.</summary>
-    private static (double[] Residual, double[] Leverage)? Fit(List<Equation> rows, List<int> active, int unknowns, Dictionary<int, int> col)
-    {
-        var A = Matrix<double>.Build.Dense(active.Count, Math.Max(unknowns, 1));
-        var b = Vector<double>.Build.Dense(active.Count);
-        for (int k = 0; k < active.Count; k++)
-        {
-            var r = rows[active[k]];
-            foreach (var (u, v) in r.Coef) A[k, col[u]] = v;
-            b[k] = r.Rhs;
-        }
-        var svd = A.Svd(true);
-        var s = svd.S;
-        double cut = Math.Max(s.Count > 0 ? s[0] : 0, 1e-300) * 1e-10;
-        int rank = s.Count(v => v > cut);
-        if (rank >= active.Count) return null;
-        var utb = svd.U.TransposeThisAndMultiply(b);
-        var y = Vector<double>.Build.Dense(A.ColumnCount);
-        for (int i = 0; i < s.Count; i++) if (s[i] > cut) y[i] = utb[i] / s[i];
-        var sol = svd.VT.TransposeThisAndMultiply(y);
-        var residual = (A * sol) - b;
-        var leverage = new double[active.Count];
-        for (int k = 0; k < active.Count; k++)
-            for (int i = 0; i < rank; i++) leverage[k] += svd.U[k, i] * svd.U[k, i];
-        return (residual.ToArray(), leverage);
     }
 }

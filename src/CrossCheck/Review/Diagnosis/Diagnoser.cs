@@ -15,7 +15,7 @@ namespace CrossCheck.Review.Diagnosis;
 public sealed class Diagnoser
 {
     /// <summary>The families of mistakes tried, in order. To add one, add a class and a line here.</summary>
-    private static readonly IHypothesisFamily[] Families =
+    internal static readonly IHypothesisFamily[] Families =
     [
         new WorkingSlipFamily(),
         new SignConventionFamily(),
@@ -36,15 +36,25 @@ public sealed class Diagnoser
     private readonly Submission _s;
     private readonly AnalysisResult _analysis;
     private readonly ReviewOptions _o;
+    private readonly DiagnosisSolver _solver;
 
+    /// <summary>A diagnoser for every case of one review: the structure is factorised once and shared by all of them.</summary>
     public Diagnoser(Submission submission, AnalysisResult analysis, ReviewOptions options)
     {
+        ArgumentNullException.ThrowIfNull(submission);
         _s = submission;
         _analysis = analysis;
         _o = options;
+        _solver = new DiagnosisSolver(submission.Model);
     }
 
-    private sealed record Scored(Hypothesis H, double Explains, double Worst, bool Systematic);
+    /// <summary>Hypotheses scored against the claims by this diagnoser so far (the others were screened out unformed).</summary>
+    internal int Tried { get; private set; }
+
+    /// <summary>Linear solves and factorisations this diagnoser made (for measurements).</summary>
+    internal (int Solves, int Factorisations) Work => (_solver.Solves, _solver.Factorisations);
+
+    private sealed record Scored(Hypothesis H, double Explains, double Worst, bool Systematic, int Family, int Index);
 
     /// <summary>Likely causes of the case's discrepancies, best first; empty when nothing explains them.</summary>
     /// <exception cref="OperationCanceledException"><paramref name="cancel"/> was cancelled (checked before every hypothesis).</exception>
@@ -55,21 +65,32 @@ public sealed class Diagnoser
         if (ends.Count < 2) return [];
         var loadCase = _s.Case(review.Case);
         if (loadCase is null) return [];
-        var x = new DiagnosisContext(_s, _analysis, _o, loadCase, review, ends);
+        var x = new DiagnosisContext(_s, _analysis, _o, loadCase, review, ends, _solver);
         double[] c = x.Claimed, r = x.Recomputed;
         double res0 = Norm2(c, r);
         if (MaxAbs(c, r) <= review.AgreeTolerance) return [];
 
-        var hypotheses = new List<Hypothesis>();
-        foreach (var family in Families)
+        // Each hypothesis is scored as it is formed, and kept only when it passes: no family's predictions pile up.
+        double agree = review.AgreeTolerance, minor = review.MinorTolerance;
+        var kept = new List<Scored>();
+        int index = 0;
+        for (int f = 0; f < Families.Length; f++)
         {
             cancel.ThrowIfCancellationRequested();
             try
             {
-                foreach (var h in family.Propose(x))
+                foreach (var h in Families[f].Propose(x))
                 {
                     cancel.ThrowIfCancellationRequested();
-                    hypotheses.Add(h);
+                    Tried++;
+                    double res = Norm2(c, h.Predicted);
+                    double explains = res0 > 0 ? Math.Clamp(1 - (res / res0), 0, 1) : 0;
+                    double worst = MaxAbs(c, h.Predicted);
+                    // A cause must remove most of the difference: all of it to within tolerance, or at least 90 % of it.
+                    // (Many variants are tried, so a partial fit to scattered errors is not evidence of anything.)
+                    if (explains >= 0.5 && (worst <= agree || (explains >= 0.9 && worst <= minor)))
+                        kept.Add(new Scored(h, explains, worst, h.Code.Term().Systematic, f, index));
+                    index++;
                 }
             }
             catch (Exception ex) when (ex is StructureException or NotSupportedException or ArgumentException or InvalidOperationException)
@@ -78,24 +99,19 @@ public sealed class Diagnoser
             }
         }
 
-        double agree = review.AgreeTolerance, minor = review.MinorTolerance;
-        var scored = hypotheses.Select(h =>
-        {
-            double res = Norm2(c, h.Predicted);
-            double explains = res0 > 0 ? Math.Clamp(1 - (res / res0), 0, 1) : 0;
-            return new Scored(h, explains, MaxAbs(c, h.Predicted), h.Code.Term().Systematic);
-        })
-        // A cause must remove most of the difference: all of it to within tolerance, or at least 90 % of it.
-        // (Many variants are tried, so a partial fit to scattered errors is not evidence of anything.)
-        .Where(x => x.Explains >= 0.5 && (x.Worst <= agree || (x.Explains >= 0.9 && x.Worst <= minor)))
         // Within tolerance first; there a systematic mistake before a slip that can reproduce any wrong figure by
-        // construction, then the simplest specific mistake; otherwise the one that explains most.
-        .OrderBy(x => x.Worst <= agree ? 0 : x.Worst <= minor ? 1 : 2)
-        .ThenBy(x => x.Systematic ? 0 : 1)
-        .ThenBy(x => x.Worst <= agree ? x.H.Simplicity : 0)
-        .ThenByDescending(x => Math.Round(x.Explains, 4))
-        .ThenBy(x => x.H.Simplicity)
-        .ToList();
+        // construction, then the simplest specific mistake; otherwise the one that explains most. Equally good hypotheses
+        // keep the order of the whole search (family, then the family's own order), however they were tried.
+        var scored = kept
+            .OrderBy(x => x.Worst <= agree ? 0 : x.Worst <= minor ? 1 : 2)
+            .ThenBy(x => x.Systematic ? 0 : 1)
+            .ThenBy(x => x.Worst <= agree ? x.H.Simplicity : 0)
+            .ThenByDescending(x => Math.Round(x.Explains, 4))
+            .ThenBy(x => x.H.Simplicity)
+            .ThenBy(x => x.Family)
+            .ThenBy(x => x.H.Order)
+            .ThenBy(x => x.Index)
+            .ToList();
         // When a mistake reproduces the claims within tolerance, alternatives that do not come close are noise.
         if (scored.Count > 0 && scored[0].Worst <= agree)
             scored = scored.Where(x => x.Worst <= minor).ToList();

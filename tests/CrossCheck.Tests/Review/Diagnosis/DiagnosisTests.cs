@@ -192,7 +192,7 @@ public class DiagnosisTests
             .Member("S1", "J0", "J1", 200e6, 2.5e-4).Member("S2", "J1", "J2", 200e6, 2.5e-4).Udl("S1", 18).Udl("S2", 18);
     }
 
-    internal static ReviewResult Review(FrameBuilder b, IEnumerable<(string Member, MemberEnd End, double M)> claims)
+    internal static ReviewResult Review(FrameBuilder b, IEnumerable<(string Member, MemberEnd End, double M)> claims, ReviewOptions? options = null)
     {
         var model = b.Model;
         int row = 1;
@@ -201,7 +201,7 @@ public class DiagnosisTests
         var units = new DisplayUnits(new UnitChoice("kN", 1), new UnitChoice("m", 1), new UnitChoice("kN·m", 1), new UnitChoice("m", 1));
         var info = SubmissionInfo.Empty with { Units = units };
         var s = new Submission("seeded.csv", info, model, b.Cases, new Claims(list, [], []));
-        return ReviewEngine.Review(s, new FrameSolver().Solve(s.Model, s.Cases));
+        return ReviewEngine.Review(s, new FrameSolver().Solve(s.Model, s.Cases), options);
     }
 
     [Theory]

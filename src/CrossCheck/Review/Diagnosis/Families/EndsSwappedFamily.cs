@@ -10,8 +10,10 @@ internal sealed class EndsSwappedFamily : IHypothesisFamily
         var r = x.Recomputed;
         foreach (var m in x.Keys.Select(k => k.Member).Distinct())
         {
-            int a = x.Keys.IndexOf(new EndKey(m, MemberEnd.Start)), b = x.Keys.IndexOf(new EndKey(m, MemberEnd.End));
+            int a = x.IndexOf(new EndKey(m, MemberEnd.Start)), b = x.IndexOf(new EndKey(m, MemberEnd.End));
             if (a < 0 || b < 0) continue;
+            // A change at the member's two ends only: scored there before it is formed.
+            if (!x.Evidence.MayFit([a, b], [r[b], r[a]])) continue;
             var p = (double[])r.Clone();
             (p[a], p[b]) = (r[b], r[a]);
             var member = x.Model.Member(m);

@@ -1,13 +1,20 @@
+using CrossCheck.Analysis;
 using CrossCheck.Model;
 
 namespace CrossCheck.Review.Diagnosis.Families;
 
-/// <summary>A support's fixity mistaken: a pin treated as fixed against rotation, or a fixed support as a pin.</summary>
+/// <summary>
+/// A support's fixity mistaken: a pin treated as fixed against rotation, or a fixed support as a pin. Each is one
+/// constraint added to or one unknown bordered onto the shared factor, tried at the supports near the members whose claims
+/// differ (see <see cref="Evidence"/>).
+/// </summary>
 internal sealed class FarEndFixityFamily : IHypothesisFamily
 {
     public IEnumerable<Hypothesis> Propose(DiagnosisContext x)
     {
-        foreach (var j in x.Model.Joints.Where(j => j.IsSupport))
+        var supports = x.Model.Joints.Where(j => j.IsSupport).ToList();
+        var order = supports.Select((j, i) => (j.Id, i)).ToDictionary(t => t.Id, t => t.i, StringComparer.Ordinal);
+        foreach (var j in x.Evidence.NearSupports(supports))
         {
             Restraint changed;
             string message, working;
@@ -23,13 +30,15 @@ internal sealed class FarEndFixityFamily : IHypothesisFamily
                 message = $"The claims follow from treating support {j.Id} as pinned, but it is fixed.";
                 working = "Its members need the full stiffness 4EI/L and a carry-over of ½ to the support.";
             }
-            var joints = x.Model.Joints.Select(k => k.Id == j.Id ? k with { Restraint = changed } : k).ToList();
-            var altered = new StructureModel(joints, x.Model.Members, x.Model.Axial, x.Model.RelativeStiffness);
-            yield return new Hypothesis(CauseCode.FarEndFixity, 3, x.From(x.SolveAltered(altered, x.Case)), message)
+            double[] predicted;
+            try { predicted = x.Solver.WithRestraint(x.Case, j, changed, x.Keys); }
+            catch (StructureException) { continue; } // a mechanism with this support changed: the variant does not apply
+            yield return new Hypothesis(CauseCode.FarEndFixity, 3, predicted, message)
             {
                 CorrectWorking = working,
                 Identity = $"far-end-fixity|{j.Id}",
                 Place = new JointPlace(j.Id),
+                Order = order[j.Id],
             };
         }
     }

@@ -9,7 +9,8 @@ namespace CrossCheck.Review.Diagnosis.Families;
 /// position measured from the wrong end, a magnitude with its decimal point moved, a sign, or the two ends' values
 /// exchanged. Each variant fixes both fixed-end moments of the member from the load itself; nothing is fitted. The
 /// effect on the claims is superposed from locked end moments solved on the structure without its support movements,
-/// which the recomputed moments already hold.
+/// which the recomputed moments already hold, with the shared factor; a variant whose effect cannot overlap the
+/// differences enough to explain them (<see cref="Evidence.MayExplain(double)"/>) is not formed.
 /// </summary>
 internal sealed class FixedEndMomentFamily : IHypothesisFamily
 {
@@ -19,17 +20,36 @@ internal sealed class FixedEndMomentFamily : IHypothesisFamily
     {
         var loads = x.Case.MemberLoads.Where(l => x.Model.TryGetMember(l.Member, out _)).ToList();
         if (loads.Count == 0) yield break;
-        var members = loads.Select(l => l.Member).Distinct().ToList();
-        var influence = Influence(x, members);
-        double[] Shift(IEnumerable<(string Member, double D1, double D2)> changes)
+        // Influence of a unit locked-in end moment at a member's two ends on the compared claims: two solves with the
+        // shared factor, made only for members with a slip worth scoring.
+        var influence = new Dictionary<string, (double[] Start, double[] End)>(StringComparer.Ordinal);
+        var src = new SourceRef("diagnosis");
+        (double[] Start, double[] End) Influence(string m)
         {
+            if (influence.TryGetValue(m, out var known)) return known;
+            return influence[m] = (x.LoadEffect([new LockedEndMoments("u", m, 1, 0, src)]), x.LoadEffect([new LockedEndMoments("u", m, 0, 1, src)]));
+        }
+        double[] Shift(string m, double d1, double d2)
+        {
+            var (i1, i2) = Influence(m);
             var p = (double[])x.Recomputed.Clone();
+            for (int i = 0; i < p.Length; i++) p[i] += (d1 * i1[i]) + (d2 * i2[i]);
+            return p;
+        }
+        // The slip's change of the claims overlaps their differences by e·δ, which the adjoint gives without solving: for
+        // locked-in end moments d1, d2 it is d1·g1 + d2·g2, with g the overlap of a unit locked-in moment at each end.
+        var overlaps = new Dictionary<string, (double Start, double End)>(StringComparer.Ordinal);
+        bool MayExplain(IEnumerable<(string Member, double D1, double D2)> changes)
+        {
+            if (x.Evidence.Adjoint is not { } adjoint) return true;
+            double overlap = 0;
             foreach (var (m, d1, d2) in changes)
             {
-                var (i1, i2) = influence[m];
-                for (int i = 0; i < p.Length; i++) p[i] += (d1 * i1[i]) + (d2 * i2[i]);
+                if (!overlaps.TryGetValue(m, out var g))
+                    overlaps[m] = g = (adjoint.Of(new LockedEndMoments("u", m, 1, 0, src)), adjoint.Of(new LockedEndMoments("u", m, 0, 1, src)));
+                overlap += (d1 * g.Start) + (d2 * g.End);
             }
-            return p;
+            return x.Evidence.MayExplain(overlap);
         }
         var systematic = new Dictionary<string, List<(string Member, double D1, double D2)>>(StringComparer.Ordinal);
         foreach (var load in loads)
@@ -41,19 +61,21 @@ internal sealed class FixedEndMomentFamily : IHypothesisFamily
             {
                 double d1 = slip.Start - f1, d2 = slip.End - f2;
                 if (Math.Abs(d1) + Math.Abs(d2) <= 1e-9 * (Math.Abs(f1) + Math.Abs(f2) + 1e-300)) continue;
-                yield return new Hypothesis(CauseCode.FixedEndMoment, 3, Shift([(m.Id, d1, d2)]),
+                if (!systematic.TryGetValue(slip.Key, out var list)) systematic[slip.Key] = list = [];
+                list.Add((m.Id, d1, d2));
+                if (!MayExplain([(m.Id, d1, d2)])) continue;
+                yield return new Hypothesis(CauseCode.FixedEndMoment, 3, Shift(m.Id, d1, d2),
                     $"Member {m.Id}, {what}: the author appears to have {slip.Words}. The claims match fixed-end moments of {x.FemPair(m, slip.Start, slip.End)}.")
                 {
                     CorrectWorking = $"With {Formula(load, x.Model.Length(m))} the fixed-end moments of member {m.Id} are {x.FemPair(m, f1, f2)}.",
                     Identity = $"fixed-end-moment|{m.Id}|{slip.Key}|{load.Source.Compact}",
                     Place = new MemberPlace(m.Id),
                 };
-                if (!systematic.TryGetValue(slip.Key, out var list)) systematic[slip.Key] = list = [];
-                list.Add((m.Id, d1, d2));
             }
         }
         foreach (var (key, changes) in systematic.Where(kv => kv.Value.Count > 1 && kv.Key is "udl-8" or "point-central" or "point-pl4" or "linear-swapped"))
         {
+            if (!MayExplain(changes)) continue;
             string text = key switch
             {
                 "udl-8" => "used wL²/8 instead of wL²/12 for every uniform load",
@@ -61,24 +83,12 @@ internal sealed class FixedEndMomentFamily : IHypothesisFamily
                 "point-pl4" => "used PL/4 instead of the fixed-end formula for every point load",
                 _ => "swapped the ends of every linearly varying load",
             };
-            yield return new Hypothesis(CauseCode.FixedEndMoment, 3, Shift(changes),
+            // Every member's slip at once: one solve of all the locked-in differences together.
+            var effect = x.LoadEffect(changes.Select(c => (Load)new LockedEndMoments("·", c.Member, c.D1, c.D2, src)).ToList());
+            yield return new Hypothesis(CauseCode.FixedEndMoment, 3, x.Recomputed.Zip(effect, (a, b) => a + b).ToArray(),
                 $"The author appears to have {text} (members {string.Join(", ", changes.Select(c => c.Member).Distinct())}).")
             { Identity = $"fixed-end-moment|all|{key}" };
         }
-    }
-
-    /// <summary>Influence of a unit locked-in end moment at each loaded member's ends on the compared claims (one factorisation).</summary>
-    private static Dictionary<string, (double[] Start, double[] End)> Influence(DiagnosisContext x, List<string> members)
-    {
-        var src = new SourceRef("diagnosis");
-        var unit = new List<LoadCase>();
-        foreach (var m in members)
-        {
-            unit.Add(new LoadCase($"{m}|s", [new LockedEndMoments("u", m, 1, 0, src)]));
-            unit.Add(new LoadCase($"{m}|e", [new LockedEndMoments("u", m, 0, 1, src)]));
-        }
-        var solved = x.SolveLoadsAlone(unit).ToDictionary(c => c.Case, x.From);
-        return members.ToDictionary(m => m, m => (solved[$"{m}|s"], solved[$"{m}|e"]));
     }
 
     private static IEnumerable<Slip> Slips(DiagnosisContext x, Member m, MemberLoad load, double f1, double f2)

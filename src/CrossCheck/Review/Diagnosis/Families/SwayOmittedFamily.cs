@@ -10,10 +10,10 @@ internal sealed class SwayOmittedFamily : IHypothesisFamily
     {
         if (x.Model.Axial != AxialBehaviour.Rigid) yield break;
         if (!new Kinematics(x.Model).CanSway) yield break;
-        var braced = x.SolveAltered(x.Model, x.Case, hold: true);
+        var braced = x.Solver.Braced(x.Case, x.Keys);
         var sway = x.Review.Flags.Any(f => f.Kind == FlagKind.StoreyShear && f.Severity == Severity.Major)
             ? "The storey-shear check of the claims fails too: the columns do not carry the lateral load, which is what an analysis that ignores sidesway produces." : "";
-        yield return new Hypothesis(CauseCode.SwayOmitted, 2, x.From(braced),
+        yield return new Hypothesis(CauseCode.SwayOmitted, 2, braced,
             "The claims are those of a braced (no-sway) analysis, but the frame can sway.")
         {
             Evidence = sway,
