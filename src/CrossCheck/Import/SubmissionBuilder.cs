@@ -25,9 +25,13 @@ public sealed class SubmissionBuilder
         new BeamReader(),          // supports + spans
         new StructureAssembly(),   // the model from the geometry, checked as a whole
         new LoadsReader(),
+        new CombinationsReader(),  // factored cases, before the claims that may name them
         new EndMomentsReader(),
         new ReactionsReader(),
         new DisplacementsReader(),
+        new SpanMomentsReader(),
+        new ShearsReader(),
+        new EnvelopesReader(),
         new DistributionReader(),
     ];
 
@@ -61,7 +65,11 @@ public sealed class SubmissionBuilder
         foreach (var reader in Readers) reader.Read(draft);
         if (draft.HasErrors) return new ImportResult(null, problems);
         var info = draft.Info with { Units = draft.DisplayUnits() };
-        var submission = new Submission(source, info, draft.Model, draft.Cases, draft.Claims) { WorkingTables = draft.WorkingTables };
+        var submission = new Submission(source, info, draft.Model, draft.Cases, draft.Claims)
+        {
+            WorkingTables = draft.WorkingTables,
+            Combinations = draft.Combinations,
+        };
         return new ImportResult(submission, problems);
     }
 
