@@ -71,7 +71,8 @@ internal static class SolveCommand
         console.WriteLine($"moments in {report.MomentUnit}, {report.ConventionName}");
         foreach (var c in report.Result.Cases)
         {
-            var table = new Table().Border(TableBorder.Simple).Title(Markup.Escape($"load case {c.Case}"));
+            string title = report.CombinationWords(c.Case) is { } words ? $"combination {c.Case} = {words}" : $"load case {c.Case}";
+            var table = new Table().Border(TableBorder.Simple).Title(Markup.Escape(title));
             table.AddColumn("member");
             table.AddColumn("at joint");
             table.AddColumn(new TableColumn(Markup.Escape($"moment [{report.MomentUnit}]")).RightAligned());
@@ -79,5 +80,22 @@ internal static class SolveCommand
                 table.AddRow(Markup.Escape(r.Member), Markup.Escape(r.At), Fmt.Number(r.Moment));
             console.Write(table);
         }
+        foreach (var g in report.Envelopes.GroupBy(r => r.Combination))
+        {
+            var table = new Table().Border(TableBorder.Simple)
+                .Title(Markup.Escape($"envelope of combination {g.Key} = {report.Submission.Combination(g.Key)?.Words} (span: largest span moment, sagging positive)"));
+            table.AddColumn("member");
+            table.AddColumn("at");
+            table.AddColumn(new TableColumn(Markup.Escape($"max [{report.MomentUnit}]")).RightAligned());
+            table.AddColumn("loaded for max");
+            table.AddColumn(new TableColumn(Markup.Escape($"min [{report.MomentUnit}]")).RightAligned());
+            table.AddColumn("loaded for min");
+            foreach (var r in g)
+                table.AddRow(Markup.Escape(r.Member), Markup.Escape(r.At), Fmt.Number(r.Max), Markup.Escape(Loaded(r.MaxLoaded)),
+                    r.Min is double min ? Fmt.Number(min) : "", r.Min is null ? "" : Markup.Escape(Loaded(r.MinLoaded)));
+            console.Write(table);
+        }
     }
+
+    private static string Loaded(IReadOnlyList<string> members) => members.Count == 0 ? "none" : string.Join(" ", members);
 }

@@ -22,13 +22,42 @@ public readonly record struct EnvelopeStation(double X, double Max, double Min);
 public sealed class Envelope
 {
     private readonly string[] _order;
+    private readonly (CaseResult Result, double Weight)[] _extra;
+    private readonly double _scale;
 
     internal Envelope(Combination combination, CaseResult fixedPart, IReadOnlyDictionary<string, CaseResult> contributions, IEnumerable<string> memberOrder)
+        : this(combination, fixedPart, contributions, memberOrder.Where(contributions.ContainsKey).ToArray(), [], 1)
+    {
+    }
+
+    private Envelope(Combination combination, CaseResult fixedPart, IReadOnlyDictionary<string, CaseResult> contributions, string[] order,
+        (CaseResult, double)[] extra, double scale)
     {
         Combination = combination;
         Fixed = fixedPart;
         Contributions = contributions;
-        _order = memberOrder.Where(contributions.ContainsKey).ToArray();
+        _order = order;
+        _extra = extra;
+        _scale = scale;
+    }
+
+    /// <summary>
+    /// The envelope of a variant of the combination: <paramref name="extra"/> results (times their weights) added to the
+    /// fixed part, and every member's contribution times <paramref name="scale"/> — another factor on a case, a case left
+    /// out (what the diagnosis recomputes).
+    /// </summary>
+    public Envelope Adjusted(IEnumerable<(CaseResult Result, double Weight)> extra, double scale)
+    {
+        ArgumentNullException.ThrowIfNull(extra);
+        return new(Combination, Fixed, Contributions, _order, [.. _extra, .. extra], _scale * scale);
+    }
+
+    /// <summary>The fixed part's value of a quantity (with any added results).</summary>
+    private double FixedValue(Func<CaseResult, double> quantity)
+    {
+        double v = quantity(Fixed);
+        foreach (var (r, w) in _extra) v += w * quantity(r);
+        return v;
     }
 
     public Combination Combination { get; }
@@ -47,7 +76,8 @@ public sealed class Envelope
     {
         ArgumentNullException.ThrowIfNull(loaded);
         var parts = new List<(MemberResult, double)> { (Fixed.Members[member], 1) };
-        foreach (var m in loaded) if (Contributions.TryGetValue(m, out var c)) parts.Add((c.Members[member], 1));
+        foreach (var (r, w) in _extra) parts.Add((r.Members[member], w));
+        foreach (var m in loaded) if (Contributions.TryGetValue(m, out var c)) parts.Add((c.Members[member], _scale));
         return new SuperposedMember(parts);
     }
 
@@ -61,14 +91,16 @@ public sealed class Envelope
     public (EnvelopeExtreme Max, EnvelopeExtreme Min) Extremes(Func<CaseResult, double> quantity, double x = 0)
     {
         ArgumentNullException.ThrowIfNull(quantity);
-        double baseValue = quantity(Fixed), max = baseValue, min = baseValue;
+        double baseValue = FixedValue(quantity), max = baseValue, min = baseValue;
         var up = new List<string>();
         var down = new List<string>();
-        foreach (var m in _order)
+        var contributions = _order.Select(m => (Member: m, Value: _scale * quantity(Contributions[m]))).ToList();
+        // A contribution at round-off level is no reason to load a member: it neither raises nor lowers the extreme.
+        double negligible = 1e-10 * (contributions.Sum(c => Math.Abs(c.Value)) + Math.Abs(baseValue));
+        foreach (var (m, c) in contributions)
         {
-            double c = quantity(Contributions[m]);
-            if (c > 0) { max += c; up.Add(m); }
-            else if (c < 0) { min += c; down.Add(m); }
+            if (c > negligible) { max += c; up.Add(m); }
+            else if (c < -negligible) { min += c; down.Add(m); }
         }
         return (new EnvelopeExtreme(max, up, x), new EnvelopeExtreme(min, down, x));
     }
@@ -77,7 +109,7 @@ public sealed class Envelope
     public double AllLoadedValue(Func<CaseResult, double> quantity)
     {
         ArgumentNullException.ThrowIfNull(quantity);
-        return quantity(Fixed) + _order.Sum(m => quantity(Contributions[m]));
+        return FixedValue(quantity) + (_scale * _order.Sum(m => quantity(Contributions[m])));
     }
 
     /// <summary>The largest and least internal moment at sections along the member (both sides of every load point).</summary>
@@ -126,22 +158,23 @@ public sealed class Envelope
         var xs = new SortedSet<double>();
         for (int i = 0; i <= 40; i++) xs.Add(length * i / 40);
         foreach (var s in Fixed.Members[member].Stations) xs.Add(s.X);
-        foreach (var c in Contributions.Values) foreach (var s in c.Members[member].Stations) xs.Add(s.X);
+        // The other members' contributions vary linearly along this one (their loads are elsewhere): only its own has load points.
+        if (Contributions.TryGetValue(member, out var own)) foreach (var s in own.Members[member].Stations) xs.Add(s.X);
         return [.. xs];
     }
 
     private (double Max, double Min) PointExtremes(string member, double x, bool right)
     {
         double M(CaseResult r) => right ? r.Members[member].MomentRightOf(x) : r.Members[member].MomentAt(x);
-        double b = M(Fixed), max = b, min = b;
+        double b = FixedValue(M), max = b, min = b;
         foreach (var m in _order)
         {
-            double c = M(Contributions[m]);
+            double c = _scale * M(Contributions[m]);
             if (c > 0) max += c; else min += c;
         }
         return (max, min);
     }
 
     private List<string> Favourable(string member, double x, bool right) =>
-        _order.Where(m => (right ? Contributions[m].Members[member].MomentRightOf(x) : Contributions[m].Members[member].MomentAt(x)) > 0).ToList();
+        _order.Where(m => _scale * (right ? Contributions[m].Members[member].MomentRightOf(x) : Contributions[m].Members[member].MomentAt(x)) > 0).ToList();
 }
