@@ -65,9 +65,11 @@ internal static class CommentSchedule
         var agreeingSections = ReviewEngine.AgreeingSections(c);
 
         // 1. The diagnosed mistake and everything it explains.
+        (string Identity, HashSet<EndKey> Ends)? endCause = null;
         if (c.Causes.FirstOrDefault() is { } cause && (cause.Reproduces || cause.Explained.Count > 0))
         {
             var explained = cause.Reproduces ? wrong.Select(e => e.Key!.Value).ToHashSet() : cause.Explained.ToHashSet();
+            endCause = (cause.Identity, explained);
             var ends = wrong.Where(e => explained.Contains(e.Key!.Value)).ToList();
             var byCause = flags.Where(f => f.Ends.Count > 0 ? f.Ends.All(k => explained.Contains(k) || agreeing.Contains(k)) && f.Sections.All(agreeingSections.Contains)
                 : f.Kind == FlagKind.DistributionTable && c.Audit?.First is { } cell && ExplainsTable(cause, cell.Step)).ToList();
@@ -104,7 +106,7 @@ internal static class CommentSchedule
             drafts.Add(MemberDraft(c, g.Key, g.ToList(), quote));
 
         // Span moments, shears and envelopes: their causes, then the differing claims by member (SectionComments).
-        drafts.AddRange(SectionComments.For(c, flags, quote));
+        drafts.AddRange(SectionComments.For(c, flags, quote, endCause));
 
         // 4. Checks that no mistake and no single figure explains.
         foreach (var f in flags)

@@ -15,15 +15,18 @@ internal static class SectionComments
     private sealed record Item(SectionKey Key, Symptom Symptom, Severity Severity, SourceRef Source, string Words, string Corrected, Flag? Flag);
 
     /// <summary>The drafts of one case; the flags they take up are removed from <paramref name="flags"/>.</summary>
-    public static List<CommentSchedule.Draft> For(CaseReview c, List<Flag> flags, Quoting quote)
+    /// <param name="endCause">The identity of the mistake the end moments' comment names and the ends it explains: a check that rests on
+    /// those ends and on claims of this table that the same mistake explains belongs to the same comment.</param>
+    public static List<CommentSchedule.Draft> For(CaseReview c, List<Flag> flags, Quoting quote, (string Identity, HashSet<EndKey> Ends)? endCause = null)
     {
         var drafts = new List<CommentSchedule.Draft>();
         var items = Items(c, flags, quote);
         if (items.Count == 0 && flags.All(f => f.Sections.Count == 0)) return drafts;
         var agreeingEnds = c.EndMoments.Where(e => e.Status == EndStatus.Agree && e.Key is not null).Select(e => e.Key!.Value).ToHashSet();
         var agreeing = ReviewEngine.AgreeingSections(c);
-        List<Flag> Resting(ICollection<SectionKey> keys) =>
-            flags.Where(f => f.Sections.Count > 0 && f.Sections.All(k => keys.Contains(k) || agreeing.Contains(k)) && f.Ends.All(agreeingEnds.Contains)).ToList();
+        List<Flag> Resting(ICollection<SectionKey> keys, string? identity = null) =>
+            flags.Where(f => f.Sections.Count > 0 && f.Sections.All(k => keys.Contains(k) || agreeing.Contains(k))
+                             && f.Ends.All(k => agreeingEnds.Contains(k) || (endCause is { } ec && ec.Identity == identity && ec.Ends.Contains(k)))).ToList();
 
         // 1. A diagnosed mistake and every claim of its kind it explains.
         foreach (var cause in c.SectionCauses.GroupBy(x => x.Claims).Select(g => g.First()).Where(x => x.Reproduces || x.ExplainedSections.Count > 0))
@@ -32,7 +35,7 @@ internal static class SectionComments
             var explained = (cause.Reproduces ? items.Where(i => i.Key.Kind == kind).Select(i => i.Key) : cause.ExplainedSections).ToHashSet();
             var mine = items.Where(i => explained.Contains(i.Key)).ToList();
             if (mine.Count == 0) continue;
-            var byCause = Resting(explained).Where(f => mine.All(i => i.Flag != f)).ToList();
+            var byCause = Resting(explained, cause.Identity).Where(f => mine.All(i => i.Flag != f)).ToList();
             var term = cause.Kind.Term();
             var d = new CommentSchedule.Draft(term.Prefix, c.Case, cause.Place)
             {
