@@ -77,11 +77,12 @@ internal static class EnvelopeComparison
 
     private static Flag Flag(Quoting quote, ToleranceBand band, Combination combination, EnvelopeFinding f, EnvelopeSide side)
     {
-        string boundWords = f.Bound == "max" ? "maximum" : "minimum";
+        string boundWords = f.IsSpan ? "largest span moment" : f.Bound == "max" ? "maximum" : "minimum";
         string claimed = $"{f.AsWritten} {quote.MomentUnit.Symbol}", value = quote.SpanMoment(f.Recomputed!.Value), by = quote.SpanMoment(Math.Abs(f.Difference!.Value));
         string arrangement = f.Arrangement;
         return side == EnvelopeSide.Unsafe
-            ? new Flag(FlagKind.Envelope, band.Grade(f.Difference.Value), f.Place, f.Difference, ReviewMessages.EnvelopeUnsafe(combination.Name, boundWords, f.Place.Words, claimed, arrangement, value, by), [f.Source])
+            ? new Flag(FlagKind.Envelope, band.Grade(f.Difference.Value), f.Place, f.Difference, ReviewMessages.EnvelopeUnsafe(combination.Name, boundWords, f.Place.Words, claimed, arrangement, value, by,
+                f.X is double x ? quote.Length(x) : null), [f.Source])
             {
                 Sections = [f.Key],
                 Brief = ReviewMessages.EnvelopeUnsafeBrief(boundWords, f.Place.Words, claimed, value, arrangement),

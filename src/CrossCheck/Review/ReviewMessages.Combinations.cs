@@ -26,16 +26,19 @@ internal static partial class ReviewMessages
 
     public static string EnvelopeBelowOwnFigures(string combination, string bound, string place, string claimed, string arrangement, string terms, string value) =>
         $"The claimed {bound} of combination {combination} for {place} is {claimed}, but the author's own figures for its cases with {arrangement} give " +
-        $"{value} there ({terms}): an envelope cannot lie {(bound == "maximum" ? "below" : "above")} one of its arrangements.";
+        $"{value} there ({terms}): an envelope cannot lie {(bound == "minimum" ? "above" : "below")} one of its arrangements.";
 
     public static string EnvelopeBelowOwnFiguresBrief(string bound, string place, string claimed, string value, string arrangement) =>
         $"{place} {bound}: {claimed} claimed, the cases' own figures give {value} with {arrangement}";
 
     // ---- comparison with the analysis ------------------------------------------------------------------
 
-    public static string EnvelopeUnsafe(string combination, string bound, string place, string claimed, string arrangement, string value, string shortBy) =>
-        $"The claimed {bound} of combination {combination} for {place} is {claimed}, but with {arrangement} the {(bound == "maximum" ? "moment there reaches" : "moment there falls to")} {value}: " +
-        $"the claim is on the unsafe side by {shortBy}.";
+    /// <param name="bound">"maximum", "minimum", or "largest span moment" for a span row.</param>
+    /// <param name="at">For a span row, where the governing arrangement's maximum is, from the member's start.</param>
+    public static string EnvelopeUnsafe(string combination, string bound, string place, string claimed, string arrangement, string value, string shortBy, string? at = null) =>
+        $"The claimed {bound} of combination {combination} for {place} is {claimed}, but with {arrangement} the " +
+        (bound switch { "minimum" => "moment there falls to", "maximum" => "moment there reaches", _ => "span moment reaches" }) +
+        $" {value}{(at is null ? "" : $" at {at} from its start")}: the claim is on the unsafe side by {shortBy}.";
 
     public static string EnvelopeUnsafeBrief(string bound, string place, string claimed, string value, string arrangement) =>
         $"{place} {bound}: {claimed} claimed, {value} with {arrangement}";

@@ -46,11 +46,12 @@ internal sealed class EnvelopeCheck : IClaimCheck
         var cell = bound == "maximum" ? row.MaxSource : row.MinSource;
         string claimedText = $"{Quoting.Written(cell, x.Quote.MomentUnit.FromSi(claimed))} {x.Quote.MomentUnit.Symbol}";
         string valueText = x.Quote.SpanMoment(value);
+        string words = row.IsSpan ? "largest span moment" : bound;
         flags.Add(new Flag(FlagKind.Envelope, sev, place, error,
-            ReviewMessages.EnvelopeBelowOwnFigures(combination.Name, bound, place.Words, claimedText, arrangement, terms, valueText), [row.Source, .. sources])
+            ReviewMessages.EnvelopeBelowOwnFigures(combination.Name, words, place.Words, claimedText, arrangement, terms, valueText), [row.Source, .. sources])
         {
             Sections = [new SectionKey(SectionKind.Envelope, row.Member, row.End, bound == "maximum" ? "max" : "min")],
-            Brief = ReviewMessages.EnvelopeBelowOwnFiguresBrief(bound, place.Words, claimedText, valueText, arrangement),
+            Brief = ReviewMessages.EnvelopeBelowOwnFiguresBrief(words, place.Words, claimedText, valueText, arrangement),
         });
     }
 
