@@ -39,7 +39,7 @@ public static class ReviewEngine
                 review = review with { Causes = new Diagnosis.Diagnoser(s, analysis, options).Diagnose(review) };
             if (options.Diagnose && Diagnosis.SectionDiagnoser.HasDifferences(review))
                 review = review with { SectionCauses = new Diagnosis.SectionDiagnoser(s, analysis, options).Diagnose(review) };
-            review = WithSwaySensitivity(s.Model, analysis, review, result);
+            if (SwaySensitivity.HasVerticalLoad(s, id)) review = WithSwaySensitivity(s.Model, analysis, review, result);
             if (conditioning is not null && result is not null)
             {
                 review = review with { Flags = [.. review.Flags, conditioning] };
@@ -72,7 +72,7 @@ public static class ReviewEngine
         return SectionComparison.Add(s, result, review, options) with { Combination = s.Combination(id) };
     }
 
-    /// <summary>The case's elastic critical load factor and, below 10, its <c>second-order</c> flag.</summary>
+    /// <summary>The elastic critical load factor of a case with vertical load and, below 10, its <c>second-order</c> flag.</summary>
     private static CaseReview WithSwaySensitivity(StructureModel model, AnalysisResult analysis, CaseReview review, CaseResult? result)
     {
         double? alpha = result is not null ? SwaySensitivity.Of(model, result)

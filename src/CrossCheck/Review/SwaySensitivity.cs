@@ -7,11 +7,23 @@ namespace CrossCheck.Review;
 /// <summary>
 /// The elastic critical load factor of a case or combination (<see cref="CriticalLoadFactor"/>) and, below 10, the
 /// <c>second-order</c> flag: minor for 3 ≤ α_cr &lt; 10 (sway effects may be amplified by 1/(1 − 1/α_cr), EN 1993-1-1
-/// clause 5.2.2(5)B), major below 3. A warning for the designer, never a stability check. Computed only for a structure
+/// clause 5.2.2(5)B), major below 3. A warning for the designer, never a stability check. Computed only for a case with
+/// vertical load (a horizontal load alone gives the columns small axial forces and a meaningless factor) on a structure
 /// with absolute stiffness (E given) in which some member is in compression.
 /// </summary>
 internal static class SwaySensitivity
 {
+    /// <summary>
+    /// Whether the loads of a case — or of a combination with a patterned case, every member loaded — have a vertical
+    /// component (EN 1993-1-1 clause 5.2.1: α_cr is the factor on the design loading that gives elastic instability).
+    /// </summary>
+    public static bool HasVerticalLoad(Submission s, string caseId)
+    {
+        if ((s.Case(caseId) ?? s.Combination(caseId)?.AllLoaded(s.Cases)) is not { } loads) return false;
+        var statics = new ClaimStatics(s);
+        return loads.Loads.Any(l => statics.Resultant(l, 0, 0) is var (fx, fy, _) && fy != 0 && Math.Abs(fy) > 1e-9 * Math.Abs(fx));
+    }
+
     /// <summary>α_cr under the axial forces of a case; null when it is not computed (relative stiffness, no compression).</summary>
     public static double? Of(StructureModel model, Func<string, (double Start, double End)> axial)
     {
