@@ -33,8 +33,7 @@ public sealed class MemoCase
         InfoFlags = c.Flags.Where(f => f.Severity == Severity.Info).Select(f => new MemoFlag(f.Kind.Json(), f.Severity.Json(), f.Where, f.Message, f.SourceText)).ToList();
         Unexplained = c.Causes.Count == 0 && c.EndMoments.Any(e => e.Status is EndStatus.Discrepant or EndStatus.Minor);
         UnexplainedSections = c.SectionCauses.Count == 0 && SectionDifferences(c);
-        Causes = c.AllCauses.Select(x => new MemoCause(x.Code, Fmt.Number(x.Confidence * 100, "0") + " %", Fmt.Number(x.Explains * 100, "0") + " %", x.Message, x.Evidence)
-        { Title = x.Kind.Term().Title }).ToList();
+        Causes = MemoSections.Causes(c);
         Heading = MemoSections.Heading(c);
         IsCombination = c.Combination is not null;
         IsEnvelope = c.Combination?.IsPatterned == true;

@@ -314,6 +314,12 @@ public sealed record MemoCause(string Code, string Confidence, string Explains, 
 {
     /// <summary>The mistake in the trade's words.</summary>
     public string Title { get; init; } = "";
+
+    /// <summary>
+    /// The claims the cause was found from when they are not the end moments alone: "span moments", "envelope", "end moments, span
+    /// moments and shears" (the same mistake found from several tables is one cause); empty for end moments alone.
+    /// </summary>
+    public string FoundFrom { get; init; } = "";
 }
 
 /// <summary>An appendix of the memo (the reference working table), already rendered for Markdown and HTML.</summary>

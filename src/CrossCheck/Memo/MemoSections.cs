@@ -23,6 +23,25 @@ public sealed record MemoEnvelopeRow(string Member, string At, string Bound, str
 /// <summary>Builds the memo's rows for combinations, span moments, shears and envelopes (every number formatted here).</summary>
 internal static class MemoSections
 {
+    /// <summary>
+    /// The likely causes, best first. The same mistake found from several kinds of claim (same code and identity: a wrong
+    /// factor seen in the end moments, span moments and shears of one combination) is one entry that names them all.
+    /// </summary>
+    public static List<MemoCause> Causes(CaseReview c) =>
+        c.AllCauses.GroupBy(x => x.Identity.Length > 0 ? $"{x.Code}|{x.Identity}" : $"{x.Code}|{x.Claims}|{x.Message}").Select(g =>
+        {
+            var x = g.First();
+            var tables = g.Select(k => k.Claims).Distinct().ToList();
+            return new MemoCause(x.Code, Fmt.Number(x.Confidence * 100, "0") + " %", Fmt.Number(x.Explains * 100, "0") + " %", x.Message, x.Evidence)
+            {
+                Title = x.Kind.Term().Title,
+                FoundFrom = tables is ["end-moments"] ? "" : Words(tables.Select(t => t.Replace('-', ' ')).ToList()),
+            };
+        }).ToList();
+
+    /// <summary>"a", "a and b", "a, b and c".</summary>
+    private static string Words(List<string> items) => items.Count <= 1 ? string.Concat(items) : $"{string.Join(", ", items[..^1])} and {items[^1]}";
+
     public static MemoCombination Combination(Combination c, DisplayUnits u)
     {
         _ = u;

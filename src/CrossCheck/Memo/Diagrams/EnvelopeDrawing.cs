@@ -53,9 +53,15 @@ internal static class EnvelopeDrawing
             double size = DiagramStyle.LabelSize, w = DiagramStyle.TextWidth(text, size), h = size * 1.2;
             svg.Text(placer.Place(LabelPlacer.Beyond(v.Tip, v.Outward, along, w, h, 3), w, h), text, size, DiagramStyle.Ink, cssClass: "cc-value");
         }
-        foreach (var (t, c) in layout.Members.SelectMany(t => t.Claims.Where(c => c.Status != EndStatus.Agree).Select(c => (t, c))))
+        var all = layout.Members.SelectMany(t => t.Claims).ToList();
+        foreach (var (t, group) in layout.Members.SelectMany(t => t.Claims.Where(c => c.Status != EndStatus.Agree)
+                     .GroupBy(c => (c.Claimed.X, c.Claimed.Y, c.ClaimedBending)).Select(g => (t, g.ToList()))))
         {
-            string text = $"claimed {c.Bound} {units.MomentMagnitude(c.ClaimedBending, layout.Peak)}{(c.OffScale ? " (off scale)" : "")}{(c.Side == EnvelopeSide.Safe ? ", conservative" : "")}";
+            var c = group[0];
+            // One label for a maximum and a minimum claimed alike; the member named where another member's claim plots close by.
+            string bound = group.Count > 1 ? "max and min" : c.Bound;
+            string whose = all.Any(o => o.Member != c.Member && o.Claimed.DistanceTo(c.Claimed) < 24) ? $"{c.Member}: " : "";
+            string text = $"{whose}claimed {bound} {units.MomentMagnitude(c.ClaimedBending, layout.Peak)}{(c.OffScale ? " (off scale)" : "")}{(c.Side == EnvelopeSide.Safe ? ", conservative" : "")}";
             var outward = c.Claimed - c.Axis;
             if (outward.Length < 1) outward = t.Tension;
             var along = (t.End - t.Start).Unit;
