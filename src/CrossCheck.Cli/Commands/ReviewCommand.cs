@@ -85,7 +85,7 @@ internal static class ReviewCommand
         foreach (var c in review.Cases)
             counts.AddRow(Markup.Escape(c.Case), $"{c.Count(EndStatus.Agree)}", $"{c.Count(EndStatus.Minor)}", $"{c.Count(EndStatus.Discrepant)}",
                 $"{c.Count(EndStatus.Missing)}", $"{c.Count(EndStatus.Unmatched)}", $"{c.Flags.Count(f => f.Severity == Severity.Major)}",
-                $"{c.Flags.Count(f => f.Severity == Severity.Minor)}", Markup.Escape(c.Causes.FirstOrDefault()?.Code ?? "—"));
+                $"{c.Flags.Count(f => f.Severity == Severity.Minor)}", Markup.Escape(c.AllCauses.FirstOrDefault()?.Code ?? "—"));
         console.Write(counts);
         var worst = review.AllEndMoments.Where(e => e.Status is EndStatus.Discrepant or EndStatus.Minor)
             .OrderByDescending(e => Math.Abs(e.Difference ?? 0)).Take(5).ToList();

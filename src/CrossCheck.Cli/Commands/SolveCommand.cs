@@ -71,7 +71,12 @@ internal static class SolveCommand
         console.WriteLine($"moments in {report.MomentUnit}, {report.ConventionName}");
         foreach (var c in report.Result.Cases)
         {
-            string title = report.CombinationWords(c.Case) is { } words ? $"combination {c.Case} = {words}" : $"load case {c.Case}";
+            string title = $"load case {c.Case}";
+            if (report.CombinationWords(c.Case) is { } words)
+            {
+                title = $"combination {c.Case}";
+                console.WriteLine($"combination {c.Case} = {words}");
+            }
             var table = new Table().Border(TableBorder.Simple).Title(Markup.Escape(title));
             table.AddColumn("member");
             table.AddColumn("at joint");
@@ -82,8 +87,9 @@ internal static class SolveCommand
         }
         foreach (var g in report.Envelopes.GroupBy(r => r.Combination))
         {
-            var table = new Table().Border(TableBorder.Simple)
-                .Title(Markup.Escape($"envelope of combination {g.Key} = {report.Submission.Combination(g.Key)?.Words} (span: largest span moment, sagging positive)"));
+            console.WriteLine($"envelope of combination {g.Key} = {report.Submission.Combination(g.Key)?.Words}");
+            console.WriteLine("at a joint: the end moments, largest and least; at span: the largest span moment, sagging positive");
+            var table = new Table().Border(TableBorder.Simple).Title(Markup.Escape($"envelope of {g.Key}"));
             table.AddColumn("member");
             table.AddColumn("at");
             table.AddColumn(new TableColumn(Markup.Escape($"max [{report.MomentUnit}]")).RightAligned());
