@@ -10,32 +10,7 @@ namespace CrossCheck.Tests.Import;
 /// </summary>
 public class CombinationTablesTests
 {
-    private const string Model = """
-        [info]
-        key,value
-        force unit,kN
-        length unit,m
-        sign convention,sagging
-
-        [supports]
-        support,restraint
-        A,pinned
-        B,roller
-        C,roller
-
-        [spans]
-        span,length,E [GPa],I [mm^4]
-        AB,6,200,250e6
-        BC,6,200,250e6
-
-        [loads]
-        case,on,kind,w
-        G,AB,udl,18
-        G,BC,udl,18
-        Q,AB,udl,12
-        Q,BC,udl,12
-
-        """;
+    private const string Model = CombinationBeam.Sagging;
 
     private const string Good = Model + """
         [combinations]

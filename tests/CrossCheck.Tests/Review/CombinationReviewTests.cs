@@ -13,26 +13,7 @@ namespace CrossCheck.Tests.Review;
 /// </summary>
 public class CombinationReviewTests
 {
-    private const string Beam = Reviewing.KnM + """
-
-        [supports]
-        support,restraint
-        A,pinned
-        B,roller
-        C,roller
-
-        [spans]
-        span,length,E [GPa],I [mm^4]
-        AB,6,200,250e6
-        BC,6,200,250e6
-
-        [loads]
-        case,on,kind,w
-        G,AB,udl,18
-        G,BC,udl,18
-        Q,AB,udl,12
-        Q,BC,udl,12
-
+    private const string Beam = Reviewing.KnM + "\n" + CombinationBeam.Tables + """
         [combinations]
         combination,case,factor,pattern
         ULS,G,1.35,
@@ -232,7 +213,34 @@ public class CombinationReviewTests
     [InlineData(15000, Severity.Major)] // α_cr ≈ 2.06: below 3
     public void SecondOrder_FlagsACriticalLoadFactorBelowTen(double p, Severity? expected)
     {
-        string text = Reviewing.KnM + $"""
+        string load = p.ToString(CultureInfo.InvariantCulture);
+        var r = Reviewing.Of(Portal($"1,B,force,{load},down\n1,C,force,{load},down"));
+        var c = r.Cases[0];
+        double euler = Math.PI * Math.PI * 200e6 * 2.5e-4 / 16 / p;
+        c.AlphaCr!.Value.ShouldBe(euler, euler * 2e-3);
+        var flag = c.Flags.SingleOrDefault(f => f.Kind == FlagKind.SecondOrder);
+        if (expected is null) flag.ShouldBeNull();
+        else
+        {
+            flag!.Severity.ShouldBe(expected.Value);
+            flag.Message.ShouldContain("not a stability check");
+        }
+    }
+
+    [Fact]
+    public void SecondOrder_NotGivenForAHorizontalLoadAlone()
+    {
+        // α_cr is the factor on the design loading that brings elastic instability (EN 1993-1-1 clause 5.2.1(3)); a horizontal
+        // load alone gives the columns only the small axial forces of the overturning couple (at most Hh/L; statics), so no factor is given. The
+        // same portal with its vertical loads added gets one.
+        var alone = Reviewing.Of(Portal("1,B,force,30,right"));
+        alone.Cases[0].AlphaCr.ShouldBeNull();
+        alone.AllFlags.ShouldNotContain(f => f.Kind == FlagKind.SecondOrder);
+        var both = Reviewing.Of(Portal("1,B,force,30,right\n1,B,force,500,down\n1,C,force,500,down"));
+        both.Cases[0].AlphaCr.ShouldNotBeNull();
+    }
+
+    private static string Portal(string loads) => Reviewing.KnM + $"""
 
             [joints]
             joint,x,y,restraint
@@ -249,23 +257,10 @@ public class CombinationReviewTests
 
             [loads]
             case,on,kind,P,dir
-            1,B,force,{p.ToString(CultureInfo.InvariantCulture)},down
-            1,C,force,{p.ToString(CultureInfo.InvariantCulture)},down
+            {loads}
 
             [end-moments]
             member,at,moment
             AB,A,0
             """;
-        var r = Reviewing.Of(text);
-        var c = r.Cases[0];
-        double euler = Math.PI * Math.PI * 200e6 * 2.5e-4 / 16 / p;
-        c.AlphaCr!.Value.ShouldBe(euler, euler * 2e-3);
-        var flag = c.Flags.SingleOrDefault(f => f.Kind == FlagKind.SecondOrder);
-        if (expected is null) flag.ShouldBeNull();
-        else
-        {
-            flag!.Severity.ShouldBe(expected.Value);
-            flag.Message.ShouldContain("not a stability check");
-        }
-    }
 }
