@@ -103,6 +103,7 @@ public sealed class MemoModel
         Loads = s.Cases.SelectMany(c => c.Loads).Select(l => Load(l, u)).ToList();
         Combinations = s.Combinations.Select(c => MemoSections.Combination(c, u)).ToList();
         HasSwayCheck = review.Cases.Any(c => c.AlphaCr is not null);
+        HasSectionChecks = s.Combinations.Count + s.Claims.SpanMoments.Count + s.Claims.Shears.Count + s.Claims.Envelopes.Count > 0;
         ClaimCount = s.Claims.EndMoments.Count;
         ReactionClaimCount = s.Claims.Reactions.Count;
         DisplacementClaimCount = s.Claims.Displacements.Count;
@@ -179,6 +180,9 @@ public sealed class MemoModel
 
     /// <summary>An elastic critical load factor was computed for at least one case.</summary>
     public bool HasSwayCheck { get; }
+
+    /// <summary>The submission has combinations, span moments, shears or envelopes, so their checks of the claims ran too.</summary>
+    public bool HasSectionChecks { get; }
 
     /// <summary>The comparison with the previous round when the review was recorded in a register (else <see cref="MemoRounds.None"/>).</summary>
     public MemoRounds Rounds { get; init; } = MemoRounds.None;
