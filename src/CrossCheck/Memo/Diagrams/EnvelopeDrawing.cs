@@ -86,14 +86,6 @@ internal static class EnvelopeDrawing
         foreach (var (status, text) in new[] { (EndStatus.Agree, "claim agrees (or is conservative)"), (EndStatus.Minor, "claim: minor, unsafe side"), (EndStatus.Discrepant, "claim discrepant, unsafe side") })
             if (marks.Contains(status))
                 entries.Add((text, p => MomentDrawing.Marker(svg, new ClaimMark("", MemberEnd.Start, "", p, p, p, status, 0, 0, false), legend: true)));
-        double x = b.MinX, y = b.MaxY + 20, maxX = Math.Max(b.MaxX, b.MinX + 420);
-        foreach (var (text, swatch) in entries)
-        {
-            double w = 24 + DiagramStyle.TextWidth(text, DiagramStyle.SmallSize) + 16;
-            if (x + w > maxX && x > b.MinX) { x = b.MinX; y += 18; }
-            swatch(new Pt(x + 10, y));
-            svg.Text(new Pt(x + 24, y), text, DiagramStyle.SmallSize, DiagramStyle.Muted, cssClass: "cc-legend", halo: false, anchor: "start");
-            x += w;
-        }
+        MomentDrawing.LegendRows(svg, entries);
     }
 }
