@@ -94,7 +94,7 @@ internal static class ReviewCommand
         {
             int comments = review.Comments.Count(cm => cm.Cases.Contains(c.Case));
             counts.AddRow(CommandSupport.Cell(c.Case), Cell(c.Count(EndStatus.Agree)), Cell(c.Count(EndStatus.Minor)), Cell(c.Count(EndStatus.Discrepant)),
-                Cell(c.Count(EndStatus.Missing)), Cell(c.Count(EndStatus.Unmatched)), Cell(comments), CommandSupport.Cell(c.Causes.FirstOrDefault()?.Kind.Term().Title ?? "—"));
+                Cell(c.Count(EndStatus.Missing)), Cell(c.Count(EndStatus.Unmatched)), Cell(comments), CommandSupport.Cell(c.AllCauses.FirstOrDefault()?.Kind.Term().Title ?? "—"));
         }
         console.Write(counts);
         var worst = review.AllEndMoments.Where(e => e.Status is EndStatus.Discrepant or EndStatus.Minor && e.Claim is not null && e.End is not null)

@@ -76,7 +76,8 @@ internal static class SolveCommand
         console.WriteLine($"moments in {report.MomentUnit}, {report.ConventionName}");
         foreach (var c in report.Result.Cases)
         {
-            CommandSupport.Line(console, ($"load case {c.Case}", null));
+            string title = report.CombinationWords(c.Case) is { } words ? $"combination {c.Case} = {words}" : $"load case {c.Case}";
+            CommandSupport.Line(console, (title, null));
             var table = new Table().Border(TableBorder.Simple);
             table.AddColumn("member");
             table.AddColumn("at joint");
@@ -85,5 +86,23 @@ internal static class SolveCommand
                 table.AddRow(CommandSupport.Cell(r.Member), CommandSupport.Cell(r.At), CommandSupport.Cell(Fmt.Number(r.Moment)));
             console.Write(table);
         }
+        foreach (var g in report.Envelopes.GroupBy(r => r.Combination))
+        {
+            console.WriteLine($"envelope of combination {g.Key} = {report.Submission.Combination(g.Key)?.Words}");
+            console.WriteLine("at a joint: the end moments, largest and least; at span: the largest span moment, sagging positive");
+            var table = new Table().Border(TableBorder.Simple).Title(Markup.Escape($"envelope of {g.Key}"));
+            table.AddColumn("member");
+            table.AddColumn("at");
+            table.AddColumn(new TableColumn(Markup.Escape($"max [{report.MomentUnit}]")).RightAligned());
+            table.AddColumn("loaded for max");
+            table.AddColumn(new TableColumn(Markup.Escape($"min [{report.MomentUnit}]")).RightAligned());
+            table.AddColumn("loaded for min");
+            foreach (var r in g)
+                table.AddRow(Markup.Escape(r.Member), Markup.Escape(r.At), Fmt.Number(r.Max), Markup.Escape(Loaded(r.MaxLoaded)),
+                    r.Min is double min ? Fmt.Number(min) : "", r.Min is null ? "" : Markup.Escape(Loaded(r.MinLoaded)));
+            console.Write(table);
+        }
     }
+
+    private static string Loaded(IReadOnlyList<string> members) => members.Count == 0 ? "none" : string.Join(" ", members);
 }

@@ -90,6 +90,8 @@ public sealed record LockedEndMoments(string Case, string Member, double StartMo
     : MemberLoad(Case, Member, Source)
 {
     public override MemberLoadShape Shape() => new LockedEnds(StartMoment, EndMoment);
+
+    public override Load Scaled(double factor, string caseId) => this with { Case = caseId, StartMoment = StartMoment * factor, EndMoment = EndMoment * factor };
 }
 
 /// <summary>The shape of <see cref="LockedEndMoments"/>: end moments that act only through the fixed-end actions.</summary>

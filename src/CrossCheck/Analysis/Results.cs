@@ -35,11 +35,11 @@ public sealed class MemberResult
         // Stations and span extremes are worked out on first use: a large frame solved only for its end moments
         // should not pay for them.
         _stations = new Lazy<Station[]>(BuildStations);
-        _extremes = new Lazy<((double, double), (double, double))>(FindExtremes);
+        _extremes = new Lazy<((double, double), (double, double), (double, double))>(FindExtremes);
     }
 
     private readonly Lazy<Station[]> _stations;
-    private readonly Lazy<((double X, double Moment) Sagging, (double X, double Moment) Hogging)> _extremes;
+    private readonly Lazy<((double X, double Moment) Sagging, (double X, double Moment) Hogging, (double X, double Moment) Top)> _extremes;
 
     public Member Member { get; }
     public double Length { get; }
@@ -86,6 +86,21 @@ public sealed class MemberResult
 
     /// <summary>Most negative bending moment and where.</summary>
     public (double X, double Moment) MaxHogging => _extremes.Value.Hogging;
+
+    /// <summary>
+    /// The span moment: the largest bending moment over the member, ends included, and where (for a member that never
+    /// sags, its least hogging moment).
+    /// </summary>
+    public (double X, double Moment) SpanMaximum => _extremes.Value.Top;
+
+    /// <summary>Shear at the start in the beam convention V = dM/dx along start→end (+wL/2 for a simple span under a downward load).</summary>
+    public double StartV => LocalEndForces[1];
+
+    /// <summary>Shear at the end in the beam convention (−wL/2 for a simple span under a downward load).</summary>
+    public double EndV => -LocalEndForces[4];
+
+    /// <summary>The end shear in the beam convention.</summary>
+    public double VAtEnd(MemberEnd end) => end == MemberEnd.Start ? StartV : EndV;
 
     /// <summary>Loads on this member in local axes (for diagrams).</summary>
     internal IReadOnlyList<LocalAction> Actions => _actions;
@@ -143,7 +158,7 @@ public sealed class MemberResult
         return [.. list];
     }
 
-    private ((double, double), (double, double)) FindExtremes()
+    private ((double, double), (double, double), (double, double)) FindExtremes()
     {
         var candidates = new List<double>();
         var bps = Breakpoints();
@@ -173,16 +188,17 @@ public sealed class MemberResult
                 prevX = x; prevV = v;
             }
         }
-        (double X, double M) max = (0, 0), min = (0, 0);
+        (double X, double M) max = (0, 0), min = (0, 0), top = (0, double.NegativeInfinity);
         foreach (var x in candidates)
         {
             foreach (var m in new[] { Evaluate(x, false).Moment, Evaluate(x, true).Moment })
             {
                 if (m > max.M) max = (x, m);
                 if (m < min.M) min = (x, m);
+                if (m > top.M) top = (x, m);
             }
         }
-        return (max, min);
+        return (max, min, top);
     }
 }
 
@@ -240,4 +256,22 @@ public sealed class AnalysisResult
     public NumericalReport Numerics { get; init; } = new(1, null, []);
 
     public CaseResult Case(string id) => Cases.First(c => c.Case == id);
+
+    /// <summary>The envelopes of the combinations with a patterned case (<see cref="CombinationAnalysis"/>).</summary>
+    public IReadOnlyList<Envelope> Envelopes { get; init; } = [];
+
+    /// <summary>True when the combinations have been analysed: their derived cases are in <see cref="Cases"/>, their envelopes in <see cref="Envelopes"/>.</summary>
+    public bool IncludesCombinations { get; init; }
+
+    /// <summary>The envelope of combination <paramref name="name"/>, if it has one.</summary>
+    public Envelope? Envelope(string name) => Envelopes.FirstOrDefault(e => e.Combination.Name == name);
+
+    /// <summary>This analysis with the derived cases of the combinations added and their envelopes attached.</summary>
+    internal AnalysisResult WithCombinations(AnalysisResult? derived, IReadOnlyList<Envelope> envelopes) =>
+        new(Model, [.. Cases, .. derived?.Cases ?? []], [.. Notes, .. (derived?.Notes ?? []).Except(Notes)], ConditionEstimate)
+        {
+            Numerics = derived is null ? Numerics : Numerics with { Cases = [.. Numerics.Cases, .. derived.Numerics.Cases] },
+            Envelopes = envelopes,
+            IncludesCombinations = true,
+        };
 }

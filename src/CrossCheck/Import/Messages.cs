@@ -71,6 +71,30 @@ internal static class Messages
     public static string CaseWithoutLoads(string id) => F($"load case '{id}' has no loads in the loads table (check the case id)");
     public static string DuplicateClaim(string member, string at, string c, string firstAt) =>
         F($"the moment of member '{member}' at '{at}' in case '{c}' is claimed twice (first at {firstAt})");
+    // ---- combinations, envelopes, span moments, shears -----------------------------------------------
+
+    public static string CombinationNamedLikeCase(string name) =>
+        F($"combination '{name}' has the name of a load case; give it a name of its own (claims name cases and combinations in the same 'case' column)");
+    public static string CombinationCaseUnknown(string c) => F($"load case '{c}' is not in the loads table (check the case id)");
+    public static string CombinationCaseTwice(string combination, string c, string firstAt) =>
+        F($"combination '{combination}' takes case '{c}' twice (first at {firstAt}); give each case once with its factor");
+    public static string UnloadedFactorWithoutPattern =>
+        "'factor unloaded' applies only to a patterned case (pattern = spans); this row is not patterned";
+    public static string ClaimNamesPatterned(string c, string table) =>
+        F($"'{c}' is a combination with a patterned case: it has an envelope, not one answer, so its results go in the 'envelopes' table, not in '{table}'");
+    public static string EnvelopeNotPatterned(string c) =>
+        F($"combination '{c}' has no patterned case (pattern = spans): it has one answer, so claim it in the end-moments, span-moments or shears table");
+    public static string EnvelopeUnknownCombination(string c) => F($"'{c}' is not a combination of the combinations table");
+    public static string EnvelopeNeedsValue => "the row gives neither 'max' nor 'min'; give at least one";
+    public static string EnvelopeSpanMinIgnored => "'min' is not read on a span row: the span row is the largest span moment ('max') only";
+    public static string EnvelopeTwice(string combination, string member, string at, string firstAt) =>
+        F($"the envelope of member '{member}' at '{at}' in combination '{combination}' is given twice (first at {firstAt})");
+    public static string SpanMomentTwice(string member, string c, string firstAt) =>
+        F($"the span moment of member '{member}' in case '{c}' is claimed twice (first at {firstAt})");
+    public static string SpanMomentFreeEnd(string member) =>
+        F($"member '{member}' has a free end (a cantilever): it has no span moment between supports, so this claim was not read (give the moment at its root as an end moment)");
+    public static string ShearTwice(string member, string at, string c, string firstAt) =>
+        F($"the shear of member '{member}' at '{at}' in case '{c}' is claimed twice (first at {firstAt})");
     public static string SpanSupportCount(int spans, int supports) =>
         F($"{spans} span(s) need {spans + 1} supports listed left to right, but the supports table has {supports}");
     public static string UnknownInfoKey(string key) => F($"info key '{key}' is not used by the checker (kept for the memo)");

@@ -27,9 +27,13 @@ public sealed class SubmissionBuilder
         new StructureAssembly(),   // the model from the geometry, checked as a whole
         new ModelSanity(),         // coincident joints, members through joints or twice, look-alike ids: warnings
         new LoadsReader(),
+        new CombinationsReader(),  // factored cases, before the claims that may name them
         new EndMomentsReader(),
         new ReactionsReader(),
         new DisplacementsReader(),
+        new SpanMomentsReader(),
+        new ShearsReader(),
+        new EnvelopesReader(),
         new DistributionReader(),
     ];
 
@@ -63,7 +67,11 @@ public sealed class SubmissionBuilder
         foreach (var reader in Readers) reader.Read(draft);
         if (draft.HasErrors) return new ImportResult(null, Collapse(problems));
         var info = draft.Info with { Units = draft.DisplayUnits() };
-        var submission = new Submission(TextSafety.Clean(source), info, draft.Model, draft.Cases, draft.Claims) { WorkingTables = draft.WorkingTables };
+        var submission = new Submission(TextSafety.Clean(source), info, draft.Model, draft.Cases, draft.Claims)
+        {
+            WorkingTables = draft.WorkingTables,
+            Combinations = draft.Combinations,
+        };
         return new ImportResult(submission, Collapse(problems));
     }
 

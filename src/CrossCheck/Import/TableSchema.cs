@@ -152,7 +152,46 @@ internal static partial class TableSchema
         Text("step", true, "row", "operation", "stage"),
     ], "moment distribution", "distribution table", "working table", "hardy cross");
 
-    public static readonly TableSpec[] All = [Info, Joints, Members, Supports, Spans, Loads, EndMoments, Reactions, Displacements, Distribution];
+    /// <summary>Load combinations: factored load cases, a variable case optionally patterned span by span.</summary>
+    public static readonly TableSpec Combinations = new("combinations",
+    [
+        Id("combination", true, "combo", "load combination", "comb", "combination name"),
+        Id("case", true, "load case", "lc", "loadcase"),
+        Num("factor", QuantityKind.Number, true, "load factor", "partial factor", "gamma", "γ", "γf"),
+        Text("pattern", false, "patterned", "pattern loading", "arrangement"),
+        Num("factor unloaded", QuantityKind.Number, false, "unloaded factor", "factor where unloaded", "gamma unloaded", "γ unloaded", "factor min"),
+    ], "load combinations", "combination factors", "combos");
+
+    /// <summary>Envelopes of combinations with a patterned case: largest and least end moments, largest span moments.</summary>
+    public static readonly TableSpec Envelopes = new("envelopes",
+    [
+        Id("combination", true, "combo", "load combination", "comb"),
+        Id("member", true, "span", "element"),
+        Id("at", true, "end", "joint", "node", "at joint", "location"),
+        Num("max", QuantityKind.Moment, false, "maximum", "M max", "Mmax", "max moment"),
+        Num("min", QuantityKind.Moment, false, "minimum", "M min", "Mmin", "min moment"),
+    ], "envelope", "moment envelope", "moment envelopes", "envelope moments", "pattern envelope");
+
+    /// <summary>Claimed largest span moments, sagging positive.</summary>
+    public static readonly TableSpec SpanMoments = new("span-moments",
+    [
+        Id("case", false, "load case", "lc", "loadcase", "combination", "load combination"),
+        Id("member", true, "span", "element"),
+        Num("moment", QuantityKind.Moment, true, "M", "span moment", "max span moment", "M span", "Mspan", "max moment", "sagging moment"),
+        Num("x", QuantityKind.Length, false, "at x", "position", "x from start", "distance"),
+    ], "span moments", "maximum span moments", "max span moments", "span maxima");
+
+    /// <summary>Claimed member-end shears, beam convention (V = dM/dx along start→end).</summary>
+    public static readonly TableSpec Shears = new("shears",
+    [
+        Id("case", false, "load case", "lc", "loadcase", "combination", "load combination"),
+        Id("member", true, "span", "element"),
+        Id("at", true, "end", "joint", "node", "at joint"),
+        Num("V", QuantityKind.Force, true, "shear", "shear force", "end shear", "V end"),
+    ], "shear forces", "end shears", "member end shears", "member shears");
+
+    public static readonly TableSpec[] All =
+        [Info, Joints, Members, Supports, Spans, Loads, Combinations, EndMoments, Reactions, Displacements, SpanMoments, Shears, Envelopes, Distribution];
 
     public static TableSpec? Find(string name)
     {

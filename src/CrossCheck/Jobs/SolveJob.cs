@@ -33,8 +33,15 @@ public static class SolveJob
         var warnings = imported.Warnings.ToList();
         if (!imported.Succeeded) return new SolveOutcome(path, null, imported.Errors.ToList(), warnings);
         var s = imported.Submission;
-        return new FrameSolver().TrySolve(s.Model, s.Cases, out var result, out var problem)
-            ? new SolveOutcome(path, new SolveReport(s, result), [], warnings)
-            : new SolveOutcome(path, null, [], warnings, problem.Message);
+        if (!new FrameSolver().TrySolve(s.Model, s.Cases, out var result, out var problem)) return new SolveOutcome(path, null, [], warnings, problem.Message);
+        try
+        {
+            // Combinations: derived cases under their names, and the envelopes of those with a patterned case.
+            return new SolveOutcome(path, new SolveReport(s, CombinationAnalysis.Extend(result, s.Cases, s.Combinations)), [], warnings);
+        }
+        catch (StructureException ex)
+        {
+            return new SolveOutcome(path, null, [], warnings, ex.Message);
+        }
     }
 }

@@ -67,8 +67,13 @@ public sealed class MemoModel
         RunningHeader = CssString($"{(s.Info.Reference ?? Title)}{(s.Info.Revision is { Length: > 0 } rev ? $" · revision {rev}" : "")} · analysis check");
         RunningTitle = CssString(Title.Length > 60 ? Title[..57] + "..." : Title);
         VerdictLine = VerdictSentence(review);
-        VerdictRule = "Verdict rule: revise when any claimed moment, reaction or displacement is discrepant (beyond the minor band) or any check " +
-                      "finding is major; concur when every claim agrees and no check finding is above a note; otherwise concur with comments.";
+        bool sections = s.Claims.SpanMoments.Count + s.Claims.Shears.Count + s.Claims.Envelopes.Count > 0;
+        VerdictRule = sections
+            ? "Verdict rule: revise when any claimed moment, shear, reaction or displacement is discrepant (beyond the minor band; an envelope figure " +
+              "only on the unsafe side) or any check finding is major; concur when every claim agrees (an envelope figure may lie on the safe side) and no " +
+              "check finding is above a note; otherwise concur with comments."
+            : "Verdict rule: revise when any claimed moment, reaction or displacement is discrepant (beyond the minor band) or any check " +
+              "finding is major; concur when every claim agrees and no check finding is above a note; otherwise concur with comments.";
 
         var memberOrder = s.Model.Members.Select((m, i) => (m.Id, i)).ToDictionary(x => x.Id, x => x.i, StringComparer.Ordinal);
         Cases = review.Cases.Select(c => new MemoCase(c, u, Conv, id => memberOrder.GetValueOrDefault(id, int.MaxValue), diagrams)).ToList();
@@ -98,10 +103,15 @@ public sealed class MemoModel
             m.A is null ? "—" : areas[i], m.Hinge == Hinge.None ? "" : m.Hinge.ToString().ToLowerInvariant(), m.Source.Citation)).ToList();
         IUnit = s.Model.RelativeStiffness ? "relative" : "10⁶ mm⁴";
         Loads = s.Cases.SelectMany(c => c.Loads).Select(l => Load(l, u)).ToList();
+        Combinations = s.Combinations.Select(c => MemoSections.Combination(c, u)).ToList();
+        HasSwayCheck = review.Cases.Any(c => c.AlphaCr is not null);
+        HasSectionChecks = s.Combinations.Count + s.Claims.SpanMoments.Count + s.Claims.Shears.Count + s.Claims.Envelopes.Count > 0;
         ClaimCount = s.Claims.EndMoments.Count;
         ReactionClaimCount = s.Claims.Reactions.Count;
         DisplacementClaimCount = s.Claims.Displacements.Count;
-        ClaimsRead = $"Claims read: {Words.Count(ClaimCount, "end moment")}, {Words.Count(ReactionClaimCount, "reaction row")}, {Words.Count(DisplacementClaimCount, "displacement row")}.";
+        ClaimsRead = $"Claims read: {Words.Count(ClaimCount, "end moment")}, {Words.Count(ReactionClaimCount, "reaction row")}, {Words.Count(DisplacementClaimCount, "displacement row")}" +
+                     (s.Claims.SpanMoments.Count + s.Claims.Shears.Count + s.Claims.Envelopes.Count == 0 ? "." :
+                         $", {Words.Count(s.Claims.SpanMoments.Count, "span moment")}, {Words.Count(s.Claims.Shears.Count, "end shear")}, {Words.Count(s.Claims.Envelopes.Count, "envelope row")}.");
     }
 
     public string Title { get; }
@@ -165,6 +175,17 @@ public sealed class MemoModel
     /// <summary>"Claims read: 12 end moments, 4 reaction rows, 0 displacement rows."</summary>
     public string ClaimsRead { get; }
 
+    /// <summary>The load combinations as read.</summary>
+    public IReadOnlyList<MemoCombination> Combinations { get; }
+
+    public bool HasCombinations => Combinations.Count > 0;
+
+    /// <summary>An elastic critical load factor was computed for at least one case.</summary>
+    public bool HasSwayCheck { get; }
+
+    /// <summary>The submission has combinations, span moments, shears or envelopes, so their checks of the claims ran too.</summary>
+    public bool HasSectionChecks { get; }
+
     /// <summary>The comparison with the previous round when the review was recorded in a register (else <see cref="MemoRounds.None"/>).</summary>
     public MemoRounds Rounds { get; init; } = MemoRounds.None;
 
@@ -205,6 +226,15 @@ public sealed class MemoModel
         string sentence = string.Create(CultureInfo.InvariantCulture,
             $"Of {Words.Count(compared, "member-end moment")} compared with the independent analysis, {agree} agree{(agree == 1 ? "s" : "")}, {minor} differ{(minor == 1 ? "s" : "")} slightly (minor), {discrepant} {Words.Is(discrepant)} discrepant and {missing} {Words.Is(missing)} missing from the claims.");
         if (unmatched > 0) sentence += $" {Words.Count(unmatched, "claim")} name{(unmatched == 1 ? "s" : "")} an end the model does not have.";
+        var others = review.Cases.SelectMany(c => c.SpanMoments.Select(x => x.Status).Concat(c.Shears.Select(x => x.Status))
+            .Concat(c.Envelope.Select(x => x.Side == EnvelopeSide.Safe ? EndStatus.Agree : x.Status))).ToList();
+        if (others.Count > 0)
+        {
+            int oa = others.Count(x => x == EndStatus.Agree), om = others.Count(x => x == EndStatus.Minor), od = others.Count(x => x == EndStatus.Discrepant);
+            int safe = review.Cases.Sum(c => c.Envelope.Count(x => x.Side == EnvelopeSide.Safe));
+            sentence += string.Create(CultureInfo.InvariantCulture,
+                $" Of {Words.Count(others.Count - others.Count(x => x == EndStatus.Unmatched), "span moment, shear and envelope figure")} compared, {oa} agree{(oa == 1 ? "s" : "")}{(safe > 0 ? $" ({safe} on the safe side of the envelope)" : "")}, {om} {Words.Is(om)} minor and {od} {Words.Is(od)} discrepant.");
+        }
         sentence += majors + minors == 0 ? " The schedule has no comments." : $" The schedule has {Words.Count(majors, "major comment")} and {Words.Count(minors, "minor comment")}.";
         return sentence;
     }
@@ -293,78 +323,13 @@ public sealed record MemoCause(string Code, string Confidence, string Explains, 
 {
     /// <summary>The mistake in the trade's words.</summary>
     public string Title { get; init; } = "";
+
+    /// <summary>
+    /// The claims the cause was found from when they are not the end moments alone: "span moments", "envelope", "end moments, span
+    /// moments and shears" (the same mistake found from several tables is one cause); empty for end moments alone.
+    /// </summary>
+    public string FoundFrom { get; init; } = "";
 }
 
 /// <summary>An appendix of the memo (the reference working table), already rendered for Markdown and HTML.</summary>
 public sealed record MemoAppendix(string Title, string Markdown, string Html);
-
-public sealed class MemoCase
-{
-    /// <param name="conv">Converts a clockwise member-end moment to the submission's own convention.</param>
-    internal MemoCase(CaseReview c, DisplayUnits u, Func<double, MemberEnd?, double> conv, Func<string, int> order, MemoDiagrams? diagrams = null)
-    {
-        Figures = diagrams?.ForCase(c.Case) ?? [];
-        Details = diagrams?.DetailsFor(c.Case) ?? [];
-        DetailsOmitted = diagrams?.DetailsOmitted(c.Case) ?? 0;
-        string mom(double? si, MemberEnd? end, string fmt) => si is double v ? Fmt.Number(u.Moment.FromSi(conv(v, end)), fmt) : "—";
-        Id = c.Case;
-        Peak = mom(c.PeakMoment, null, "0.00");
-        AgreeTolerance = Fmt.Number(u.Moment.FromSi(c.AgreeTolerance), "0.00");
-        MinorTolerance = Fmt.Number(u.Moment.FromSi(c.MinorTolerance), "0.00");
-        Rows = c.EndMoments.OrderBy(e => order(e.Member)).ThenBy(e => e.End ?? MemberEnd.End).Select(e => new MemoRow(e.Member, e.At,
-            e.Claim is { } cl ? Quoting.ClaimNumber(cl) : "—", mom(e.Recomputed, e.End, "0.00"),
-            e.Difference is double d ? Fmt.Number(u.Moment.FromSi(conv(d, e.End)), "+0.00;-0.00;0.00") : "—",
-            e.Status.Json(), e.Source?.Citation ?? "(not claimed)")).ToList();
-        Agree = c.Count(EndStatus.Agree);
-        Minor = c.Count(EndStatus.Minor);
-        Discrepant = c.Count(EndStatus.Discrepant);
-        Missing = c.Count(EndStatus.Missing);
-        Unmatched = c.Count(EndStatus.Unmatched);
-        Reactions = c.Reactions.Select(q => Quantity(q, true, u)).ToList();
-        Displacements = c.Displacements.Select(q => Quantity(q, false, u)).ToList();
-        Flags = c.Flags.Where(f => f.Severity != Severity.Info).Select(f => new MemoFlag(f.Kind.Json(), f.Severity.Json(), f.Where, f.Message, f.SourceText)).ToList();
-        InfoFlags = c.Flags.Where(f => f.Severity == Severity.Info).Select(f => new MemoFlag(f.Kind.Json(), f.Severity.Json(), f.Where, f.Message, f.SourceText)).ToList();
-        Unexplained = c.Causes.Count == 0 && c.EndMoments.Any(e => e.Status is EndStatus.Discrepant or EndStatus.Minor);
-        Causes = c.Causes.Select(x => new MemoCause(x.Code, Fmt.Number(x.Confidence * 100, "0") + " %", Fmt.Number(x.Explains * 100, "0") + " %", x.Message, x.Evidence)
-        { Title = x.Kind.Term().Title }).ToList();
-    }
-
-    private static MemoQuantity Quantity(QuantityFinding q, bool reaction, DisplayUnits u)
-    {
-        var unit = reaction ? (q.Component == "M" ? u.Moment : u.Force) : (q.Component == "rotation" ? new UnitChoice("rad", 1) : u.Displacement);
-        string fmt = q.Component == "rotation" ? "0.000000" : "0.0##";
-        return new MemoQuantity(q.Joint, q.Component, unit.Symbol, Fmt.Number(unit.FromSi(q.Claimed), fmt), Fmt.Number(unit.FromSi(q.Recomputed), fmt),
-            q.Status.Json(), q.Source.Citation);
-    }
-
-    public string Id { get; }
-    public string Peak { get; }
-    public string AgreeTolerance { get; }
-    public string MinorTolerance { get; }
-    public IReadOnlyList<MemoRow> Rows { get; }
-    public int Agree { get; }
-    public int Minor { get; }
-    public int Discrepant { get; }
-    public int Missing { get; }
-    public int Unmatched { get; }
-    public IReadOnlyList<MemoQuantity> Reactions { get; }
-    public IReadOnlyList<MemoQuantity> Displacements { get; }
-    public IReadOnlyList<MemoFlag> Flags { get; }
-    public IReadOnlyList<MemoFlag> InfoFlags { get; }
-    public IReadOnlyList<MemoCause> Causes { get; }
-
-    /// <summary>The case has differences but no tested mistake reproduces them.</summary>
-    public bool Unexplained { get; }
-
-    /// <summary>Loads and bending-moment drawings of the case (HTML memos only).</summary>
-    public IReadOnlyList<MemoFigure> Figures { get; }
-
-    /// <summary>Member details for the members whose claims differ (HTML memos only).</summary>
-    public IReadOnlyList<MemoFigure> Details { get; }
-
-    /// <summary>Members with differing claims left without a detail drawing (beyond <see cref="MemoDiagrams.MaxDetailsPerCase"/>).</summary>
-    public int DetailsOmitted { get; }
-
-    /// <summary>"3 more members of this case have differing claims and no detail drawing; ..."</summary>
-    public string DetailsOmittedText => $"{Words.Count(DetailsOmitted, "more member")} of this case {(DetailsOmitted == 1 ? "has" : "have")} differing claims and no detail drawing; the table above lists them.";
-}

@@ -1,3 +1,4 @@
+using System.Globalization;
 using CrossCheck.Common;
 using CrossCheck.Import;
 using CrossCheck.Model;
@@ -27,6 +28,7 @@ public static class ReviewJson
             ValueKind.Force => Round(u.Force.FromSi(v)),
             ValueKind.Displacement => Round(u.Displacement.FromSi(v)),
             ValueKind.Rotation => Round(v, 9),
+            ValueKind.Factor => Round(v),
             _ => Mom(v),
         };
         string UnitOf(Flag f) => f.Unit switch
@@ -34,8 +36,12 @@ public static class ReviewJson
             ValueKind.Force => u.Force.Symbol,
             ValueKind.Displacement => u.Displacement.Symbol,
             ValueKind.Rotation => "rad",
+            ValueKind.Factor => "1",
             _ => u.Moment.Symbol,
         };
+        double Force(double si) => Round(u.Force.FromSi(si));
+        double? ForceN(double? si) => si is double v ? Force(v) : null;
+        double? LengthN(double? si) => si is double v ? Round(u.Length.FromSi(v)) : null;
         double Qty(QuantityFinding q, double si, bool reaction) => reaction
             ? Round(q.Component == "M" ? u.Moment.FromSi(si) : u.Force.FromSi(si))
             : q.Component == "rotation" ? Round(si, 9) : Round(u.Displacement.FromSi(si));
@@ -62,6 +68,12 @@ public static class ReviewJson
                     .Num("ratio", k.Ratio).Str("stiffer", k.Stiffer).Str("softer", k.Softer).Str("joint", k.Joint).Str("measure", k.Measure)))
             .Each("cases", review.Cases, (o, c) => o
                 .Str("case", c.Case)
+                .Maybe("combination", c.Combination, (o, k) => o
+                    .Bool("patterned", k.IsPatterned).Str("words", k.Words)
+                    .Each("terms", k.Terms, (o, t) => o
+                        .Str("case", t.Case).Num("factor", t.Factor).Str("pattern", t.Patterned ? "spans" : "no").Num("factorUnloaded", t.Patterned ? t.FactorUnloaded : null)
+                        .Str("source", t.Source.RowCompact)))
+                .Num("alphaCr", c.AlphaCr is double a ? Significant(a) : null)
                 .Num("peakMoment", Mom(c.PeakMoment))
                 .Each("endMoments", c.EndMoments, (o, e) => o
                     .Str("member", e.Member).Str("at", e.At).Num("claimed", MomN(e.Claimed)).Num("recomputed", MomN(e.Recomputed))
@@ -74,6 +86,20 @@ public static class ReviewJson
                 .Each("displacements", c.Displacements, (o, q) => o
                     .Str("joint", q.Joint).Str("component", q.Component).Num("claimed", Qty(q, q.Claimed, false)).Num("recomputed", Qty(q, q.Recomputed, false))
                     .Num("difference", Qty(q, q.Difference, false)).Str("status", q.Status.Json()).Str("source", q.Source.RowCompact))
+                .Each("spanMoments", c.SpanMoments, (o, x) => o
+                    .Str("member", x.Member).Num("claimed", Mom(x.Claimed)).Num("recomputed", MomN(x.Recomputed)).Num("difference", MomN(x.Difference))
+                    .Str("status", x.Status.Json()).Num("claimedX", LengthN(x.ClaimedX)).Num("recomputedX", LengthN(x.RecomputedX))
+                    .Num("maximumAt", LengthN(x.LocationNote)).Str("source", x.Claim.Source.RowCompact)
+                    .Str("claimedAsWritten", Quoting.Written(x.Claim.Source, x.Claim.AsWritten)))
+                .Each("shears", c.Shears, (o, x) => o
+                    .Str("member", x.Member).Str("at", x.At).Num("claimed", Force(x.Claimed)).Num("recomputed", ForceN(x.Recomputed))
+                    .Num("difference", ForceN(x.Difference)).Str("status", x.Status.Json()).Str("source", x.Claim.Source.RowCompact)
+                    .Str("claimedAsWritten", Quoting.Written(x.Claim.Source, x.Claim.AsWritten)))
+                .Each("envelope", c.Envelope, (o, x) => o
+                    .Str("member", x.Member).Str("at", x.IsSpan ? "span" : x.At).Str("bound", x.Bound).Num("claimed", Mom(x.Claimed)).Num("recomputed", MomN(x.Recomputed))
+                    .Num("difference", MomN(x.Difference)).Str("status", x.Status.Json()).Str("side", x.Side switch { EnvelopeSide.Unsafe => "unsafe", EnvelopeSide.Safe => "safe", _ => null })
+                    .Strings("governing", x.Governing).Str("arrangement", x.Recomputed is null ? null : x.Arrangement).Num("allLoaded", MomN(x.AllLoaded))
+                    .Num("x", LengthN(x.X)).Str("source", x.Source.RowCompact).Str("claimedAsWritten", x.AsWritten))
                 .Each("flags", c.Flags, (o, f) => o
                     .Str("kind", f.Kind.Json()).Str("severity", f.Severity.Json()).Str("where", f.Where).Num("value", Value(f)).Str("unit", UnitOf(f))
                     .Str("message", f.Message).Str("brief", f.Brief.Length > 0 ? f.Brief : f.Message).Str("source", f.SourceText))
@@ -85,8 +111,8 @@ public static class ReviewJson
                         .Num("expected", w.Step == WorkingStep.DistributionFactor ? Round(w.Expected) : Mom(w.Expected))
                         .Str("source", w.Source.RowCompact))
                     .Num("knockOn", Mom(a.KnockOn)).Str("knockOnColumn", a.KnockOnColumn))
-                .Each("causes", c.Causes, (o, x) => o
-                    .Str("code", x.Code).Str("title", x.Kind.Term().Title).Num("confidence", Round(x.Confidence, 3)).Num("explains", Round(x.Explains, 3))
+                .Each("causes", c.AllCauses, (o, x) => o
+                    .Str("code", x.Code).Str("claims", x.Claims).Str("title", x.Kind.Term().Title).Num("confidence", Round(x.Confidence, 3)).Num("explains", Round(x.Explains, 3))
                     .Bool("reproduces", x.Reproduces).Str("message", x.Message).Str("evidence", x.Evidence).Str("correctWorking", x.CorrectWorking)))
             .Each("comments", review.Comments, (o, cm) => o
                 .Str("id", cm.Id).Str("severity", cm.Severity.Json()).Str("case", cm.Case).Strings("cases", cm.Cases).Str("where", cm.Where)
@@ -124,6 +150,9 @@ public static class ReviewJson
             .EndObj();
         return j.ToString();
     }
+
+    /// <summary>Six significant figures (α_cr: a tiny factor must not round to 0).</summary>
+    private static double Significant(double v) => double.Parse(v.ToString("G6", CultureInfo.InvariantCulture), CultureInfo.InvariantCulture);
 
     private static double Round(double v, int digits = 6)
     {

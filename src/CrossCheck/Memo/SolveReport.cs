@@ -8,6 +8,12 @@ namespace CrossCheck.Memo;
 public sealed record SolvedEndMoment(string Case, string Member, string At, MemberEnd End, double Moment);
 
 /// <summary>
+/// One row of a combination's envelope in the submission's unit: at a member end (its convention) the largest and least
+/// moment, or in the span the largest moment (sagging positive), each with the members loaded to reach it.
+/// </summary>
+public sealed record SolvedEnvelopeRow(string Combination, string Member, string At, double Max, IReadOnlyList<string> MaxLoaded, double? Min, IReadOnlyList<string> MinLoaded);
+
+/// <summary>
 /// The recomputed results of a submission in its own units and sign convention: what <c>crosscheck solve</c>
 /// prints. Rendered as rows (for a console table), CSV or JSON.
 /// </summary>
@@ -29,7 +35,26 @@ public sealed class SolveReport
                 rows.Add(new SolvedEndMoment(c.Case, m.Id, m.End, MemberEnd.End, u.FromSi(ToConvention(mr.EndMoment, MemberEnd.End))));
             }
         EndMoments = rows;
+        var envelopes = new List<SolvedEnvelopeRow>();
+        foreach (var env in result.Envelopes)
+            foreach (var m in submission.Model.Members)
+            {
+                foreach (var end in new[] { MemberEnd.Start, MemberEnd.End })
+                {
+                    var (max, min) = env.Extremes(r => ToConvention(r.Members[m.Id].MomentAtEnd(end), end));
+                    envelopes.Add(new SolvedEnvelopeRow(env.Combination.Name, m.Id, m.JointAt(end), u.FromSi(max.Value), max.Loaded, u.FromSi(min.Value), min.Loaded));
+                }
+                var span = env.SpanMaximum(m.Id);
+                envelopes.Add(new SolvedEnvelopeRow(env.Combination.Name, m.Id, "span", u.FromSi(span.Value), span.Loaded, null, []));
+            }
+        Envelopes = envelopes;
     }
+
+    /// <summary>The envelopes of the combinations with a patterned case, member by member.</summary>
+    public IReadOnlyList<SolvedEnvelopeRow> Envelopes { get; }
+
+    /// <summary>The combination a case stands for, in words ("1.35 G + 1.5 Q"); null for a load case.</summary>
+    public string? CombinationWords(string caseId) => Submission.Combination(caseId)?.Words;
 
     public Submission Submission { get; }
     public AnalysisResult Result { get; }
@@ -49,8 +74,20 @@ public sealed class SolveReport
     public string ToCsv()
     {
         using var csv = new CsvOut();
-        csv.Header("case", "member", "at", $"moment [{MomentUnit}]");
-        foreach (var r in EndMoments) csv.Text(r.Case).Text(r.Member).Text(r.At).Number(r.Moment).End();
+        if (Envelopes.Count == 0)
+        {
+            csv.Header("case", "member", "at", $"moment [{MomentUnit}]");
+            foreach (var r in EndMoments) csv.Text(r.Case).Text(r.Member).Text(r.At).Number(r.Moment).End();
+            return csv.ToString();
+        }
+        // With envelopes: each bound a row of its own, with the members loaded to reach it.
+        csv.Header("case", "member", "at", $"moment [{MomentUnit}]", "bound", "loaded");
+        foreach (var r in EndMoments) csv.Text(r.Case).Text(r.Member).Text(r.At).Number(r.Moment).Text("").Text("").End();
+        foreach (var r in Envelopes)
+        {
+            csv.Text(r.Combination).Text(r.Member).Text(r.At).Number(r.Max).Text("max").Text(string.Join(" ", r.MaxLoaded)).End();
+            if (r.Min is double min) csv.Text(r.Combination).Text(r.Member).Text(r.At).Number(min).Text("min").Text(string.Join(" ", r.MinLoaded)).End();
+        }
         return csv.ToString();
     }
 
@@ -69,6 +106,7 @@ public sealed class SolveReport
             .Each("cases", Result.Cases, (o, c) =>
             {
                 o.Str("case", c.Case)
+                    .Str("combination", CombinationWords(c.Case))
                     .Each("endMoments", EndMoments.Where(e => e.Case == c.Case), (o, e) => o.Str("member", e.Member).Str("at", e.At).Num("moment", Round(e.Moment)))
                     .Each("spanMoments", Submission.Model.Members, (o, m) => o
                         .Str("member", m.Id)
@@ -83,6 +121,11 @@ public sealed class SolveReport
                         .Str("joint", d.Key).Num("ux", Round(units.Displacement.FromSi(d.Value.Ux))).Num("uy", Round(units.Displacement.FromSi(d.Value.Uy)))
                         .Num("rotation", Round(d.Value.Rotation, 9)));
             })
+            .Each("envelopes", Result.Envelopes, (o, env) => o
+                .Str("combination", env.Combination.Name).Str("words", env.Combination.Words)
+                .Each("rows", Envelopes.Where(r => r.Combination == env.Combination.Name), (o, r) => o
+                    .Str("member", r.Member).Str("at", r.At).Num("max", Round(r.Max)).Strings("maxLoaded", r.MaxLoaded)
+                    .Num("min", r.Min is double m ? Round(m) : null).Strings("minLoaded", r.MinLoaded)))
             .Strings("notes", Result.Notes)
             .EndObj();
         return j.ToString();

@@ -13,7 +13,11 @@ public enum LoadDirection
 /// A load of one load case. Magnitudes are in SI (N, N/m, N·m), positive in the stated direction;
 /// moments are clockwise positive. Positions are metres from the member's start joint.
 /// </summary>
-public abstract record Load(string Case, SourceRef Source);
+public abstract record Load(string Case, SourceRef Source)
+{
+    /// <summary>The same load times <paramref name="factor"/>, in case <paramref name="caseId"/> (a load combination).</summary>
+    public abstract Load Scaled(double factor, string caseId);
+}
 
 /// <summary>A load that acts on a member.</summary>
 public abstract record MemberLoad(string Case, string Member, SourceRef Source) : Load(Case, Source)
@@ -31,6 +35,8 @@ public sealed record PointLoad(string Case, string Member, double P, double A, L
     : MemberLoad(Case, Member, Source)
 {
     public override MemberLoadShape Shape() => new ConcentratedForce(A, P, Direction);
+
+    public override Load Scaled(double factor, string caseId) => this with { Case = caseId, P = P * factor };
 }
 
 /// <summary>
@@ -43,6 +49,8 @@ public sealed record DistributedLoad(string Case, string Member, double WStart, 
     public bool IsUniform => WStart == WEnd;
 
     public override MemberLoadShape Shape() => new LinearlyVaryingLoad(A, B, WStart, WEnd, Direction);
+
+    public override Load Scaled(double factor, string caseId) => this with { Case = caseId, WStart = WStart * factor, WEnd = WEnd * factor };
 }
 
 /// <summary>A concentrated couple on a member, clockwise positive, at distance <paramref name="A"/>.</summary>
@@ -50,6 +58,8 @@ public sealed record MemberCouple(string Case, string Member, double M, double A
     : MemberLoad(Case, Member, Source)
 {
     public override MemberLoadShape Shape() => new ConcentratedCouple(A, M);
+
+    public override Load Scaled(double factor, string caseId) => this with { Case = caseId, M = M * factor };
 }
 
 /// <summary>
@@ -72,11 +82,17 @@ public abstract record JointLoad(string Case, string Joint, SourceRef Source) : 
 
 /// <summary>A force at a joint.</summary>
 public sealed record JointForce(string Case, string Joint, double P, LoadDirection Direction, SourceRef Source)
-    : JointLoad(Case, Joint, Source);
+    : JointLoad(Case, Joint, Source)
+{
+    public override Load Scaled(double factor, string caseId) => this with { Case = caseId, P = P * factor };
+}
 
 /// <summary>A couple at a joint, clockwise positive.</summary>
 public sealed record JointCouple(string Case, string Joint, double M, SourceRef Source)
-    : JointLoad(Case, Joint, Source);
+    : JointLoad(Case, Joint, Source)
+{
+    public override Load Scaled(double factor, string caseId) => this with { Case = caseId, M = M * factor };
+}
 
 /// <summary>A load case: its id and its loads in submission order. Support movements apply to every case.</summary>
 public sealed record LoadCase(string Id, IReadOnlyList<Load> Loads)

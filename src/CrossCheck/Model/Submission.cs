@@ -50,5 +50,18 @@ public sealed record Submission(string Source, SubmissionInfo Info, StructureMod
     /// <summary>Moment-distribution working tables the author included, if any.</summary>
     public IReadOnlyList<WorkingTable> WorkingTables { get; init; } = [];
 
+    /// <summary>The load combinations of the <c>combinations</c> table, in the order first read.</summary>
+    public IReadOnlyList<Combination> Combinations { get; init; } = [];
+
     public LoadCase? Case(string id) => Cases.FirstOrDefault(c => c.Id == id);
+
+    /// <summary>The combination named <paramref name="name"/>, if there is one.</summary>
+    public Combination? Combination(string name) => Combinations.FirstOrDefault(c => c.Name == name);
+
+    /// <summary>
+    /// The load cases with every combination that has no patterned case as a derived case (its factored loads under its
+    /// name): what claims may name and what the analysis answers for.
+    /// </summary>
+    public IReadOnlyList<LoadCase> CasesWithCombinations() =>
+        Combinations.Count == 0 ? Cases : [.. Cases, .. Combinations.Where(c => !c.IsPatterned).Select(c => c.AllLoaded(Cases))];
 }

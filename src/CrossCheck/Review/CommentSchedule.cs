@@ -14,7 +14,7 @@ internal static class CommentSchedule
     /// <summary>Most corrected figures a cause comment lists before "and N more".</summary>
     private const int MaxListedEnds = 6;
 
-    private sealed class Draft(string prefix, string caseId, Place? place)
+    internal sealed class Draft(string prefix, string caseId, Place? place)
     {
         public string Prefix { get; } = prefix;
         public List<string> Cases { get; } = [caseId];
@@ -62,13 +62,16 @@ internal static class CommentSchedule
         var wrong = c.EndMoments.Where(e => e.Status is EndStatus.Discrepant or EndStatus.Minor && e.Key is not null).ToList();
         var flags = c.Flags.Where(f => f.Severity != Severity.Info).ToList();
         var agreeing = c.EndMoments.Where(e => e.Status == EndStatus.Agree && e.Key is not null).Select(e => e.Key!.Value).ToHashSet();
+        var agreeingSections = ReviewEngine.AgreeingSections(c);
 
         // 1. The diagnosed mistake and everything it explains.
+        (string Identity, HashSet<EndKey> Ends)? endCause = null;
         if (c.Causes.FirstOrDefault() is { } cause && (cause.Reproduces || cause.Explained.Count > 0))
         {
             var explained = cause.Reproduces ? wrong.Select(e => e.Key!.Value).ToHashSet() : cause.Explained.ToHashSet();
+            endCause = (cause.Identity, explained);
             var ends = wrong.Where(e => explained.Contains(e.Key!.Value)).ToList();
-            var byCause = flags.Where(f => f.Ends.Count > 0 ? f.Ends.All(k => explained.Contains(k) || agreeing.Contains(k))
+            var byCause = flags.Where(f => f.Ends.Count > 0 ? f.Ends.All(k => explained.Contains(k) || agreeing.Contains(k)) && f.Sections.All(agreeingSections.Contains)
                 : f.Kind == FlagKind.DistributionTable && c.Audit?.First is { } cell && ExplainsTable(cause, cell.Step)).ToList();
             if (ends.Count > 0)
             {
@@ -87,7 +90,7 @@ internal static class CommentSchedule
         foreach (var f in flags.Where(f => f.Ends.Count > 0).ToList())
         {
             var culprits = f.Ends.Where(remaining.ContainsKey).Distinct().ToList();
-            if (culprits.Count != 1 || !f.Ends.All(k => remaining.ContainsKey(k) || agreeing.Contains(k))) continue;
+            if (culprits.Count != 1 || !f.Ends.All(k => remaining.ContainsKey(k) || agreeing.Contains(k)) || !f.Sections.All(agreeingSections.Contains)) continue;
             if (!byFigure.TryGetValue(culprits[0], out var list)) byFigure[culprits[0]] = list = [];
             list.Add(f);
             flags.Remove(f);
@@ -101,6 +104,9 @@ internal static class CommentSchedule
                                            || e.Status == EndStatus.Missing);
         foreach (var g in rest.GroupBy(e => e.Member))
             drafts.Add(MemberDraft(c, g.Key, g.ToList(), quote));
+
+        // Span moments, shears and envelopes: their causes, then the differing claims by member (SectionComments).
+        drafts.AddRange(SectionComments.For(c, flags, quote, endCause));
 
         // 4. Checks that no mistake and no single figure explains.
         foreach (var f in flags)
@@ -192,11 +198,12 @@ internal static class CommentSchedule
         {
             if (d.Identity is { } key && byIdentity.TryGetValue(key, out var first))
             {
-                first.Cases.AddRange(d.Cases.Where(x => !first.Cases.Contains(x)));
                 first.Symptoms.AddRange(d.Symptoms);
                 first.Sources.AddRange(d.Sources);
                 if (d.Severity > first.Severity) first.Severity = d.Severity;
-                first.Text += $" The same mistake gives the claims of case {string.Join(", ", d.Cases)}.";
+                var others = d.Cases.Where(x => !first.Cases.Contains(x)).ToList();
+                first.Cases.AddRange(others);
+                if (others.Count > 0) first.Text += $" The same mistake gives the claims of case {string.Join(", ", others)}.";
                 continue;
             }
             if (d.Identity is { } k) byIdentity[k] = d;
@@ -205,7 +212,7 @@ internal static class CommentSchedule
         return merged;
     }
 
-    private static Severity Worst(IEnumerable<EndMomentFinding> ends, IEnumerable<Flag> flags)
+    internal static Severity Worst(IEnumerable<EndMomentFinding> ends, IEnumerable<Flag> flags)
     {
         var s = Severity.Info;
         foreach (var e in ends) s = (Severity)Math.Max((int)s, (int)(e.Status == EndStatus.Discrepant ? Severity.Major : Severity.Minor));
@@ -222,8 +229,8 @@ internal static class CommentSchedule
         return new Symptom(FlagKind.EndMoment.Json(), c.Case, sev, e.Place, text, e.Source?.RowCompact ?? "");
     }
 
-    private static Symptom Symptom(CaseReview c, Flag f) =>
+    internal static Symptom Symptom(CaseReview c, Flag f) =>
         new(f.Kind.Json(), c.Case, f.Severity, f.Place, f.Brief.Length > 0 ? f.Brief : f.Message, f.SourceText);
 
-    private static string Capital(string s) => s.Length == 0 ? s : char.ToUpperInvariant(s[0]) + s[1..];
+    internal static string Capital(string s) => s.Length == 0 ? s : char.ToUpperInvariant(s[0]) + s[1..];
 }

@@ -33,7 +33,11 @@ internal static class Comparison
             double r = result.EndMoment(c.Member, end);
             findings.Add(new EndMomentFinding(caseId, c.Member, s.Model.Member(c.Member).JointAt(end), end, c.Moment, r, band.Status(c.Moment - r), c.Source) { Claim = c });
         }
-        if (result is not null)
+        // Ends are missing from a case whose end moments the author claims; in a submission of end moments alone (no combinations, span
+        // moments, shears or envelopes) also from a case the author left out altogether.
+        bool endMomentsOnly = s.Combinations.Count == 0 && s.Claims.SpanMoments.Count == 0 && s.Claims.Shears.Count == 0 && s.Claims.Envelopes.Count == 0;
+        bool endsExpected = claimed.Count > 0 || endMomentsOnly;
+        if (result is not null && endsExpected)
         {
             var have = claimed.Where(c => c.End is not null).Select(c => new EndKey(c.Member, c.End!.Value)).ToHashSet();
             foreach (var m in s.Model.Members)

@@ -36,6 +36,27 @@ public sealed class Quoting
         return claim.Source.Text is { Length: > 0 } t && t.Any(char.IsAsciiDigit) ? t.Trim() : Fmt.Number(claim.AsWritten, "0.0##");
     }
 
+    /// <summary>A figure of any table as written: the cell's text when it holds digits, else the value read (in the author's unit).</summary>
+    public static string Written(SourceRef? source, double asWritten) =>
+        source?.Text is { Length: > 0 } t && t.Any(char.IsAsciiDigit) ? t.Trim() : Fmt.Number(asWritten, "0.0##");
+
+    /// <summary>A claimed span moment as written: <c>82.9 kN·m</c> (span moments are sagging positive in every submission).</summary>
+    public string Claim(ClaimedSpanMoment claim)
+    {
+        ArgumentNullException.ThrowIfNull(claim);
+        return $"{Written(claim.Source, claim.AsWritten)} {MomentUnit.Symbol}";
+    }
+
+    /// <summary>A claimed end shear as written: <c>73.7 kN</c>.</summary>
+    public string Claim(ClaimedShear claim)
+    {
+        ArgumentNullException.ThrowIfNull(claim);
+        return $"{Written(claim.Source, claim.AsWritten)} {_info.Units.Force.Symbol}";
+    }
+
+    /// <summary>A bending moment that is no member-end moment (a span moment, sagging positive), in the author's unit: <c>82.94 kN·m</c>.</summary>
+    public string SpanMoment(double si) => $"{Fmt.Number(MomentUnit.FromSi(si), "0.0#")} {MomentUnit.Symbol}";
+
     /// <summary>A clockwise member-end moment (N·m) in the author's unit and convention: <c>114.73 kN·m</c>.</summary>
     public string EndMoment(double clockwise, MemberEnd end) => $"{EndNumber(clockwise, end)} {MomentUnit.Symbol}";
 

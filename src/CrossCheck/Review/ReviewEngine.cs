@@ -22,27 +22,32 @@ public static class ReviewEngine
         ArgumentNullException.ThrowIfNull(submission);
         ArgumentNullException.ThrowIfNull(analysis);
         options ??= ReviewOptions.Default;
-        var checks = new ClaimChecks(submission, options);
+        analysis = CombinationAnalysis.Extend(analysis, submission.Cases, submission.Combinations);
+        // A combination without a patterned case is a load case to the checks and the diagnosis: its factored loads under its name.
+        var s = submission.Combinations.Count == 0 ? submission : submission with { Cases = submission.CasesWithCombinations() };
+        var checks = new ClaimChecks(s, options);
         var conditioning = ConditioningFlag(submission, analysis);
         // One diagnoser for the whole review: the cases share its factorisation of the structure.
-        var diagnoser = new Diagnosis.Diagnoser(submission, analysis, options);
+        var diagnoser = new Diagnosis.Diagnoser(s, analysis, options);
         var cases = new List<CaseReview>();
-        var caseIds = analysis.Cases.Select(c => c.Case).ToList();
-        foreach (var id in submission.Claims.EndMoments.Select(c => c.Case).Distinct())
-            if (!caseIds.Contains(id)) caseIds.Add(id);
-        foreach (var id in caseIds)
+        foreach (var id in CaseIds(s, analysis))
         {
             cancel.ThrowIfCancellationRequested();
-            var result = analysis.Cases.FirstOrDefault(c => c.Case == id);
-            var review = Comparison.Compare(submission, result, id, options);
+            var review = Compare(s, analysis, id, options);
             review = review with { Flags = [.. review.Flags, .. Confirmed(checks.Run(id, cancel), review)] };
             foreach (var table in submission.WorkingTables.Where(t => t.Case == id))
             {
                 var audit = Diagnosis.WorkingTableAudit.Audit(submission, table, options.AbsoluteTolerance * submission.Info.Units.Moment.ToSi);
                 review = review with { Audit = audit, Flags = [.. review.Flags, Diagnosis.WorkingTableAudit.ToFlag(audit, submission, review.AgreeTolerance)] };
             }
+            var result = analysis.Cases.FirstOrDefault(c => c.Case == id);
             if (options.Diagnose && result is not null && review.EndMoments.Any(e => e.Status is EndStatus.Discrepant or EndStatus.Minor))
                 review = review with { Causes = diagnoser.Diagnose(review, cancel) };
+            cancel.ThrowIfCancellationRequested();
+            if (options.Diagnose && Diagnosis.SectionDiagnoser.HasDifferences(review))
+                review = review with { SectionCauses = new Diagnosis.SectionDiagnoser(s, analysis, options).Diagnose(review) };
+            cancel.ThrowIfCancellationRequested();
+            if (SwaySensitivity.HasVerticalLoad(s, id)) review = WithSwaySensitivity(s.Model, analysis, review, result);
             if (conditioning is not null && result is not null)
             {
                 review = review with { Flags = [.. review.Flags, conditioning] };
@@ -59,6 +64,36 @@ public static class ReviewEngine
         };
     }
 
+    /// <summary>The cases reviewed, in order: the load cases, the combinations as declared, then any case only the claims name.</summary>
+    private static List<string> CaseIds(Submission s, AnalysisResult analysis)
+    {
+        var ids = s.Cases.Select(c => c.Id).Where(id => s.Combination(id) is null).ToList();
+        ids.AddRange(s.Combinations.Select(c => c.Name));
+        foreach (var id in analysis.Cases.Select(c => c.Case)
+                     .Concat(s.Claims.EndMoments.Select(c => c.Case)).Concat(s.Claims.SpanMoments.Select(c => c.Case)).Concat(s.Claims.Shears.Select(c => c.Case)))
+            if (!ids.Contains(id)) ids.Add(id);
+        return ids;
+    }
+
+    /// <summary>A case's claims against the analysis: end moments, reactions, displacements, span moments and shears; or a patterned combination's envelope.</summary>
+    private static CaseReview Compare(Submission s, AnalysisResult analysis, string id, ReviewOptions options)
+    {
+        if (analysis.Envelope(id) is { } envelope) return EnvelopeComparison.Review(s, envelope, envelope.Combination, options);
+        var result = analysis.Cases.FirstOrDefault(c => c.Case == id);
+        var review = Comparison.Compare(s, result, id, options);
+        return SectionComparison.Add(s, result, review, options) with { Combination = s.Combination(id) };
+    }
+
+    /// <summary>The elastic critical load factor of a case with vertical load and, below 10, its <c>second-order</c> flag.</summary>
+    private static CaseReview WithSwaySensitivity(StructureModel model, AnalysisResult analysis, CaseReview review, CaseResult? result)
+    {
+        double? alpha = result is not null ? SwaySensitivity.Of(model, result)
+            : analysis.Envelope(review.Case) is { } envelope ? SwaySensitivity.Of(model, envelope) : null;
+        return SwaySensitivity.Flag(review.Case, alpha) is { } flag
+            ? review with { AlphaCr = alpha, Flags = [.. review.Flags, flag] }
+            : review with { AlphaCr = alpha };
+    }
+
     /// <summary>
     /// A check that rests only on claims the independent analysis confirms (every one agrees) has felt the spread of an
     /// error elsewhere, not an error of its own: it is kept for the record as info and raises no comment.
@@ -66,8 +101,16 @@ public static class ReviewEngine
     private static IEnumerable<Flag> Confirmed(IEnumerable<Flag> flags, CaseReview compared)
     {
         var agreeing = compared.EndMoments.Where(e => e.Status == EndStatus.Agree && e.Key is not null).Select(e => e.Key!.Value).ToHashSet();
-        return flags.Select(f => f.Severity != Severity.Info && f.Ends.Count > 0 && f.Ends.All(agreeing.Contains) ? f with { Severity = Severity.Info } : f);
+        var sections = AgreeingSections(compared);
+        return flags.Select(f => f.Severity != Severity.Info && f.Ends.Count + f.Sections.Count > 0 && f.Ends.All(agreeing.Contains) && f.Sections.All(sections.Contains)
+            ? f with { Severity = Severity.Info } : f);
     }
+
+    /// <summary>The span-moment, shear and envelope claims of a case that the analysis confirms.</summary>
+    internal static HashSet<SectionKey> AgreeingSections(CaseReview c) =>
+        c.SpanMoments.Where(x => x.Status == EndStatus.Agree).Select(x => x.Key)
+            .Concat(c.Shears.Where(x => x.Status == EndStatus.Agree).Select(x => x.Key))
+            .Concat(c.Envelope.Where(x => x.Status == EndStatus.Agree || x.Side == EnvelopeSide.Safe).Select(x => x.Key)).ToHashSet();
 
     /// <summary>
     /// The numerical sanity layer's finding for the reviewer: members whose stiffnesses differ by a factor of a million
@@ -92,17 +135,22 @@ public static class ReviewEngine
     }
 
     /// <summary>
-    /// The verdict rule (docs/REVIEW-JSON.md, "verdict"): <c>revise</c> when any claim is discrepant or any flag is
-    /// major; <c>concur</c> when every claim agrees and no flag is above info; otherwise <c>concur-with-comments</c>.
+    /// The verdict rule (docs/REVIEW-JSON.md, "verdict"): <c>revise</c> when any claim is discrepant (an envelope claim only
+    /// on the unsafe side) or any flag is major; <c>concur</c> when every claim agrees (an envelope claim may lie on the safe
+    /// side) and no flag is above info; otherwise <c>concur-with-comments</c>.
     /// </summary>
     public static Verdict VerdictOf(IEnumerable<CaseReview> cases)
     {
         var list = cases.ToList();
         if (list.Any(c => c.EndMoments.Any(e => e.Status == EndStatus.Discrepant) || c.Flags.Any(f => f.Severity == Severity.Major)
-                          || c.Reactions.Concat(c.Displacements).Any(q => q.Status == EndStatus.Discrepant)))
+                          || c.Reactions.Concat(c.Displacements).Any(q => q.Status == EndStatus.Discrepant)
+                          || c.SpanMoments.Any(x => x.Status == EndStatus.Discrepant) || c.Shears.Any(x => x.Status == EndStatus.Discrepant)
+                          || c.Envelope.Any(x => x.Status == EndStatus.Discrepant && x.Side == EnvelopeSide.Unsafe)))
             return Verdict.Revise;
         if (list.All(c => c.EndMoments.All(e => e.Status == EndStatus.Agree) && c.Flags.All(f => f.Severity == Severity.Info)
-                          && c.Reactions.Concat(c.Displacements).All(q => q.Status == EndStatus.Agree)))
+                          && c.Reactions.Concat(c.Displacements).All(q => q.Status == EndStatus.Agree)
+                          && c.SpanMoments.All(x => x.Status == EndStatus.Agree) && c.Shears.All(x => x.Status == EndStatus.Agree)
+                          && c.Envelope.All(x => x.Status == EndStatus.Agree || x.Side == EnvelopeSide.Safe)))
             return Verdict.Concur;
         return Verdict.ConcurWithComments;
     }

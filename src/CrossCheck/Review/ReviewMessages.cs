@@ -8,7 +8,7 @@ namespace CrossCheck.Review;
 /// convention. A check states what it found, not why: an explanation ("sidesway ignored") belongs to a cause, and is
 /// written only when the diagnosis shows that cause fits.
 /// </summary>
-internal static class ReviewMessages
+internal static partial class ReviewMessages
 {
     // ---- comparison ---------------------------------------------------------------------------------
 

@@ -69,6 +69,18 @@ public enum FlagKind
     DistributionTable,
     /// <summary>The model's stiffnesses are so different that the analysis is ill-conditioned (a typing or unit error?).</summary>
     Conditioning,
+    /// <summary>A combination's claims are not the factored sum of the same submission's case claims.</summary>
+    Superposition,
+    /// <summary>A claimed span moment does not follow by statics from the claimed end moments and the member's loads.</summary>
+    SpanStatics,
+    /// <summary>A claimed end shear does not follow by statics from the claimed end moments and the member's loads.</summary>
+    ShearStatics,
+    /// <summary>An envelope claim short of an arrangement's value (the author's own figures, or the exact envelope).</summary>
+    Envelope,
+    /// <summary>The elastic critical load factor is below 10: first-order results need second-order treatment.</summary>
+    SecondOrder,
+    /// <summary>A note on a claimed span moment against the analysis (where the maximum is).</summary>
+    SpanMoment,
 }
 
 /// <summary>What a flag's value measures, so it can be shown in the submission's units.</summary>
@@ -78,6 +90,8 @@ public enum ValueKind
     Force,
     Displacement,
     Rotation,
+    /// <summary>A plain number (the elastic critical load factor).</summary>
+    Factor,
 }
 
 public enum Verdict
@@ -132,6 +146,9 @@ public sealed record Flag(FlagKind Kind, Severity Severity, Place Place, double?
     /// <summary>The claimed member ends the check used; empty for checks of other claims (reactions, the working table).</summary>
     public IReadOnlyList<EndKey> Ends { get; init; } = [];
 
+    /// <summary>The span-moment, shear or envelope claims the finding rests on.</summary>
+    public IReadOnlyList<SectionKey> Sections { get; init; } = [];
+
     /// <summary>The finding in a few words for a list of symptoms under a comment ("joint C out of balance by 27.0 kN·m").</summary>
     public string Brief { get; init; } = "";
 
@@ -158,6 +175,12 @@ public enum CauseCode
     SettlementIgnored,
     DistributionArithmetic,
     CopyingSlip,
+    CombinationFactor,
+    CombinationCaseMissing,
+    PatternIgnored,
+    MidspanNotMaximum,
+    FreeMoment,
+    ShearWithoutMoment,
 }
 
 /// <summary>A likely cause of the discrepancies of a case (filled by the diagnosis stage).</summary>
@@ -188,6 +211,12 @@ public sealed record Cause(CauseCode Kind, double Confidence, double Explains, s
 
     /// <summary>The claimed ends this cause accounts for (within the agreement band of its prediction).</summary>
     public IReadOnlyList<EndKey> Explained { get; init; } = [];
+
+    /// <summary>Which claims the cause was found from: <c>end-moments</c>, <c>span-moments</c>, <c>shears</c> or <c>envelope</c>.</summary>
+    public string Claims { get; init; } = "end-moments";
+
+    /// <summary>The span-moment, shear or envelope claims this cause accounts for.</summary>
+    public IReadOnlyList<SectionKey> ExplainedSections { get; init; } = [];
 }
 
 /// <summary>The review of one load case.</summary>
@@ -211,6 +240,30 @@ public sealed record CaseReview(
 
     /// <summary>The audit of the author's working table for this case, when one was submitted.</summary>
     public Diagnosis.WorkingAudit? Audit { get; init; }
+
+    /// <summary>The combination this entry stands for; null for a load case.</summary>
+    public Combination? Combination { get; init; }
+
+    /// <summary>Claimed span moments next to the recomputed ones.</summary>
+    public IReadOnlyList<SpanMomentFinding> SpanMoments { get; init; } = [];
+
+    /// <summary>Claimed end shears next to the recomputed ones.</summary>
+    public IReadOnlyList<ShearFinding> Shears { get; init; } = [];
+
+    /// <summary>Claimed envelope bounds next to the exact envelope (combinations with a patterned case).</summary>
+    public IReadOnlyList<EnvelopeFinding> Envelope { get; init; } = [];
+
+    /// <summary>The bands of the shears (N): the reviewer's tolerances on the case's largest end shear.</summary>
+    public ToleranceBand ShearBand { get; init; }
+
+    /// <summary>Likely causes of differing span-moment, shear and envelope claims, best first per kind of claim.</summary>
+    public IReadOnlyList<Cause> SectionCauses { get; init; } = [];
+
+    /// <summary>The elastic critical load factor under this case's first-order axial forces; null when none was computed.</summary>
+    public double? AlphaCr { get; init; }
+
+    /// <summary>Every cause of the case: those of the end moments, then those of the other claims.</summary>
+    public IEnumerable<Cause> AllCauses => Causes.Concat(SectionCauses);
 }
 
 /// <summary>One finding listed under a comment: what it is, where, and the sentence and sources behind it.</summary>

@@ -7,7 +7,7 @@ public static class ReviewSummary
     public static Cause? TopCause(this ReviewResult review)
     {
         ArgumentNullException.ThrowIfNull(review);
-        return review.Cases.SelectMany(c => c.Causes).OrderByDescending(c => c.Confidence * c.Explains).ThenBy(c => c.Code, StringComparer.Ordinal)
+        return review.Cases.SelectMany(c => c.AllCauses).OrderByDescending(c => c.Confidence * c.Explains).ThenBy(c => c.Code, StringComparer.Ordinal)
             .FirstOrDefault();
     }
 

@@ -35,6 +35,12 @@ public static class ReviewTerms
         [FlagKind.Compatibility] = new("compatibility", "CP", "compatibility"),
         [FlagKind.DistributionTable] = new("distribution-table", "MD", "distribution table"),
         [FlagKind.Conditioning] = new("conditioning", "ST", "conditioning"),
+        [FlagKind.Superposition] = new("superposition", "CB", "superposition of combinations"),
+        [FlagKind.SpanStatics] = new("span-statics", "MS", "span moment by statics"),
+        [FlagKind.ShearStatics] = new("shear-statics", "VS", "end shear by statics"),
+        [FlagKind.Envelope] = new("envelope", "EV", "envelope"),
+        [FlagKind.SecondOrder] = new("second-order", "AC", "second-order effects"),
+        [FlagKind.SpanMoment] = new("span-moment", "SP", "span moment"),
     }.ToFrozenDictionary();
 
     private static readonly FrozenDictionary<CauseCode, CauseTerm> Causes = new Dictionary<CauseCode, CauseTerm>
@@ -53,6 +59,12 @@ public static class ReviewTerms
         [CauseCode.SettlementIgnored] = new("settlement-ignored", "SM", "support movement ignored", true),
         [CauseCode.DistributionArithmetic] = new("distribution-arithmetic", "MD", "arithmetic slip in the distribution table", false),
         [CauseCode.CopyingSlip] = new("copying-slip", "CS", "figure miscopied", false),
+        [CauseCode.CombinationFactor] = new("combination-factor", "CF", "wrong factor in a combination", true),
+        [CauseCode.CombinationCaseMissing] = new("combination-case-missing", "CM", "load case left out of a combination", true),
+        [CauseCode.PatternIgnored] = new("pattern-ignored", "PI", "pattern loading ignored", true),
+        [CauseCode.MidspanNotMaximum] = new("midspan-not-maximum", "MX", "span moment taken at mid-span", true),
+        [CauseCode.FreeMoment] = new("free-moment", "FM", "continuity ignored in the span moment", true),
+        [CauseCode.ShearWithoutMoment] = new("shear-without-moment", "VM", "end moments ignored in the shears", true),
     }.ToFrozenDictionary();
 
     private static readonly FrozenDictionary<Verdict, (string Code, string Words)> Verdicts = new Dictionary<Verdict, (string, string)>

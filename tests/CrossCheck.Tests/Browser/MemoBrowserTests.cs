@@ -78,6 +78,30 @@ public class MemoBrowserTests(BrowserFixture browser)
     }
 
     [Fact]
+    public void EnvelopeMemo_DrawsEveryMembersLargestAndLeastMoment_AndIsNotBlank()
+    {
+        using var t = new TempSubmission();
+        string html = Path.Combine(t.Folder, "memo.html");
+        var run = CliRunner.Run("review", CliRunner.Demo("mezzanine-frame.csv"), "--format", "html", "--out", html, "--quiet", "--date", "2026-12-01");
+        run.ExitCode.ShouldBe(ExitCodes.Comments, run.Err);
+        var members = SubmissionReader.Read(CliRunner.Demo("mezzanine-frame.csv")).Submission!.Model.Members.Count;
+        _browser.ConsoleErrors();
+        var d = _browser.Driver;
+        d.Navigate().GoToUrl(new Uri(html).AbsoluteUri);
+        _browser.ConsoleErrors().ShouldBeEmpty();
+        var envelope = d.FindElements(By.CssSelector("svg.cc-envelope")).ShouldHaveSingleItem();
+        envelope.FindElements(By.CssSelector("path.cc-env-max")).Count.ShouldBe(members);
+        envelope.FindElements(By.CssSelector("path.cc-env-min")).Count.ShouldBe(members);
+        envelope.FindElements(By.CssSelector("text.cc-claim-label")).Count.ShouldBeGreaterThan(0);
+        ((IJavaScriptExecutor)d).ExecuteScript("arguments[0].scrollIntoView({block: 'center'})", envelope);
+        var shot = ((ITakesScreenshot)envelope).GetScreenshot();
+        shot.SaveAsFile(Path.Combine(_browser.Screenshots, "mezzanine-frame-envelope.png"));
+        var png = Png.Read(shot.AsByteArray);
+        png.InkShare().ShouldBeGreaterThan(0.03);
+        png.DistinctColours().ShouldBeGreaterThan(20);
+    }
+
+    [Fact]
     public void ConsoleCheck_SeesAnErrorWhenThereIsOne()
     {
         // The console check above is only worth something if it can fail.

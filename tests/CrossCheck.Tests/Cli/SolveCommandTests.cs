@@ -45,6 +45,29 @@ public class SolveCommandTests
     }
 
     [Fact]
+    public void Solve_PrintsCombinationsAndEnvelopes_InEveryFormat()
+    {
+        // Mezzanine demo: ULS-2 is a derived case; ULS-1 has Q patterned bay by bay. The outer bays' largest span moments come with
+        // the outer bays loaded and the middle one not (alternate spans: EN 1992-1-1 5.1.3, docs/REFERENCE-CHECKS.md group 9).
+        string demo = CliRunner.Demo("mezzanine-frame.csv");
+        var table = CliRunner.Run("solve", demo);
+        table.ExitCode.ShouldBe(0, table.Err);
+        table.Out.ShouldContain("combination ULS-2 = 1.35 G + 1.5 W + 1.05 Q");
+        table.Out.ShouldContain("envelope of combination ULS-1");
+        var csv = CliRunner.Run("solve", demo, "--format", "csv");
+        csv.Out.ShouldStartWith("case,member,at,moment [kN·m],bound,loaded\n");
+        csv.Out.ShouldContain("ULS-1,M1,span,");
+        csv.Out.ShouldContain(",max,M1 M3\n");
+        var json = CliRunner.Run("solve", demo, "--format", "json").Out.ShouldMatchSolveSchema();
+        var doc = JsonDocument.Parse(json).RootElement;
+        doc.GetProperty("cases").EnumerateArray().Single(c => c.GetProperty("case").GetString() == "ULS-2").GetProperty("combination").GetString()
+            .ShouldBe("1.35 G + 1.5 W + 1.05 Q");
+        var env = doc.GetProperty("envelopes").EnumerateArray().ShouldHaveSingleItem();
+        env.GetProperty("rows").EnumerateArray().Single(r => r.GetProperty("member").GetString() == "M1" && r.GetProperty("at").GetString() == "span")
+            .GetProperty("maxLoaded").EnumerateArray().Select(x => x.GetString()).ShouldBe(["M1", "M3"]);
+    }
+
+    [Fact]
     public void Solve_BadInput_ExitsWithTwoAndNamesThePlace()
     {
         var r = CliRunner.Run("solve", TempFile("[joints]\njoint,x,y\nA,0,zero"));

@@ -16,6 +16,7 @@ public class MemoGoldenTests
     [InlineData("footbridge.csv", "footbridge.md")]
     [InlineData("shed-frame", "shed-frame.md")]
     [InlineData("school-hall.csv", "school-hall.md")]
+    [InlineData("mezzanine-frame.csv", "mezzanine-frame.md")]
     public void DemoMemo_MatchesTheGoldenFile(string demo, string golden)
     {
         string memo = RenderDemo(demo, MemoFormat.Markdown);
@@ -28,6 +29,7 @@ public class MemoGoldenTests
     [Theory]
     [InlineData("footbridge.csv")]
     [InlineData("shed-frame")]
+    [InlineData("mezzanine-frame.csv")]
     public void DemoMemo_CarriesTheCautionsAndEverySection(string demo)
     {
         foreach (var format in new[] { MemoFormat.Markdown, MemoFormat.Html })

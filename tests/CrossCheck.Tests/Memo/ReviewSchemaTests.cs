@@ -70,7 +70,7 @@ public class ReviewSchemaTests
     public void TheInputsCoverTheDemosTheFixturesAndTheCatalogue()
     {
         var keys = GoodInputs().ToList();
-        keys.Count(k => k.StartsWith("demo:", StringComparison.Ordinal)).ShouldBe(6); // three demos, each as CSV and as PDF
+        keys.Count(k => k.StartsWith("demo:", StringComparison.Ordinal)).ShouldBe(8); // four demos, each as CSV and as PDF
         keys.Count(k => k.StartsWith("pdf:", StringComparison.Ordinal)).ShouldBeGreaterThanOrEqualTo(5);
         keys.Count(k => k.StartsWith("pdf-error:", StringComparison.Ordinal)).ShouldBeGreaterThanOrEqualTo(3);
     }

@@ -160,3 +160,34 @@ public static class HandTable
         return rows;
     }
 }
+
+/// <summary>
+/// Statics of one span under a full uniform load w with its end moments given (clockwise, so the internal moment is m1 at
+/// the start and −m2 at the end): the hand formulas of every continuous-beam text (common practice), written apart from the
+/// product for the diagnosis tests of span moments and shears.
+/// </summary>
+public static class HandSpan
+{
+    /// <summary>Start shear V = wL/2 − (m1 + m2)/L (beam convention, V = dM/dx).</summary>
+    public static double StartShear(double w, double l, double m1, double m2) => (w * l / 2) - ((m1 + m2) / l);
+
+    /// <summary>End shear (beam convention): V_start − wL.</summary>
+    public static double EndShear(double w, double l, double m1, double m2) => StartShear(w, l, m1, m2) - (w * l);
+
+    /// <summary>The largest internal moment, ends included: m1 + V²/(2w) where the shear is zero inside the span.</summary>
+    public static double Maximum(double w, double l, double m1, double m2)
+    {
+        double v = StartShear(w, l, m1, m2), best = Math.Max(m1, -m2);
+        if (w > 0 && v > 0 && v < w * l) best = Math.Max(best, m1 + (v * v / (2 * w)));
+        return best;
+    }
+
+    /// <summary>The moment at mid-span: (m1 − m2)/2 + wL²/8.</summary>
+    public static double Midspan(double w, double l, double m1, double m2) => ((m1 - m2) / 2) + (w * l * l / 8);
+
+    /// <summary>
+    /// Support moment (hogging, positive) of two equal spans with uniform loads w1 and w2: (w1 + w2)L²/16, by the
+    /// three-moment equation (Clapeyron; docs/REFERENCE-CHECKS.md 3.1 and 3.7).
+    /// </summary>
+    public static double TwoSpanSupport(double w1, double w2, double l) => (w1 + w2) * l * l / 16;
+}

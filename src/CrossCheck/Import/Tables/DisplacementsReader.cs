@@ -17,7 +17,7 @@ internal sealed class DisplacementsReader : ITableReader
             string c = dv.Id(row, "case", required: false) ?? "1";
             string? joint = dv.Id(row, "joint");
             double? ux = dv.Number(row, "ux"), uy = dv.Number(row, "uy"), rot = dv.Number(row, "rotation");
-            if (joint is null) continue;
+            if (joint is null || !d.ClaimCase(dv, row, c, unknownAllowed: true)) continue;
             displacements.Add(new ClaimedDisplacement(c, joint, ux, uy, rot, dv.RowRef(row)));
         }
         d.Claims = d.Claims with { Displacements = displacements };

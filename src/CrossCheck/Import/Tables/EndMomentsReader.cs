@@ -12,14 +12,14 @@ internal sealed class EndMomentsReader : ITableReader
     {
         if (d.Table("end-moments") is not { } t)
         {
-            if (d.Limits.ClaimsRequired) d.MissingTable("end-moments", "it holds the moments under review");
+            // A package that states only span moments, shears or envelopes has claims to check all the same.
+            if (d.Limits.ClaimsRequired && !d.Has("span-moments") && !d.Has("shears") && !d.Has("envelopes"))
+                d.MissingTable("end-moments", "it holds the moments under review");
             return;
         }
         var model = d.Model;
         var v = d.View(t, TableSchema.EndMoments);
         d.Remember(v, "moment", QuantityKind.Moment);
-        var caseIds = d.Cases.Select(c => c.Id).ToHashSet(StringComparer.Ordinal);
-        bool movements = model.HasSupportMovements;
         var moments = new List<ClaimedEndMoment>();
         var seen = new Dictionary<(string, string, MemberEnd), SourceRef>();
         foreach (var row in v.Rows)
@@ -29,18 +29,9 @@ internal sealed class EndMomentsReader : ITableReader
             string? at = v.Id(row, "at");
             double? value = v.Number(row, "moment", required: true);
             if (memberId is null || at is null || value is null) continue;
-            if (!caseIds.Contains(c) && !movements)
-            {
-                // A case whose loads were all left out for errors of their own is not reported again.
-                if (!d.RejectedCases.Contains(c) && d.Has("loads")) d.Error(v.CellRef(row, "case"), Messages.CaseWithoutLoads(c));
-                continue;
-            }
-            MemberEnd? end = null;
-            if (model.TryGetMember(memberId, out var member))
-            {
-                string atNorm = TableSchema.Normalize(at);
-                end = member.EndAt(at) ?? (atNorm is "start" or "i" or "near" ? MemberEnd.Start : atNorm is "end" or "j" or "far" ? MemberEnd.End : null);
-            }
+            // A case whose loads were all left out for errors of their own is not reported again.
+            if (!d.ClaimCase(v, row, c)) continue;
+            MemberEnd? end = MemberEndCell.Resolve(model, memberId, at);
             double cw = value.Value;
             if (d.Info.SignConvention == SignConvention.Sagging && end == MemberEnd.End) cw = -cw;
             double asWritten = value.Value / (v.Unit("moment")?.ToSi ?? 1);

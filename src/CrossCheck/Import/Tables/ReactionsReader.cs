@@ -15,7 +15,7 @@ internal sealed class ReactionsReader : ITableReader
             string c = rv.Id(row, "case", required: false) ?? "1";
             string? joint = rv.Id(row, "joint");
             double? rx = rv.Number(row, "Rx"), ry = rv.Number(row, "Ry"), m = rv.Number(row, "M");
-            if (joint is null) continue;
+            if (joint is null || !d.ClaimCase(rv, row, c, unknownAllowed: true)) continue;
             reactions.Add(new ClaimedReaction(c, joint, rx, ry, m, rv.RowRef(row)));
         }
         d.Claims = d.Claims with { Reactions = reactions };

@@ -124,6 +124,28 @@ internal sealed class SubmissionDraft(string source, IReadOnlyDictionary<string,
 
     public IReadOnlyList<WorkingTable> WorkingTables { get; set; } = [];
 
+    /// <summary>The load combinations (<see cref="CombinationsReader"/>); empty until that table is read.</summary>
+    public List<Combination> Combinations { get; } = [];
+
+    /// <summary>
+    /// Whether a claim of <paramref name="v"/>'s table may name case <paramref name="c"/>: a load case or a combination
+    /// without a patterned case. A patterned combination is an input error (its claims go in the envelopes table); an
+    /// unknown case is one unless the model has support movements (a case of movements alone), or the case was left
+    /// out for an error already reported.
+    /// </summary>
+    public bool ClaimCase(TableView v, RawRow row, string c, bool unknownAllowed = false)
+    {
+        if (Combinations.FirstOrDefault(x => x.Name == c) is { } combination)
+        {
+            if (!combination.IsPatterned) return true;
+            Error(v.CellRef(row, "case"), Messages.ClaimNamesPatterned(c, v.Spec.Name));
+            return false;
+        }
+        if (unknownAllowed || Cases.Any(x => x.Id == c) || Model.HasSupportMovements) return true;
+        if (!RejectedCases.Contains(c) && Has("loads")) Error(v.CellRef(row, "case"), Messages.CaseWithoutLoads(c));
+        return false;
+    }
+
     private static bool StiffnessGiven(IReadOnlyDictionary<string, RawTable> tables)
     {
         var t = tables.GetValueOrDefault("members") ?? tables.GetValueOrDefault("spans");

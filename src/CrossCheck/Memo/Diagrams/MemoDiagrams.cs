@@ -64,6 +64,16 @@ public sealed class MemoDiagrams
 
         foreach (var c in review.Cases)
         {
+            if (analysis.Envelope(c.Case) is { } envelope)
+            {
+                var env = EnvelopeLayout.Build(model, envelope, c, s.Info.SignConvention, sketch, PeakPixelsFor(sketch, model));
+                int unsafeClaims = c.Envelope.Count(x => x.Side == EnvelopeSide.Unsafe), safe = c.Envelope.Count(x => x.Side == EnvelopeSide.Safe);
+                result._case[c.Case] = [new MemoFigure(n++, "envelope", EnvelopeDrawing.Render(model, sketch, env, units, c.Case),
+                    $"Combination {c.Case}: envelope of the bending moment [{mu}] over every arrangement of its patterned load — filled: the largest, dashed: the least — " +
+                    "drawn on the tension side of a positive moment at one scale. Each claimed envelope figure is marked where it would plot " +
+                    $"(diamond: agrees or lies on the safe side; triangle: minor, unsafe side; ringed cross: discrepant, unsafe side). {Count(unsafeClaims, "claim")} on the unsafe side, {safe} conservative.")];
+                continue;
+            }
             var caseResult = analysis.Cases.FirstOrDefault(x => x.Case == c.Case);
             if (caseResult is null) continue;
             var loads = s.Case(c.Case);

@@ -213,6 +213,13 @@ internal static class MomentDrawing
             if (!marks.Contains(status)) continue;
             entries.Add((text, p => Marker(svg, new ClaimMark("", MemberEnd.Start, "", p, p, p, status, 0, 0, false), legend: true)));
         }
+        LegendRows(svg, entries);
+    }
+
+    /// <summary>Sets legend entries (a swatch drawn at a point, then its text) in rows under the drawing.</summary>
+    internal static void LegendRows(SvgCanvas svg, IEnumerable<(string Text, Action<Pt> Swatch)> entries)
+    {
+        var b = svg.Bounds;
         double x = b.MinX, y = b.MaxY + 20, maxX = Math.Max(b.MaxX, b.MinX + 420);
         foreach (var (text, swatch) in entries)
         {

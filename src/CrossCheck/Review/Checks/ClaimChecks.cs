@@ -53,6 +53,10 @@ internal sealed class ClaimChecks
         new CompatibilityCheck(),
         new ReactionBalanceCheck(),
         new SymmetryCheck(),
+        new SuperpositionCheck(),
+        new SpanStaticsCheck(),
+        new ShearStaticsCheck(),
+        new EnvelopeCheck(),
     ];
 
     private readonly Submission _s;
@@ -90,8 +94,10 @@ internal sealed class ClaimChecks
     {
         var claims = _s.Claims.EndMoments.Where(c => c.Case == caseId && c.End is not null)
             .ToDictionary(c => new EndKey(c.Member, c.End!.Value));
-        if (claims.Count == 0) return null;
-        double peak = claims.Values.Max(c => Math.Abs(c.Moment));
+        var spans = _s.Claims.SpanMoments.Where(c => c.Case == caseId).ToList();
+        bool others = spans.Count > 0 || _s.Claims.Shears.Any(c => c.Case == caseId) || _s.Claims.Envelopes.Any(c => c.Combination == caseId);
+        if (claims.Count == 0 && !others) return null;
+        double peak = claims.Values.Select(c => Math.Abs(c.Moment)).Concat(spans.Select(c => Math.Abs(c.Moment))).DefaultIfEmpty(0).Max();
         var band = ToleranceBand.For(_options, peak, _options.AbsoluteTolerance * _s.Info.Units.Moment.ToSi);
         return new CheckContext(_s, _options, _statics, _kinematics, _s.Case(caseId) ?? new LoadCase(caseId, []), claims, band);
     }

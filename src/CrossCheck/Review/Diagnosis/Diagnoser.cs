@@ -31,6 +31,8 @@ public sealed class Diagnoser
         new LoadMisplacedFamily(),
         new HingeIgnoredFamily(),
         new SettlementIgnoredFamily(),
+        new CombinationFactorFamily(),
+        new CombinationCaseMissingFamily(),
     ];
 
     private readonly Submission _s;

@@ -14,7 +14,7 @@ public class PdfAccuracyTests(ITestOutputHelper output)
 {
     public static IEnumerable<object[]> Committed() =>
     [
-        ["demo/footbridge"], ["demo/shed-frame"],
+        ["demo/footbridge"], ["demo/shed-frame"], ["demo/mezzanine-frame"],
         ["pdf/four-span-floor-beam"], ["pdf/portal-frame-decimal-comma"], ["pdf/propped-cantilever-plain-text"], ["pdf/sideways-two-span-beam"], ["pdf/us-canopy-beam-grid"],
     ];
 
