@@ -57,9 +57,7 @@ public class FuzzTests(ITestOutputHelper output)
             }
             else
             {
-                path = Path.Combine(t.Folder, Path.GetFileName(from));
-                Directory.CreateDirectory(path);
-                foreach (var f in Directory.GetFiles(from)) File.Copy(f, Path.Combine(path, Path.GetFileName(f)));
+                path = t.CopyFolder(from, Path.GetFileName(from));
                 File.WriteAllBytes(Path.Combine(path, file), Mutations.Apply(File.ReadAllBytes(Path.Combine(from, file)), edits));
             }
             if (Fuzz.Exercise(path, $"{submission}{(file is null ? "" : "/" + file)} {string.Join(" ", edits.Select(e => e.ToString()))}")) Interlocked.Increment(ref reviewed);
@@ -216,8 +214,7 @@ internal static partial class Fuzz
         string target = Path.Combine(dir, $"{DateTime.UtcNow:yyyyMMddHHmmssfff}-{Path.GetFileName(path)}");
         if (Directory.Exists(path))
         {
-            Directory.CreateDirectory(target);
-            foreach (var f in Directory.GetFiles(path)) File.Copy(f, Path.Combine(target, Path.GetFileName(f)));
+            TempSubmission.CopyFiles(path, target);
         }
         else if (File.Exists(path))
         {

@@ -160,8 +160,7 @@ public class InterruptedScreenTests
     public void SubmissionsOverTheTimeBudget_LinksToDevices_AndPipes_AreRows_AndTheBatchGoesOn()
     {
         using var t = new TempSubmission();
-        string inbox = Path.Combine(t.Folder, "inbox");
-        Directory.CreateDirectory(inbox);
+        string inbox = t.MakeFolder("inbox");
         File.WriteAllText(Path.Combine(inbox, "good.csv"), SampleText.All);
         SpecialFiles.Link(Path.Combine(inbox, "zero.csv"), "/dev/zero");
         SpecialFiles.Link(Path.Combine(inbox, "passwd.csv"), "/etc/passwd");

@@ -24,6 +24,29 @@ public sealed class TempSubmission : IDisposable
         return path;
     }
 
+    /// <summary>A new, empty folder <paramref name="name"/> inside the scratch folder.</summary>
+    public string MakeFolder(string name)
+    {
+        string path = Path.Combine(Folder, name);
+        Directory.CreateDirectory(path);
+        return path;
+    }
+
+    /// <summary>A new folder <paramref name="name"/> inside the scratch folder holding a copy of the files of <paramref name="from"/>.</summary>
+    public string CopyFolder(string from, string name)
+    {
+        string path = Path.Combine(Folder, name);
+        CopyFiles(from, path);
+        return path;
+    }
+
+    /// <summary>Copies the files of the folder <paramref name="from"/> (not its subfolders) into <paramref name="to"/>, made if need be.</summary>
+    public static void CopyFiles(string from, string to)
+    {
+        Directory.CreateDirectory(to);
+        foreach (var f in Directory.GetFiles(from)) File.Copy(f, Path.Combine(to, Path.GetFileName(f)));
+    }
+
     public static ImportResult ReadText(string sectioned)
     {
         using var t = new TempSubmission();
