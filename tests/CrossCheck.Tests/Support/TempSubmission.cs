@@ -94,6 +94,19 @@ public static class SampleText
         1,AB,B,0
         """;
 
+    /// <summary>
+    /// The joints of the portal frame of docs/REFERENCE-CHECKS.md group 5 on fixed feet: columns 4 m high at A–B and
+    /// D–C, the beam B–C 6 m long (members are the test's own).
+    /// </summary>
+    public const string PortalJoints = """
+        [joints]
+        joint,x,y,restraint
+        A,0,0,fixed
+        B,0,4,free
+        C,6,4,free
+        D,6,0,fixed
+        """;
+
     public static string All => string.Join("\n\n", Info, Frame, Loads, Claims);
 
     /// <summary>The sample with one section replaced.</summary>
