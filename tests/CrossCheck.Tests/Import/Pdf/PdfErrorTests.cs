@@ -39,12 +39,7 @@ public class PdfErrorTests
     /// <summary>A small valid submission as a PDF (a propped cantilever, kN and m).</summary>
     private static byte[] Sample(Action<PdfFixtureWriter>? extra = null, int pages = 1)
     {
-        var w = new PdfFixtureWriter();
-        w.Text("Project: Error fixture").Text("Units: kN, m");
-        w.Table(new FixtureTable(["Joint", "x", "y", "Restraint"], [["A", "0", "0", "fixed"], ["B", "6", "0", "roller"]]));
-        w.Table(new FixtureTable(["Member", "Start", "End", "E [GPa]", "I [mm4]"], [["AB", "A", "B", "200", "250e6"]]));
-        w.Table(new FixtureTable(["Case", "On", "Kind", "w"], [["1", "AB", "udl", "18"]]));
-        w.Table(new FixtureTable(["Case", "Member", "At", "Moment"], [["1", "AB", "A", "-81"], ["1", "AB", "B", "0"]]));
+        var w = PdfTestData.SampleBeam("Error fixture");
         extra?.Invoke(w);
         for (int p = 1; p < pages; p++) w.NewPage().Text($"Appendix page {p}");
         return w.Build();

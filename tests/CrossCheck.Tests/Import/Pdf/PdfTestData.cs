@@ -157,6 +157,21 @@ public static class PdfTestData
         string Opt(double? v) => v is double x ? G(x) : "-";
     }
 
+    /// <summary>
+    /// The sample beam of <see cref="SampleText"/> (a propped cantilever, kN and m) as PDF tables under a project line:
+    /// joints (B at x = <paramref name="xOfB"/>, as printed), members, loads and, unless left out, the claimed end moments.
+    /// </summary>
+    public static PdfFixtureWriter SampleBeam(string project, string xOfB = "6", bool claims = true)
+    {
+        var w = new PdfFixtureWriter();
+        w.Text("Project: " + project).Text("Units: kN, m");
+        w.Table(new FixtureTable(["Joint", "x", "y", "Restraint"], [["A", "0", "0", "fixed"], ["B", xOfB, "0", "roller"]]));
+        w.Table(new FixtureTable(["Member", "Start", "End", "E [GPa]", "I [mm4]"], [["AB", "A", "B", "200", "250e6"]]));
+        w.Table(new FixtureTable(["Case", "On", "Kind", "w"], [["1", "AB", "udl", "18"]]));
+        if (claims) w.Table(new FixtureTable(["Case", "Member", "At", "Moment"], [["1", "AB", "A", "-81"], ["1", "AB", "B", "0"]]));
+        return w;
+    }
+
     /// <summary>Writes a PDF's bytes to a temporary file (kept in CROSSCHECK_KEEP_PDF when that is set, for a look).</summary>
     public static string Save(TempSubmission t, string name, byte[] pdf)
     {
