@@ -13,6 +13,13 @@ public static class HostileSet
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
+    /// <summary>A set-up that writes the small beam (<see cref="Beam"/>) as calc.csv and runs <paramref name="args"/>.</summary>
+    public static Func<string, string[]> OnBeam(params string[] args) => f =>
+    {
+        Write(f, "calc.csv", Beam());
+        return args;
+    };
+
     /// <summary>A valid propped cantilever (A fixed, B roller, 6 m, 18 kN/m) with any section replaced.</summary>
     public static string Beam(string? title = null, string? joints = null, string? members = null, string? loads = null, string? claims = null, string? extraInfo = null) =>
         $"[info]\nkey,value\ntitle,{title ?? "Hostile round lintel"}\nforce unit,kN\nlength unit,m\n{extraInfo}\n" +
@@ -86,11 +93,7 @@ public static class HostileSet
             Write(f, "in/a.csv", Beam());
             return ["screen", "in", "--template", "/dev/zero", "--no-register"];
         }, Protected: ["/dev/zero"]));
-        list.Add(new("special-files", "/dev/null as --register", Expect.Refused, f =>
-        {
-            Write(f, "calc.csv", Beam());
-            return ["review", "calc.csv", "--register", "/dev/null"];
-        }, Check: (_, _) => File.Exists("/dev/null-wal") ? Verdict.Overwrite : null, Protected: ["/dev/null"]));
+        list.Add(new("special-files", "/dev/null as --register", Expect.Refused, OnBeam("review", "calc.csv", "--register", "/dev/null"), Check: (_, _) => File.Exists("/dev/null-wal") ? Verdict.Overwrite : null, Protected: ["/dev/null"]));
         list.Add(new("special-files", "folder table linked to /dev/zero", Expect.Refused, f =>
         {
             Directory.CreateDirectory(Path.Combine(f, "sub"));
