@@ -5,9 +5,10 @@ using System.Text;
 namespace CrossCheck.TestTools;
 
 /// <summary>
-/// A fresh set of hostile inputs and situations, made from a seed (none of them from the shipped catalogue): special files,
-/// links, encodings, huge and odd values, terminal escapes, injection strings, mechanisms, submissions over their time budget,
-/// outputs that name inputs or devices, damaged registers, odd models and interrupted screens. All content is invented.
+/// A fresh set of hostile inputs and situations, made from a variant number (it starts the random numbers: the same
+/// number makes the same set) and none of them from the shipped catalogue: special files, links, encodings, huge and odd
+/// values, terminal escapes, injection strings, mechanisms, submissions over their time budget, outputs that name inputs
+/// or devices, damaged registers, odd models and interrupted screens. All content is invented.
 /// </summary>
 public static class HostileSet
 {
@@ -42,9 +43,9 @@ public static class HostileSet
         p.WaitForExit();
     }
 
-    public static List<Scenario> Make(int seed, string demo)
+    public static List<Scenario> Make(int variant, string demo)
     {
-        var rnd = new Random(seed);
+        var rnd = new Random(variant);
         var list = new List<Scenario>();
         SpecialFiles(list, rnd);
         Links(list);

@@ -152,8 +152,8 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
     [PostgresData]
     public void TwoScreensOfOneRegister_AtTheSameTime_BothSucceed(RegisterKind kind)
     {
-        using var one = new GeneratedBatch(new BatchPlan(6, 1, 1, 1, 1, 2), seed: 21);
-        using var two = new GeneratedBatch(new BatchPlan(6, 1, 1, 1, 1, 2), seed: 22);
+        using var one = new GeneratedBatch(new BatchPlan(6, 1, 1, 1, 1, 2), variant: 21);
+        using var two = new GeneratedBatch(new BatchPlan(6, 1, 1, 1, 1, 2), variant: 22);
         using var db = TestRegister.Create(kind, one.Root, "shared.db");
         var a = ChildProcess.Cli("screen", one.Folder, "--out", one.Out, "--register", db.Location, "-q");
         var b = ChildProcess.Cli("screen", two.Folder, "--out", two.Out, "--register", db.Location, "-q");
@@ -209,7 +209,7 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
     [PostgresData]
     public void AScreenKilledMidBatch_LeavesAConsistentRegister_AndTheNextScreenCompletesIt(RegisterKind kind)
     {
-        using var batch = new GeneratedBatch(new BatchPlan(60, 10, 10, 5, 5, 0), seed: 31);
+        using var batch = new GeneratedBatch(new BatchPlan(60, 10, 10, 5, 5, 0), variant: 31);
         using var db = TestRegister.Create(kind, batch.Root, "crosscheck-register.db");
         using var screen = ChildProcess.Cli("screen", batch.Folder, "--out", batch.Out, "--register", db.Location, "-q", "--jobs", "1");
         var clock = Stopwatch.StartNew();

@@ -10,7 +10,7 @@ namespace CrossCheck.Tests.Support;
 /// Makes the bad inputs of the catalogue (<c>fixtures/bad/manifest.csv</c>) that are binary, huge or hostile, so that
 /// none of them is committed: garbage bytes named .csv, over-long lines, files over each limit, truncated PDFs and PDF
 /// bombs (compression bombs, deep nesting, forms painted billions of times). Every file is built from invented content
-/// and a fixed seed, so each run makes the same bytes.
+/// and random numbers of a fixed variant, so each run makes the same bytes.
 /// </summary>
 public static class HostileInputs
 {
@@ -63,11 +63,11 @@ public static class HostileInputs
 
     private static byte[] Text(string text) => Encoding.UTF8.GetBytes(text);
 
-    /// <summary>Bytes that are no text at all (NULs included), from a fixed seed.</summary>
-    public static byte[] Garbage(int length, int seed)
+    /// <summary>Bytes that are no text at all (NULs included), from random numbers of the given variant.</summary>
+    public static byte[] Garbage(int length, int variant)
     {
         var bytes = new byte[length];
-        new Random(seed).NextBytes(bytes);
+        new Random(variant).NextBytes(bytes);
         return bytes;
     }
 

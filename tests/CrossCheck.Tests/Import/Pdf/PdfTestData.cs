@@ -78,16 +78,16 @@ public static class PdfTestData
         """;
 
     /// <summary>A regular frame with random sections and loads, written as CSV with its recomputed end moments as the claims.</summary>
-    public static string RandomFrame(int seed, int bays, int storeys)
+    public static string RandomFrame(int variant, int bays, int storeys)
     {
-        var shape = new FrameShape(bays, storeys, FixedBases: seed % 2 == 0, Elastic: false, Hinges: seed % 3 == 0, seed);
+        var shape = new FrameShape(bays, storeys, FixedBases: variant % 2 == 0, Elastic: false, Hinges: variant % 3 == 0, variant);
         var b = RandomFrames.Build(shape, loadCases: 2);
         var model = b.Model;
         var cases = b.Cases;
         var result = new FrameSolver().Solve(model, cases);
         string F(double v) => v.ToString("G7", CultureInfo.InvariantCulture);
         var sb = new StringBuilder();
-        sb.Append("[info]\nkey,value\ntitle,Random frame ").Append(seed).Append("\nforce unit,kN\nlength unit,m\n\n");
+        sb.Append("[info]\nkey,value\ntitle,Random frame ").Append(variant).Append("\nforce unit,kN\nlength unit,m\n\n");
         sb.Append("[joints]\njoint,x [m],y [m],restraint\n");
         foreach (var j in model.Joints) sb.Append(CultureInfo.InvariantCulture, $"{j.Id},{F(j.X)},{F(j.Y)},{Restraint(j.Restraint)}\n");
         sb.Append("\n[members]\nmember,start,end,E [kPa],I [m^4],hinge\n");
