@@ -82,14 +82,7 @@ public static class ReviewProfile
             }
             var whole = ReviewEngine.Review(s, a);
             Lap("whole review");
-            CrossCheck.Memo.ReviewJson.Write(whole);
-            Lap("json");
-            CrossCheck.Memo.MemoRenderer.Render(new CrossCheck.Memo.MemoModel(whole, null), CrossCheck.Memo.MemoFormat.Markdown);
-            Lap("markdown memo");
-            var diagrams = CrossCheck.Memo.Diagrams.MemoDiagrams.For(whole);
-            Lap("diagrams");
-            CrossCheck.Memo.MemoRenderer.Render(new CrossCheck.Memo.MemoModel(whole, diagrams), CrossCheck.Memo.MemoFormat.Html);
-            Lap("html memo");
+            OutputStages.Write(whole, Lap);
         }
         foreach (var stage in order)
             Console.WriteLine($"{stage,-40} {best[stage],10:0.0} ms wall {cpu[stage],10:0.0} ms CPU{(counts.TryGetValue(stage, out int n) ? $"  ({n} hypotheses)" : "")}");

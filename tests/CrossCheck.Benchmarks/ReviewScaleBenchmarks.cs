@@ -26,7 +26,7 @@ public class ReviewScaleBenchmarks
     {
         _path = Path.Combine(Path.GetTempPath(), $"crosscheck-bench-frame-{Environment.ProcessId}-{Members}.csv");
         var (storeys, bays) = BuildingFrame.ForMembers(Members);
-        BuildingFrame.Write(_path, storeys, bays, BuildingMistake.FixedEndMoment, seed: 1);
+        BuildingFrame.Write(_path, storeys, bays, BuildingMistake.FixedEndMoment, variant: 1);
         _limits = InputLimits.Default with { MaxMembers = Math.Max(Members, InputLimits.Default.MaxMembers) };
     }
 

@@ -48,14 +48,7 @@ public static class WarmReview
             Lap("solve");
             var r = CrossCheck.Review.ReviewEngine.Review(s, a);
             Lap("review + diagnosis");
-            CrossCheck.Memo.ReviewJson.Write(r);
-            Lap("json");
-            CrossCheck.Memo.MemoRenderer.Render(new CrossCheck.Memo.MemoModel(r, null), CrossCheck.Memo.MemoFormat.Markdown);
-            Lap("markdown memo");
-            var diagrams = CrossCheck.Memo.Diagrams.MemoDiagrams.For(r);
-            Lap("diagrams");
-            CrossCheck.Memo.MemoRenderer.Render(new CrossCheck.Memo.MemoModel(r, diagrams), CrossCheck.Memo.MemoFormat.Html);
-            Lap("html memo");
+            OutputStages.Write(r, Lap);
             if (round < 3) continue;
             foreach (var (stage, ms) in times)
                 best[stage] = best.TryGetValue(stage, out double b) ? Math.Min(b, ms) : ms;

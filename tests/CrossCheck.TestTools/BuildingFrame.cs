@@ -41,9 +41,9 @@ public static class BuildingFrame
     };
 
     /// <summary>Writes the submission to <paramref name="path"/>; returns what was planted, in words.</summary>
-    public static string Write(string path, int storeys, int bays, BuildingMistake mistake, int seed)
+    public static string Write(string path, int storeys, int bays, BuildingMistake mistake, int variant)
     {
-        var rnd = new Random(seed);
+        var rnd = new Random(variant);
         var inv = CultureInfo.InvariantCulture;
         // Bays alternate 6.0 and 7.5 m; the ground storey is 4.2 m, the others 3.5 m.
         var xs = new double[bays + 1];

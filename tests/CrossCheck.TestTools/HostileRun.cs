@@ -150,12 +150,12 @@ public sealed partial class HostileRun(string cliDll)
 /// <summary>Makes the fresh set, runs it, and prints the counts per category (the `hostile` command of the test tools).</summary>
 public static class HostileReport
 {
-    public static int Run(string cliDll, int seed, string demo)
+    public static int Run(string cliDll, int variant, string demo)
     {
         string root = Directory.CreateTempSubdirectory("crosscheck-hostile-").FullName;
         var run = new HostileRun(cliDll);
         HostileSetMore.Runner = run;
-        var scenarios = HostileSet.Make(seed, demo);
+        var scenarios = HostileSet.Make(variant, demo);
         var results = new List<(Scenario S, Verdict V, string Why)>();
         for (int i = 0; i < scenarios.Count; i++)
         {
@@ -171,7 +171,7 @@ public static class HostileReport
         foreach (var g in results.GroupBy(r => r.S.Category))
             Console.WriteLine($"| {g.Key} | {g.Count()} | {string.Join(" | ", verdicts.Select(v => g.Count(r => r.V == v)))} |");
         Console.WriteLine($"| **all** | {results.Count} | {string.Join(" | ", verdicts.Select(v => results.Count(r => r.V == v)))} |");
-        Console.WriteLine($"(seed {seed}; {notTried} scenario(s) could not be set up and are not counted; inputs left in {root})");
+        Console.WriteLine($"(variant {variant}; {notTried} scenario(s) could not be set up and are not counted; inputs left in {root})");
         return results.Any(r => r.V is Verdict.Crash or Verdict.Hang or Verdict.WrongAcceptance or Verdict.Overwrite) ? 1 : 0;
     }
 

@@ -5,13 +5,21 @@ using System.Text;
 namespace CrossCheck.TestTools;
 
 /// <summary>
-/// A fresh set of hostile inputs and situations, made from a seed (none of them from the shipped catalogue): special files,
-/// links, encodings, huge and odd values, terminal escapes, injection strings, mechanisms, submissions over their time budget,
-/// outputs that name inputs or devices, damaged registers, odd models and interrupted screens. All content is invented.
+/// A fresh set of hostile inputs and situations, made from a variant number (it starts the random numbers: the same
+/// number makes the same set) and none of them from the shipped catalogue: special files, links, encodings, huge and odd
+/// values, terminal escapes, injection strings, mechanisms, submissions over their time budget, outputs that name inputs
+/// or devices, damaged registers, odd models and interrupted screens. All content is invented.
 /// </summary>
 public static class HostileSet
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    /// <summary>A set-up that writes the small beam (<see cref="Beam"/>) as calc.csv and runs <paramref name="args"/>.</summary>
+    public static Func<string, string[]> OnBeam(params string[] args) => f =>
+    {
+        Write(f, "calc.csv", Beam());
+        return args;
+    };
 
     /// <summary>A valid propped cantilever (A fixed, B roller, 6 m, 18 kN/m) with any section replaced.</summary>
     public static string Beam(string? title = null, string? joints = null, string? members = null, string? loads = null, string? claims = null, string? extraInfo = null) =>
@@ -35,9 +43,9 @@ public static class HostileSet
         p.WaitForExit();
     }
 
-    public static List<Scenario> Make(int seed, string demo)
+    public static List<Scenario> Make(int variant, string demo)
     {
-        var rnd = new Random(seed);
+        var rnd = new Random(variant);
         var list = new List<Scenario>();
         SpecialFiles(list, rnd);
         Links(list);
@@ -86,11 +94,7 @@ public static class HostileSet
             Write(f, "in/a.csv", Beam());
             return ["screen", "in", "--template", "/dev/zero", "--no-register"];
         }, Protected: ["/dev/zero"]));
-        list.Add(new("special-files", "/dev/null as --register", Expect.Refused, f =>
-        {
-            Write(f, "calc.csv", Beam());
-            return ["review", "calc.csv", "--register", "/dev/null"];
-        }, Check: (_, _) => File.Exists("/dev/null-wal") ? Verdict.Overwrite : null, Protected: ["/dev/null"]));
+        list.Add(new("special-files", "/dev/null as --register", Expect.Refused, OnBeam("review", "calc.csv", "--register", "/dev/null"), Check: (_, _) => File.Exists("/dev/null-wal") ? Verdict.Overwrite : null, Protected: ["/dev/null"]));
         list.Add(new("special-files", "folder table linked to /dev/zero", Expect.Refused, f =>
         {
             Directory.CreateDirectory(Path.Combine(f, "sub"));

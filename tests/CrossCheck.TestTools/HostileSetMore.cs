@@ -59,11 +59,7 @@ public static class HostileSetMore
 
     public static void Outputs(List<Scenario> list, Random rnd, string demo)
     {
-        list.Add(new("outputs", "--out is the submission", Expect.Refused, f =>
-        {
-            HostileSet.Write(f, "calc.csv", HostileSet.Beam());
-            return ["review", "calc.csv", "--out", "calc.csv"];
-        }, Protected: ["calc.csv"]));
+        list.Add(new("outputs", "--out is the submission", Expect.Refused, HostileSet.OnBeam("review", "calc.csv", "--out", "calc.csv"), Protected: ["calc.csv"]));
         list.Add(new("outputs", "--out is a link to the submission", Expect.Refused, f =>
         {
             HostileSet.Write(f, "calc.csv", HostileSet.Beam());
@@ -87,11 +83,7 @@ public static class HostileSetMore
             HostileSet.Write(f, "t.sbn", "{{ model.Title }}");
             return ["review", "calc.csv", "--template", "t.sbn", "--out", "t.sbn"];
         }, Protected: ["t.sbn"]));
-        list.Add(new("outputs", "solve --out is the submission", Expect.Refused, f =>
-        {
-            HostileSet.Write(f, "calc.csv", HostileSet.Beam());
-            return ["solve", "calc.csv", "--out", "./calc.csv"];
-        }, Protected: ["calc.csv"]));
+        list.Add(new("outputs", "solve --out is the submission", Expect.Refused, HostileSet.OnBeam("solve", "calc.csv", "--out", "./calc.csv"), Protected: ["calc.csv"]));
         list.Add(new("outputs", "register export --out is the register", Expect.Refused, f =>
         {
             HostileSet.Write(f, "calc.csv", HostileSet.Beam());
@@ -99,11 +91,8 @@ public static class HostileSetMore
             return ["register", "export", "--register", "r.db", "--out", "r.db"];
         }, Protected: ["r.db"]));
         foreach (var target in new[] { "/dev/null", "/dev/stdout", "-", "/dev/full" })
-            list.Add(new("outputs", $"--out {target}", target == "/dev/full" ? Expect.Refused : Expect.Accepted, f =>
-            {
-                HostileSet.Write(f, "calc.csv", HostileSet.Beam());
-                return ["review", "calc.csv", "--out", target, "-q"];
-            }, Protected: target.StartsWith('/') ? [target] : []));
+            list.Add(new("outputs", $"--out {target}", target == "/dev/full" ? Expect.Refused : Expect.Accepted, HostileSet.OnBeam("review", "calc.csv", "--out", target, "-q"),
+                Protected: target.StartsWith('/') ? [target] : []));
         list.Add(new("outputs", "--out a named pipe with a reader", Expect.Accepted, f =>
         {
             HostileSet.Write(f, "calc.csv", HostileSet.Beam());

@@ -8,20 +8,20 @@ using CrossCheck.Screening;
 using CrossCheck.TestTools;
 
 // Test and measurement helpers; see DEVELOPERS.md ("Screening and the review register").
-//   generate DIR N [SEED]                      write N invented submissions (mixed correct, wrong, broken)
-//   time-screen N [SEED]                        screening throughput, one at a time and on every core
+//   generate DIR N [VARIANT]                   write N invented submissions (mixed correct, wrong, broken)
+//   time-screen N [VARIANT]                     screening throughput, one at a time and on every core
 //   register-pause REGISTER SUBMISSION          record a review and stop inside its transaction (to be killed)
 //   register-write REGISTER SUBMISSION N TAG    record N reviews as N rounds of reference TAG
 //   register-stats REGISTER                      reviews, references, rounds, duplicates and check problems (for the benchmark)
 // REGISTER is a file path or a PostgreSQL URI or connection string.
-//   hostile CLI_DLL [SEED]                      make a fresh set of hostile inputs, run each through the CLI, print the counts
-//   building FILE MEMBERS|STOREYSxBAYS [MISTAKE] [SEED]
+//   hostile CLI_DLL [VARIANT]                   make a fresh set of hostile inputs, run each through the CLI, print the counts
+//   building FILE MEMBERS|STOREYSxBAYS [MISTAKE] [VARIANT]
 //                                               write a multi-storey frame with one planted mistake (MISTAKE: none,
 //                                               fem (default), slip, moved, wrong, all-wrong; MEMBERS: 300, 1000 or 5000)
 var inv = CultureInfo.InvariantCulture;
 if (args.Length == 0)
 {
-    Console.Error.WriteLine("usage: generate DIR N [SEED] | time-screen N [SEED] | register-pause REGISTER SUBMISSION | register-write REGISTER SUBMISSION N TAG | register-stats REGISTER | hostile CLI_DLL [SEED] | building FILE MEMBERS [MISTAKE] [SEED]");
+    Console.Error.WriteLine("usage: generate DIR N [VARIANT] | time-screen N [VARIANT] | register-pause REGISTER SUBMISSION | register-write REGISTER SUBMISSION N TAG | register-stats REGISTER | hostile CLI_DLL [VARIANT] | building FILE MEMBERS [MISTAKE] [VARIANT]");
     return 2;
 }
 switch (args[0])
@@ -110,14 +110,14 @@ static ReviewResult ReviewOf(string path)
 }
 
 // Screens N generated submissions with one worker and with one per processor, five times each, and prints medians and best runs.
-static int TimeScreen(int n, int seed)
+static int TimeScreen(int n, int variant)
 {
     var inv = CultureInfo.InvariantCulture;
     string root = Directory.CreateTempSubdirectory("crosscheck-timing-").FullName;
     try
     {
         string subs = Path.Combine(root, "subs");
-        var batch = SubmissionFactory.WriteBatch(subs, BatchPlan.For(n), seed);
+        var batch = SubmissionFactory.WriteBatch(subs, BatchPlan.For(n), variant);
         Console.WriteLine($"{batch.Count} submissions ({string.Join(", ", batch.GroupBy(b => b.Expected).Select(g => $"{g.Count()} {g.Key}"))}), " +
                           $"{batch.Count(b => b.Path.EndsWith(".csv", StringComparison.Ordinal))} single CSV files, {Environment.ProcessorCount} processors");
         var options = new ReviewOptions(Reviewer: "Timing", Date: new DateOnly(2026, 12, 1));

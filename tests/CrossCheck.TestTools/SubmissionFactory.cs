@@ -85,7 +85,7 @@ public static class SubmissionFactory
     };
 
     /// <summary>Writes a batch into <paramref name="folder"/> (created if needed), names <c>sub-001</c>, <c>sub-002</c>, ... in shuffled order of kinds.</summary>
-    public static IReadOnlyList<Generated> WriteBatch(string folder, BatchPlan plan, int seed)
+    public static IReadOnlyList<Generated> WriteBatch(string folder, BatchPlan plan, int variant)
     {
         ArgumentNullException.ThrowIfNull(plan);
         Directory.CreateDirectory(folder);
@@ -96,21 +96,21 @@ public static class SubmissionFactory
         kinds.AddRange(Enumerable.Repeat(Planted.SignFlip, plan.SignFlip));
         kinds.AddRange(Enumerable.Repeat(Planted.SwayOmitted, plan.SwayOmitted));
         for (int i = 0; i < plan.Broken; i++) kinds.Add(BrokenKinds[i % BrokenKinds.Length]);
-        var rnd = new Random(seed);
+        var rnd = new Random(variant);
         var order = kinds.OrderBy(_ => rnd.Next()).ToList();
         var list = new List<Generated>();
         for (int i = 0; i < order.Count; i++)
-            list.Add(Write(folder, string.Create(CultureInfo.InvariantCulture, $"sub-{i + 1:000}"), order[i], seed * 7919 + i, asFolder: i % 3 == 2));
+            list.Add(Write(folder, string.Create(CultureInfo.InvariantCulture, $"sub-{i + 1:000}"), order[i], variant * 7919 + i, asFolder: i % 3 == 2));
         return list;
     }
 
     /// <summary>Writes one submission named <paramref name="name"/> into <paramref name="folder"/>.</summary>
     /// <param name="asFolder">A folder of one CSV file per table instead of one sectioned CSV file.</param>
-    public static Generated Write(string folder, string name, Planted planted, int seed, bool asFolder = false, string? reference = null)
+    public static Generated Write(string folder, string name, Planted planted, int variant, bool asFolder = false, string? reference = null)
     {
-        var rnd = new Random(seed);
+        var rnd = new Random(variant);
         bool frame = planted == Planted.SwayOmitted || rnd.Next(3) == 0;
-        reference ??= rnd.Next(4) == 0 ? null : string.Create(CultureInfo.InvariantCulture, $"GEN-{seed:X6}");
+        reference ??= rnd.Next(4) == 0 ? null : string.Create(CultureInfo.InvariantCulture, $"GEN-{variant:X6}");
         var scenario = frame ? FrameScenarios[rnd.Next(FrameScenarios.Length)] : BeamScenarios[rnd.Next(BeamScenarios.Length)];
         bool sagging = rnd.Next(5) == 0;
         var doc = frame ? Frame(rnd) : Beam(rnd);

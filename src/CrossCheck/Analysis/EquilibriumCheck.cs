@@ -26,6 +26,18 @@ internal static class EquilibriumCheck
         double size = frame.StructureSize();
         double x0 = model.Joints.Average(j => j.X), y0 = model.Joints.Average(j => j.Y);
         double loadForce = 0, loadMoment = 0, fx = 0, fy = 0, m = 0;
+        // A force P in a direction, acting at (x, y) from the centroid of the joints; a couple (clockwise positive).
+        void Force(double x, double y, double p, LoadDirection direction)
+        {
+            var (gx, gy) = direction.Vector();
+            fx += p * gx; fy += p * gy; m += (x * p * gy) - (y * p * gx);
+            loadForce += Math.Abs(p);
+        }
+        void Couple(double c)
+        {
+            m -= c;
+            loadMoment += Math.Abs(c);
+        }
         foreach (var load in loadCase.Loads)
         {
             switch (load)
@@ -33,14 +45,11 @@ internal static class EquilibriumCheck
                 case JointForce p:
                 {
                     var j = model.Joint(p.Joint);
-                    var (gx, gy) = p.Direction.Vector();
-                    fx += p.P * gx; fy += p.P * gy; m += ((j.X - x0) * p.P * gy) - ((j.Y - y0) * p.P * gx);
-                    loadForce += Math.Abs(p.P);
+                    Force(j.X - x0, j.Y - y0, p.P, p.Direction);
                     break;
                 }
                 case JointCouple c:
-                    m -= c.M;
-                    loadMoment += Math.Abs(c.M);
+                    Couple(c.M);
                     break;
                 case MemberLoad ml:
                 {
@@ -49,13 +58,8 @@ internal static class EquilibriumCheck
                     switch (ml)
                     {
                         case PointLoad p:
-                        {
-                            var (gx, gy) = p.Direction.Vector();
-                            double px = start.X + (e.Cos * p.A) - x0, py = start.Y + (e.Sin * p.A) - y0;
-                            fx += p.P * gx; fy += p.P * gy; m += (px * p.P * gy) - (py * p.P * gx);
-                            loadForce += Math.Abs(p.P);
+                            Force(start.X + (e.Cos * p.A) - x0, start.Y + (e.Sin * p.A) - y0, p.P, p.Direction);
                             break;
-                        }
                         case DistributedLoad w:
                         {
                             var (gx, gy) = w.Direction.Vector();
@@ -68,8 +72,7 @@ internal static class EquilibriumCheck
                             break;
                         }
                         case MemberCouple c:
-                            m -= c.M;
-                            loadMoment += Math.Abs(c.M);
+                            Couple(c.M);
                             break;
                         case LockedEndMoments locked:
                             // Self-equilibrated: no resultant, but it sets the scale of the case.

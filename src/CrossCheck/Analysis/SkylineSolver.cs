@@ -260,10 +260,10 @@ internal static class Ordering
         var visited = (bool[])dense.Clone();
         var level = new int[n];
         var queue = new int[n];
-        for (int seed = 0; seed < n; seed++)
+        for (int first = 0; first < n; first++)
         {
-            if (visited[seed]) continue;
-            int startNode = PseudoPeripheral(seed, start, adj, dense, level, queue);
+            if (visited[first]) continue;
+            int startNode = PseudoPeripheral(first, start, adj, dense, level, queue);
             int head = 0, tail = 0;
             queue[tail++] = startNode;
             visited[startNode] = true;
@@ -283,9 +283,9 @@ internal static class Ordering
         return order;
     }
 
-    private static int PseudoPeripheral(int seed, int[] start, int[] adj, bool[] dense, int[] level, int[] queue)
+    private static int PseudoPeripheral(int origin, int[] start, int[] adj, bool[] dense, int[] level, int[] queue)
     {
-        int node = seed, lastDepth = -1;
+        int node = origin, lastDepth = -1;
         for (int pass = 0; pass < 4; pass++)
         {
             var (far, depth) = Farthest(node, start, adj, dense, level, queue);

@@ -125,11 +125,15 @@ public static class MemoRenderer
         }
     }
 
-    private static readonly EscapeHtml EscapeFunction = new();
-    private static readonly TableCell CellFunction = new();
+    /// <summary><c>e value</c>: the value as text, escaped for HTML (what <c>value | html.escape</c> gives).</summary>
+    private static readonly OneValueFunction EscapeFunction = new("e", text => Scriban.Functions.HtmlFunctions.Escape(text) ?? "");
 
     /// <summary><c>cell value</c>: the value as text with <c>|</c> escaped and line breaks as spaces, for a Markdown table cell.</summary>
-    private sealed class TableCell : IScriptCustomFunction
+    private static readonly OneValueFunction CellFunction =
+        new("cell", text => (text ?? "").Replace("|", "\\|", StringComparison.Ordinal).Replace("\n", " ", StringComparison.Ordinal));
+
+    /// <summary>A built-in template function of one value, which it formats as text.</summary>
+    private sealed class OneValueFunction(string name, Func<string?, string> format) : IScriptCustomFunction
     {
         public int RequiredParameterCount => 1;
         public int ParameterCount => 1;
@@ -139,26 +143,8 @@ public static class MemoRenderer
 
         public object? Invoke(TemplateContext context, ScriptNode? callerContext, ScriptArray arguments, ScriptBlockStatement? blockStatement) =>
             arguments.Count == 1
-                ? (context.ObjectToString(arguments[0]) ?? "").Replace("|", "\\|", StringComparison.Ordinal).Replace("\n", " ", StringComparison.Ordinal)
-                : throw new ScriptRuntimeException(callerContext?.Span ?? context.CurrentSpan, $"cell takes one value, got {arguments.Count}");
-
-        public ValueTask<object?> InvokeAsync(TemplateContext context, ScriptNode? callerContext, ScriptArray arguments, ScriptBlockStatement? blockStatement) =>
-            new(Invoke(context, callerContext, arguments, blockStatement));
-    }
-
-    /// <summary><c>e value</c>: the value as text, escaped for HTML (what <c>value | html.escape</c> gives).</summary>
-    private sealed class EscapeHtml : IScriptCustomFunction
-    {
-        public int RequiredParameterCount => 1;
-        public int ParameterCount => 1;
-        public ScriptVarParamKind VarParamKind => ScriptVarParamKind.None;
-        public Type ReturnType => typeof(string);
-        public ScriptParameterInfo GetParameterInfo(int index) => new(typeof(object), "value");
-
-        public object? Invoke(TemplateContext context, ScriptNode? callerContext, ScriptArray arguments, ScriptBlockStatement? blockStatement) =>
-            arguments.Count == 1
-                ? Scriban.Functions.HtmlFunctions.Escape(context.ObjectToString(arguments[0])) ?? ""
-                : throw new ScriptRuntimeException(callerContext?.Span ?? context.CurrentSpan, $"e takes one value, got {arguments.Count}");
+                ? format(context.ObjectToString(arguments[0]))
+                : throw new ScriptRuntimeException(callerContext?.Span ?? context.CurrentSpan, $"{name} takes one value, got {arguments.Count}");
 
         public ValueTask<object?> InvokeAsync(TemplateContext context, ScriptNode? callerContext, ScriptArray arguments, ScriptBlockStatement? blockStatement) =>
             new(Invoke(context, callerContext, arguments, blockStatement));

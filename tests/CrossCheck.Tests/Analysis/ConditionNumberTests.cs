@@ -84,9 +84,9 @@ public class ConditionNumberTests
     public void RandomFrames_TheEstimateIsALowerBoundWithinAFactorOfThreeOfTheDenseValue()
     {
         // Higham (ACM TOMS 14(4), 1988) reports the estimate exact in most cases and rarely below a third of the true value.
-        Gen.Select(Gen.Int[1, 3], Gen.Int[1, 4], Gen.Bool, Gen.Bool, Gen.Bool, Gen.Int).Sample((bays, storeys, fixedBases, elastic, hinges, seed) =>
+        Gen.Select(Gen.Int[1, 3], Gen.Int[1, 4], Gen.Bool, Gen.Bool, Gen.Bool, Gen.Int).Sample((bays, storeys, fixedBases, elastic, hinges, variant) =>
         {
-            var b = RandomFrames.Build(new FrameShape(bays, storeys, fixedBases, elastic, hinges, seed));
+            var b = RandomFrames.Build(new FrameShape(bays, storeys, fixedBases, elastic, hinges, variant));
             var capture = new Capture();
             var r = b.Solve(capture);
             var model = b.Model;

@@ -72,9 +72,9 @@ public class FactoredFrameTests
     public void RandomFrames_UpdatesGiveTheFullSolversAnswer()
     {
         int hinges = 0, held = 0, released = 0, braced = 0;
-        Gen.Select(Gen.Int[1, 4], Gen.Int[1, 4], Gen.Bool, Gen.Int).Sample((bays, storeys, pinnedBases, seed) =>
+        Gen.Select(Gen.Int[1, 4], Gen.Int[1, 4], Gen.Bool, Gen.Int).Sample((bays, storeys, pinnedBases, variant) =>
         {
-            var b = RandomFrames.Build(new FrameShape(bays, storeys, !pinnedBases, Elastic: false, Hinges: true, seed));
+            var b = RandomFrames.Build(new FrameShape(bays, storeys, !pinnedBases, Elastic: false, Hinges: true, variant));
             var model = b.Model;
             var c = b.Cases[0];
             var f = FactoredFrame.TryBuild(model);
@@ -117,9 +117,9 @@ public class FactoredFrameTests
     [Fact]
     public void RandomFrames_LoadEffectsSuperposeAndTheAdjointGivesTheirOverlap()
     {
-        Gen.Select(Gen.Int[1, 4], Gen.Int[1, 4], Gen.Bool, Gen.Int).Sample((bays, storeys, hinges, seed) =>
+        Gen.Select(Gen.Int[1, 4], Gen.Int[1, 4], Gen.Bool, Gen.Int).Sample((bays, storeys, hinges, variant) =>
         {
-            var b = RandomFrames.Build(new FrameShape(bays, storeys, true, Elastic: seed % 3 == 0, hinges, seed));
+            var b = RandomFrames.Build(new FrameShape(bays, storeys, true, Elastic: variant % 3 == 0, hinges, variant));
             var model = b.Model;
             var c = b.Cases[0];
             var f = FactoredFrame.TryBuild(model);
@@ -133,7 +133,7 @@ public class FactoredFrameTests
                 for (int i = 0; i < sum.Length; i++) sum[i] += effect[i];
             }
             Same(sum, whole, "the loads one at a time");
-            var rnd = new Random(seed);
+            var rnd = new Random(variant);
             var weights = whole.Select(_ => rnd.NextDouble() - 0.5).ToArray();
             var adjoint = f.AdjointOf(ends, weights);
             foreach (var load in c.Loads)

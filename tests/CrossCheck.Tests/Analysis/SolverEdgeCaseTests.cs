@@ -41,13 +41,15 @@ public class SolverEdgeCaseTests
         Should.Throw<StructureException>(() => b.Solve()).Direction.ShouldBe("x");
     }
 
+    /// <summary>Two equal cantilevers AB and BC (5 m each, fixed at A and at C) joined by a pin at B: both members are hinged there.</summary>
+    private static FrameBuilder CantileversPinnedTogether() => new FrameBuilder()
+        .Joint("A", 0, 0, Restraint.Fixed).Joint("B", 5, 0).Joint("C", 10, 0, Restraint.Fixed)
+        .Member("AB", "A", "B", 200e6, 2e-4, hinge: Hinge.End).Member("BC", "B", "C", 200e6, 2e-4, hinge: Hinge.Start);
+
     [Fact]
     public void CoupleOnAJointWhereEveryMemberIsHinged_IsRefused()
     {
-        var b = new FrameBuilder()
-            .Joint("A", 0, 0, Restraint.Fixed).Joint("B", 5, 0).Joint("C", 10, 0, Restraint.Fixed)
-            .Member("AB", "A", "B", 200e6, 2e-4, hinge: Hinge.End).Member("BC", "B", "C", 200e6, 2e-4, hinge: Hinge.Start)
-            .JointMoment("B", 10);
+        var b = CantileversPinnedTogether().JointMoment("B", 10);
         Should.Throw<StructureException>(() => b.Solve()).Message.ShouldContain("every member is hinged there");
     }
 
@@ -55,10 +57,7 @@ public class SolverEdgeCaseTests
     public void JointWhereEveryMemberIsHinged_CarriesLoadWithoutMoment()
     {
         // Two fixed-ended cantilevers meeting at an internal pin: a point load at the pin splits by stiffness.
-        var r = new FrameBuilder()
-            .Joint("A", 0, 0, Restraint.Fixed).Joint("B", 5, 0).Joint("C", 10, 0, Restraint.Fixed)
-            .Member("AB", "A", "B", 200e6, 2e-4, hinge: Hinge.End).Member("BC", "B", "C", 200e6, 2e-4, hinge: Hinge.Start)
-            .Force("B", 20, LoadDirection.Down).Solve().Cases[0];
+        var r = CantileversPinnedTogether().Force("B", 20, LoadDirection.Down).Solve().Cases[0];
         // Equal cantilevers share the load equally: M at each root = (P/2)·L (statics, common practice).
         Near.Equal(r.Members["AB"].StartMoment, -50);
         Near.Equal(r.Members["BC"].EndMoment, 50);

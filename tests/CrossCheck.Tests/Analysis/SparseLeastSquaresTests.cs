@@ -58,9 +58,9 @@ public class SparseLeastSquaresTests
     [InlineData(2, 30, 60)]
     [InlineData(3, 60, 150)]
     [InlineData(4, 5, 40)]
-    public void SameAsTheSvdFit_AsEquationsAreSetAside(int seed, int unknowns, int count)
+    public void SameAsTheSvdFit_AsEquationsAreSetAside(int variant, int unknowns, int count)
     {
-        var rnd = new Random(seed);
+        var rnd = new Random(variant);
         var rows = Equations(rnd, unknowns, count);
         var fit = SparseLeastSquares.Fit(rows, unknowns);
         var active = Enumerable.Range(0, rows.Count).ToList();

@@ -155,16 +155,9 @@ public class ReviewCommandTests
     public void Review_Mechanism_IsAnInputError()
     {
         using var t = new TempSubmission();
-        string path = t.Write("m.csv", SampleText.With(frame: """
-            [joints]
-            joint,x,y,restraint
-            A,0,0,roller
-            B,6,0,roller
-
-            [members]
-            member,start,end,E [GPa],I [mm^4]
-            AB,A,B,200,250e6
-            """, loads: "[loads]\non,kind,P,dir\nB,force,3,right"));
+        // The sample beam with A on a roller too: nothing holds it horizontally.
+        string path = t.Write("m.csv", SampleText.With(frame: SampleText.Frame.Replace("A,0,0,fixed", "A,0,0,roller", StringComparison.Ordinal),
+            loads: "[loads]\non,kind,P,dir\nB,force,3,right"));
         var r = CliRunner.Run("review", path, "-f", "json");
         r.ExitCode.ShouldBe(ExitCodes.InputError);
         JsonDocument.Parse(r.Out.ShouldMatchReviewSchema()).RootElement.GetProperty("inputErrors")[0].GetProperty("message").GetString()!.ShouldContain("mechanism");

@@ -24,6 +24,14 @@ public class LoadKindTests
         return r.Submission!.Cases.ShouldHaveSingleItem().Loads.ShouldHaveSingleItem();
     }
 
+    /// <summary>The row is refused with one error, saying <paramref name="message"/> (at <paramref name="column"/> when given).</summary>
+    private static void Refused(string row, string message, string? column = null)
+    {
+        var e = Read(row).Errors.ShouldHaveSingleItem();
+        e.Message.ShouldBe(message);
+        if (column is not null) e.Where.Column.ShouldBe(column);
+    }
+
     [Theory]
     [InlineData("point")]
     [InlineData("Concentrated")]
@@ -63,12 +71,8 @@ public class LoadKindTests
     }
 
     [Fact]
-    public void LinearLoad_NeedsItsEndIntensity()
-    {
-        var e = Read("1,AB,linear,,2,,,,,").Errors.ShouldHaveSingleItem();
-        e.Message.ShouldContain("a linear load");
-        e.Where.Column.ShouldBe("w end");
-    }
+    public void LinearLoad_NeedsItsEndIntensity() =>
+        Refused("1,AB,linear,,2,,,,,", "'w end' is empty (a linear load)", column: "w end");
 
     [Theory]
     [InlineData("moment")]
@@ -89,21 +93,16 @@ public class LoadKindTests
     }
 
     [Fact]
-    public void ForceOnAMember_NamesTheMember()
-    {
-        var e = Read("1,AB,force,10,,,,,,").Errors.ShouldHaveSingleItem();
-        e.Message.ShouldBe("a 'force' load acts on a joint, but 'AB' is a member");
-        e.Where.Column.ShouldBe("on");
-    }
+    public void ForceOnAMember_NamesTheMember() =>
+        Refused("1,AB,force,10,,,,,,", "a 'force' load acts on a joint, but 'AB' is a member", column: "on");
 
     [Fact]
     public void DistributedLoadOnAJoint_NamesTheJoint() =>
-        Read("1,B,udl,,5,,,,,").Errors.ShouldHaveSingleItem().Message.ShouldBe("a 'udl' load acts on a member, but 'B' is a joint");
+        Refused("1,B,udl,,5,,,,,", "a 'udl' load acts on a member, but 'B' is a joint");
 
     [Fact]
     public void UnknownKind_ListsTheKindsInTheirOrder() =>
-        Read("1,AB,blanket,,5,,,,,").Errors.ShouldHaveSingleItem().Message
-            .ShouldBe("'kind' = \"blanket\" is not recognised (use one of: point, udl, linear, moment, force)");
+        Refused("1,AB,blanket,,5,,,,,", "'kind' = \"blanket\" is not recognised (use one of: point, udl, linear, moment, force)");
 
     [Fact]
     public void EveryWord_NamesExactlyOneKind()

@@ -9,6 +9,8 @@ namespace CrossCheck.Tests.Import;
 /// </summary>
 public class ValidationTests
 {
+    private static InputProblem Single(string submission, string fragment) => Single(TempSubmission.ReadText(submission), fragment);
+
     private static InputProblem Single(ImportResult r, string fragment)
     {
         r.Succeeded.ShouldBeFalse();
@@ -33,7 +35,7 @@ public class ValidationTests
     [Fact]
     public void UnknownJointInMembers_NamesRowAndColumn()
     {
-        var p = Single(TempSubmission.ReadText(SampleText.With(frame: Joints + "\n\n" + Members("AB,A,Z,200,250e6"))), "joint 'Z' is not in the joints table");
+        var p = Single(SampleText.With(frame: Joints + "\n\n" + Members("AB,A,Z,200,250e6")), "joint 'Z' is not in the joints table");
         p.Where.Compact.ShouldBe("calc.csv:14:end");
         p.Where.Table.ShouldBe("members");
     }
@@ -41,33 +43,33 @@ public class ValidationTests
     [Fact]
     public void DuplicateJointId_PointsAtTheFirst()
     {
-        var p = Single(TempSubmission.ReadText(SampleText.With(frame: Joints + "\nA,3,0,free\n\n" + Members("AB,A,B,200,250e6"))), "defined twice");
+        var p = Single(SampleText.With(frame: Joints + "\nA,3,0,free\n\n" + Members("AB,A,B,200,250e6")), "defined twice");
         p.Where.Compact.ShouldBe("calc.csv:11:joint");
         p.Message.ShouldContain("first at calc.csv:9");
     }
 
     [Fact]
     public void DuplicateMemberId_IsAnError() =>
-        Single(TempSubmission.ReadText(SampleText.With(frame: Joints + "\n\n" + Members("AB,A,B,200,250e6\nAB,B,A,200,250e6"))), "member 'AB' is defined twice");
+        Single(SampleText.With(frame: Joints + "\n\n" + Members("AB,A,B,200,250e6\nAB,B,A,200,250e6")), "member 'AB' is defined twice");
 
     [Fact]
     public void ZeroLengthMember_IsAnError()
     {
-        var p = Single(TempSubmission.ReadText(SampleText.With(
-            frame: Joints + "\nC,6,0,free\n\n" + Members("AB,A,B,200,250e6\nBC,B,C,200,250e6"))), "zero length");
+        var p = Single(SampleText.With(
+            frame: Joints + "\nC,6,0,free\n\n" + Members("AB,A,B,200,250e6\nBC,B,C,200,250e6")), "zero length");
         p.Where.Row.ShouldBe(16);
     }
 
     [Fact]
     public void MemberFromAJointToItself_IsAnError() =>
-        Single(TempSubmission.ReadText(SampleText.With(frame: Joints + "\n\n" + Members("AB,A,A,200,250e6"))), "starts and ends at the same joint");
+        Single(SampleText.With(frame: Joints + "\n\n" + Members("AB,A,A,200,250e6")), "starts and ends at the same joint");
 
     [Theory]
     [InlineData("AB,A,B,0,250e6", "E")]
     [InlineData("AB,A,B,200,-250e6", "I")]
     public void NonPositiveStiffness_IsAnError(string row, string column)
     {
-        var p = Single(TempSubmission.ReadText(SampleText.With(frame: Joints + "\n\n" + Members(row))), "must be greater than zero");
+        var p = Single(SampleText.With(frame: Joints + "\n\n" + Members(row)), "must be greater than zero");
         p.Where.Column.ShouldStartWith(column);
         p.Where.Row.ShouldBe(14);
     }
@@ -80,7 +82,7 @@ public class ValidationTests
     [InlineData("1e400", "must be a number")]
     public void TextOrNonFiniteInANumberColumn_IsAnError(string cell, string fragment)
     {
-        var p = Single(TempSubmission.ReadText(SampleText.With(frame: Joints + "\n\n" + Members($"AB,A,B,\"{cell}\",250e6"))), fragment);
+        var p = Single(SampleText.With(frame: Joints + "\n\n" + Members($"AB,A,B,\"{cell}\",250e6")), fragment);
         p.Where.Compact.ShouldBe("calc.csv:14:E [GPa]");
     }
 
@@ -94,7 +96,7 @@ public class ValidationTests
     [Fact]
     public void MissingRequiredColumn_IsNamedAtTheHeader()
     {
-        var p = Single(TempSubmission.ReadText(SampleText.With(frame: Joints + "\n\n[members]\nmember,start,end\nAB,A,B")), "needs a column 'I'");
+        var p = Single(SampleText.With(frame: Joints + "\n\n[members]\nmember,start,end\nAB,A,B"), "needs a column 'I'");
         p.Where.Compact.ShouldBe("calc.csv:13:I");
     }
 
@@ -103,14 +105,14 @@ public class ValidationTests
     [InlineData("AB,point,10,-1", "lies outside the member")]
     public void LoadOutsideTheMember_IsAnError(string row, string fragment)
     {
-        var p = Single(TempSubmission.ReadText(SampleText.With(loads: "[loads]\non,kind,P,a\n" + row)), fragment);
+        var p = Single(SampleText.With(loads: "[loads]\non,kind,P,a\n" + row), fragment);
         p.Where.Column.ShouldBe("a");
         p.Where.Table.ShouldBe("loads");
     }
 
     [Fact]
     public void DistributedLoadEndingBeforeItStarts_IsAnError() =>
-        Single(TempSubmission.ReadText(SampleText.With(loads: "[loads]\non,kind,w,a,b\nAB,udl,5,4,2")), "'b' must not be less than 'a'");
+        Single(SampleText.With(loads: "[loads]\non,kind,w,a,b\nAB,udl,5,4,2"), "'b' must not be less than 'a'");
 
     [Fact]
     public void SettlementWithoutE_IsAnError()
@@ -130,7 +132,7 @@ public class ValidationTests
 
     [Fact]
     public void MovementOnAnUnrestrainedDirection_IsAnError() =>
-        Single(TempSubmission.ReadText(SampleText.With(frame: """
+        Single(SampleText.With(frame: """
             [joints]
             joint,x,y,restraint,settle x
             A,0,0,fixed,
@@ -139,33 +141,33 @@ public class ValidationTests
             [members]
             member,start,end,E [GPa],I [mm^4]
             AB,A,B,200,250e6
-            """)), "not restrained in that direction");
+            """), "not restrained in that direction");
 
     [Fact]
     public void LoadOnSomethingThatDoesNotExist_IsAnError()
     {
-        var p = Single(TempSubmission.ReadText(SampleText.With(loads: "[loads]\non,kind,w\nXY,udl,5")), "'XY' is neither a member nor a joint");
+        var p = Single(SampleText.With(loads: "[loads]\non,kind,w\nXY,udl,5"), "'XY' is neither a member nor a joint");
         p.Where.Column.ShouldBe("on");
     }
 
     [Fact]
     public void PointLoadWithoutP_IsAnError() =>
-        Single(TempSubmission.ReadText(SampleText.With(loads: "[loads]\non,kind,P,a\nAB,point,,3")), "'P' is empty (a point load)");
+        Single(SampleText.With(loads: "[loads]\non,kind,P,a\nAB,point,,3"), "'P' is empty (a point load)");
 
     [Fact]
     public void UnknownLoadKind_ListsTheChoices() =>
-        Single(TempSubmission.ReadText(SampleText.With(loads: "[loads]\non,kind,w\nAB,snow,5")), "use one of: point, udl, linear, moment, force");
+        Single(SampleText.With(loads: "[loads]\non,kind,w\nAB,snow,5"), "use one of: point, udl, linear, moment, force");
 
     [Fact]
     public void ClaimForACaseWithNoLoads_IsAnError()
     {
-        var p = Single(TempSubmission.ReadText(SampleText.With(claims: "[end-moments]\ncase,member,at,moment\n2,AB,A,-81")), "load case '2' has no loads");
+        var p = Single(SampleText.With(claims: "[end-moments]\ncase,member,at,moment\n2,AB,A,-81"), "load case '2' has no loads");
         p.Where.Column.ShouldBe("case");
     }
 
     [Fact]
     public void UnknownRestraint_IsAnError() =>
-        Single(TempSubmission.ReadText(SampleText.With(frame: Joints.Replace("roller", "wobbly") + "\n\n" + Members("AB,A,B,200,250e6"))), "\"wobbly\" is not recognised");
+        Single(SampleText.With(frame: Joints.Replace("roller", "wobbly") + "\n\n" + Members("AB,A,B,200,250e6")), "\"wobbly\" is not recognised");
 
     [Fact]
     public void EveryProblem_IsReportedInOnePass()
@@ -198,7 +200,7 @@ public class ValidationTests
 
     [Fact]
     public void FileWithoutSections_SaysHowToIntroduceTables() =>
-        Single(TempSubmission.ReadText("member,start,end\nAB,A,B"), "introduces each table with a line such as [members]");
+        Single("member,start,end\nAB,A,B", "introduces each table with a line such as [members]");
 
     [Fact]
     public void MissingPath_IsAnError() => Single(SubmissionReader.Read("/no/such/submission.csv"), "does not exist");

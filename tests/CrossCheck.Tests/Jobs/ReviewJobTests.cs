@@ -92,8 +92,7 @@ public class ReviewJobTests
     public void Screen_DatesTheBatchAndTheRegister_ByItsClock()
     {
         using var t = new TempSubmission();
-        string subs = Path.Combine(t.Folder, "subs");
-        Directory.CreateDirectory(subs);
+        string subs = t.MakeFolder("subs");
         File.Copy(CliRunner.Demo("footbridge.csv"), Path.Combine(subs, "footbridge.csv"));
         string db = Path.Combine(t.Folder, "reg.db");
         var report = Screener.Run(subs, new ScreenOptions(ReviewOptions.Default, Path.Combine(t.Folder, "out"), MemoFormat.Markdown, RegisterPath: db) { Time = May6 });

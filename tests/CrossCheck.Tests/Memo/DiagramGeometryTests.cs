@@ -15,25 +15,11 @@ public class DiagramGeometryTests
     // Fixed-fixed beam, L = 6 m, central P = 40 kN: M_AB = −PL/8 = −30 kN·m, M_BA = +PL/8 = +30 kN·m (clockwise), and by
     // statics the midspan moment is PL/4 − PL/8 = PL/8 = 30 kN·m sagging. docs/REFERENCE-CHECKS.md case 1.2 (AISC Table 3-23
     // case 16, from memory; Erochko fixed-end moment table, seen). The claim at B is wrong on purpose (45 instead of 30).
-    private const string FixedFixedCentralLoad = Reviewing.KnM + """
-        [joints]
-        joint,x,y,restraint
-        A,0,0,fixed
-        B,6,0,fixed
-
-        [members]
-        member,start,end,E [GPa],I [mm^4]
-        AB,A,B,200,250e6
-
-        [loads]
-        case,on,kind,P,a,dir
-        1,AB,point,40,3,down
-
-        [end-moments]
-        case,member,at,moment
-        1,AB,A,-30
-        1,AB,B,45
-        """;
+    private static readonly string FixedFixedCentralLoad = SampleText.With(
+        info: Reviewing.KnM,
+        frame: SampleText.Frame.Replace("B,6,0,roller", "B,6,0,fixed", StringComparison.Ordinal), // the sample beam with B fixed too
+        loads: "[loads]\ncase,on,kind,P,a,dir\n1,AB,point,40,3,down",
+        claims: "[end-moments]\ncase,member,at,moment\n1,AB,A,-30\n1,AB,B,45");
 
     private static (MomentLayout Layout, StructureSketch Sketch, ReviewResult Review) Lay(string csv, double peakPx = PeakPx)
     {

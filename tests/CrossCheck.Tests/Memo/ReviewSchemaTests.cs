@@ -60,7 +60,7 @@ public class ReviewSchemaTests
             "demo" => Path.Combine(Root, "fixtures", "demo", name),
             "pdf" => Path.Combine(Root, "fixtures", "pdf", name),
             "pdf-error" => Path.Combine(Root, "fixtures", "pdf", "errors", name),
-            "fuzz" => Path.Combine(Root, "tests", "CrossCheck.Tests", "Robustness", "Seeds", name),
+            "fuzz" => Path.Combine(Root, "tests", "CrossCheck.Tests", "Robustness", "Samples", name),
             "bad" => BadInputCatalogue.Get(name).Path(scratch),
             _ => throw new ArgumentException(key),
         };

@@ -17,30 +17,24 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
 {
     private static readonly ReviewOptions Options = new(Reviewer: "F. Parallel", Date: new DateOnly(2026, 12, 1));
 
-    /// <summary>A folder with a wrong submission (so that every recorded review carries findings), its review, and a register.</summary>
+    /// <summary>A register in a scratch folder with a wrong submission (so that every recorded review carries findings) and its review.</summary>
     private sealed class Scene : IDisposable
     {
-        private readonly TempSubmission _t = new();
-
         public Scene(RegisterKind kind)
         {
-            Calc = _t.Write("calc.csv", SampleText.With(claims: "[end-moments]\ncase,member,at,moment\n1,AB,A,-60\n1,AB,B,0"));
+            Db = new RegisterScratch(kind);
+            Calc = Db.Files.Write("calc.csv", SampleText.With(claims: "[end-moments]\ncase,member,at,moment\n1,AB,A,-60\n1,AB,B,0"));
             Review = new ReviewJob().Review(Calc, Options).Review!;
-            Db = TestRegister.Create(kind, _t.Folder);
-            using (ReviewRegister.Open(Db.Location)) { }
+            using (Db.Open()) { }
         }
 
         public string Calc { get; }
 
         public ReviewResult Review { get; }
 
-        public TestRegister Db { get; }
+        public RegisterScratch Db { get; }
 
-        public void Dispose()
-        {
-            Db.Dispose();
-            _t.Dispose();
-        }
+        public void Dispose() => Db.Dispose();
     }
 
     [Theory]
@@ -52,13 +46,13 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
         var (db, review) = (scene.Db, scene.Review);
         var tasks = Enumerable.Range(0, 2).Select(w => Task.Run(() =>
         {
-            using var r = ReviewRegister.Open(db.Location);
+            using var r = db.Open();
             for (int i = 0; i < 30; i++) r.Record(review, "SHARED", "calc.csv", $"sha256:w{w}-{i}");
             return r.Retries;
         })).ToArray();
         var retries = await Task.WhenAll(tasks);
         log.WriteLine($"{kind}: writes run again after a collision: {retries.Sum()}");
-        using var check = ReviewRegister.Open(db.Location);
+        using var check = db.Open();
         check.Check().ShouldBeEmpty();
         check.History("SHARED").Select(h => h.Review.Round).ShouldBe(Enumerable.Range(1, 60));
     }
@@ -75,8 +69,8 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
     {
         using var scene = new Scene(kind);
         var (db, review) = (scene.Db, scene.Review);
-        using var first = ReviewRegister.Open(db.Location);
-        using var second = ReviewRegister.Open(db.Location);
+        using var first = db.Open();
+        using var second = db.Open();
         first.Record(review, "RACE", "calc.csv", "sha256:r1").Review.Round.ShouldBe(1);
 
         using var inside = new ManualResetEventSlim();
@@ -105,13 +99,12 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
     [PostgresData]
     public async Task SixWritersOpeningANewRegisterAtOnce_AllOpenIt(RegisterKind kind)
     {
-        using var t = new TempSubmission();
-        using var db = TestRegister.Create(kind, t.Folder);
+        using var db = new RegisterScratch(kind);
         using var go = new ManualResetEventSlim();
         var opens = Enumerable.Range(0, 6).Select(_ => Task.Run(() =>
         {
             go.Wait();
-            using var r = ReviewRegister.Open(db.Location);
+            using var r = db.Open();
             return r.SchemaVersion;
         })).ToArray();
         go.Set();
@@ -128,7 +121,7 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
         var (db, calc) = (scene.Db, scene.Calc);
         var writers = Enumerable.Range(0, 4).Select(_ => ChildProcess.Tools("register-write", db.Location, calc, "20", "SHARED")).ToList();
         // While they write, every read sees whole reviews and rounds without gaps (one snapshot per read).
-        using (var reader = ReviewRegister.Open(db.Location))
+        using (var reader = db.Open())
         {
             int reads = 0;
             while (writers.Any(w => !w.HasExited) && reads < 2000)
@@ -146,7 +139,7 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
             code.ShouldBe(0, err);
             log.WriteLine(output.Trim());
         }
-        using var r = ReviewRegister.Open(db.Location);
+        using var r = db.Open();
         r.Check().ShouldBeEmpty();
         var history = r.History("SHARED");
         history.Select(h => h.Review.Round).ShouldBe(Enumerable.Range(1, 80), "80 different inputs: 80 rounds, none lost, none twice");
@@ -159,8 +152,8 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
     [PostgresData]
     public void TwoScreensOfOneRegister_AtTheSameTime_BothSucceed(RegisterKind kind)
     {
-        using var one = new GeneratedBatch(new BatchPlan(6, 1, 1, 1, 1, 2), seed: 21);
-        using var two = new GeneratedBatch(new BatchPlan(6, 1, 1, 1, 1, 2), seed: 22);
+        using var one = new GeneratedBatch(new BatchPlan(6, 1, 1, 1, 1, 2), variant: 21);
+        using var two = new GeneratedBatch(new BatchPlan(6, 1, 1, 1, 1, 2), variant: 22);
         using var db = TestRegister.Create(kind, one.Root, "shared.db");
         var a = ChildProcess.Cli("screen", one.Folder, "--out", one.Out, "--register", db.Location, "-q");
         var b = ChildProcess.Cli("screen", two.Folder, "--out", two.Out, "--register", db.Location, "-q");
@@ -170,7 +163,7 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
         rb.Code.ShouldBe(2, rb.Err + rb.Out);
         ra.Out.ShouldContain("12 submissions: 6 concur, 1 concur-with-comments, 3 revise, 2 input errors");
         rb.Out.ShouldContain("12 submissions: 6 concur, 1 concur-with-comments, 3 revise, 2 input errors");
-        using var r = ReviewRegister.Open(db.Location);
+        using var r = db.Open();
         r.Check().ShouldBeEmpty();
         r.Reviews().Count.ShouldBe(20);
     }
@@ -182,11 +175,11 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
     {
         using var scene = new Scene(kind);
         var (db, calc, review) = (scene.Db, scene.Calc, scene.Review);
-        using (var r = ReviewRegister.Open(db.Location)) r.Record(review, "PAUSED", "calc.csv", "sha256:before");
+        using (var r = db.Open()) r.Record(review, "PAUSED", "calc.csv", "sha256:before");
 
         using var probe = ChildProcess.Tools("register-pause", db.Location, calc);
         Task<RoundComparison> other;
-        using var waiting = ReviewRegister.Open(db.Location);
+        using var waiting = db.Open();
         try
         {
             string? line = probe.StandardOutput.ReadLine(); // printed after the review row is written, before its findings
@@ -216,7 +209,7 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
     [PostgresData]
     public void AScreenKilledMidBatch_LeavesAConsistentRegister_AndTheNextScreenCompletesIt(RegisterKind kind)
     {
-        using var batch = new GeneratedBatch(new BatchPlan(60, 10, 10, 5, 5, 0), seed: 31);
+        using var batch = new GeneratedBatch(new BatchPlan(60, 10, 10, 5, 5, 0), variant: 31);
         using var db = TestRegister.Create(kind, batch.Root, "crosscheck-register.db");
         using var screen = ChildProcess.Cli("screen", batch.Folder, "--out", batch.Out, "--register", db.Location, "-q", "--jobs", "1");
         var clock = Stopwatch.StartNew();
@@ -245,7 +238,7 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
         screen.WaitForExit(10_000).ShouldBeTrue();
         screen.ExitCode.ShouldNotBeInRange(0, 3, "the screen was killed before it finished");
 
-        using (var r = ReviewRegister.Open(db.Location))
+        using (var r = db.Open())
         {
             r.Check().ShouldBeEmpty();
             var recorded = r.Reviews();
@@ -256,7 +249,7 @@ public class RegisterConcurrencyTests(ITestOutputHelper log)
 
         var rerun = ChildProcess.Finish(ChildProcess.Cli("screen", batch.Folder, "--out", batch.Out, "--register", db.Location, "-q"));
         rerun.Code.ShouldBe(1, rerun.Err + rerun.Out);
-        using var final = ReviewRegister.Open(db.Location);
+        using var final = db.Open();
         final.Check().ShouldBeEmpty();
         // Every submission is now recorded; the ones the killed screen had recorded are repeats of their round 1.
         final.References().Count.ShouldBe(90);

@@ -36,11 +36,9 @@ public class RegisterCopyTests
     [PostgresFact]
     public void SqliteToPostgresAndBack_KeepsRoundsCommentsAndHashes()
     {
-        using var t = new TempSubmission();
-        string file = Path.Combine(t.Folder, "office.db");
-        Fill(t, file);
-        using var server = TestRegister.Create(RegisterKind.PostgreSql, t.Folder);
-        string back = Path.Combine(t.Folder, "back.db");
+        using var server = new RegisterScratch(RegisterKind.PostgreSql);
+        string file = Path.Combine(server.Folder, "office.db"), back = Path.Combine(server.Folder, "back.db");
+        Fill(server.Files, file);
 
         var there = CliRunner.Run("register", "copy", file, server.Location);
         there.ExitCode.ShouldBe(ExitCodes.Concur, there.Err + there.Out);
@@ -63,11 +61,11 @@ public class RegisterCopyTests
         }
 
         // The copy goes on as a register of its own: the next round follows on.
-        string calc = Path.Combine(t.Folder, "calc.csv");
+        string calc = Path.Combine(server.Folder, "calc.csv");
         File.AppendAllText(calc, "\n# resubmitted\n");
-        var next = CliRunner.Run(["review", calc, "--register", server.Location, "--out", Path.Combine(t.Folder, "memo.md"), "--reviewer", "G. Mover", "--date", "2026-12-02"]);
+        var next = CliRunner.Run(["review", calc, "--register", server.Location, "--out", Path.Combine(server.Folder, "memo.md"), "--reviewer", "G. Mover", "--date", "2026-12-02"]);
         next.Out.ShouldContain("register: round 3 of MV-1");
-        using var r = ReviewRegister.Open(server.Location);
+        using var r = server.Open();
         r.Reviews().Select(x => x.Id).ShouldBe([1, 2, 3, 4, 5], "ids continue after the copied ones");
         r.Check().ShouldBeEmpty();
     }
@@ -77,11 +75,10 @@ public class RegisterCopyTests
     [PostgresData]
     public void ACopyIntoARegisterThatHoldsReviews_IsRefused_AndChangesNothing(RegisterKind kind)
     {
-        using var t = new TempSubmission();
-        string file = Path.Combine(t.Folder, "office.db");
-        Fill(t, file);
-        using var target = TestRegister.Create(kind, t.Folder, "target.db");
-        CliRunner.Run(["review", CliRunner.Demo("footbridge.csv"), "--register", target.Location, "--out", Path.Combine(t.Folder, "x.md"), .. Common]);
+        using var target = new RegisterScratch(kind, "target.db");
+        string file = Path.Combine(target.Folder, "office.db");
+        Fill(target.Files, file);
+        CliRunner.Run(["review", CliRunner.Demo("footbridge.csv"), "--register", target.Location, "--out", Path.Combine(target.Folder, "x.md"), .. Common]);
         var r = CliRunner.Run("register", "copy", file, target.Location);
         r.ExitCode.ShouldBe(ExitCodes.InputError);
         r.Err.ShouldContain("already holds 1 review; copy into a new or empty register");

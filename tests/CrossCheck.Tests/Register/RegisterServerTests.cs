@@ -41,21 +41,19 @@ public class RegisterServerTests
     [PostgresFact]
     public void TheEnvironment_NamesTheRegister_ForScreenHistoryAndRegisterCommands()
     {
-        using var t = new TempSubmission();
-        using var db = TestRegister.Create(RegisterKind.PostgreSql, t.Folder);
+        using var db = new RegisterScratch(RegisterKind.PostgreSql);
         var env = new Dictionary<string, string> { [RegisterLocation.EnvironmentVariable] = db.Location };
-        string subs = Path.Combine(t.Folder, "inbox");
-        Directory.CreateDirectory(subs);
+        string subs = db.Files.MakeFolder("inbox");
         File.Copy(CliRunner.Demo("footbridge.csv"), Path.Combine(subs, "footbridge.csv"));
-        var screen = CliRunner.RunWith(env, "screen", subs, "--out", Path.Combine(t.Folder, "out"), "--date", "2026-12-01");
+        var screen = CliRunner.RunWith(env, "screen", subs, "--out", Path.Combine(db.Folder, "out"), "--date", "2026-12-01");
         screen.ExitCode.ShouldBe(ExitCodes.Comments, screen.Err);
         screen.Out.ShouldContain("register: PostgreSQL database 'crosscheck_tests' (schema 't_");
-        File.Exists(Path.Combine(t.Folder, ReviewRegister.DefaultFileName)).ShouldBeFalse("no SQLite file beside the folder");
-        File.ReadAllText(Path.Combine(t.Folder, "out", "index.html")).ShouldNotContain(Server.PassFile);
+        File.Exists(Path.Combine(db.Folder, ReviewRegister.DefaultFileName)).ShouldBeFalse("no SQLite file beside the folder");
+        File.ReadAllText(Path.Combine(db.Folder, "out", "index.html")).ShouldNotContain(Server.PassFile);
 
-        var review = CliRunner.RunWith(env, "review", Path.Combine(subs, "footbridge.csv"), "--out", Path.Combine(t.Folder, "memo.md"), "--date", "2026-12-01");
+        var review = CliRunner.RunWith(env, "review", Path.Combine(subs, "footbridge.csv"), "--out", Path.Combine(db.Folder, "memo.md"), "--date", "2026-12-01");
         review.Out.ShouldContain("register: round 1 of DEMO-FB-01 (first round, repeat review)");
-        CliRunner.RunWith(env, "review", Path.Combine(subs, "footbridge.csv"), "--out", Path.Combine(t.Folder, "memo.md"), "--no-register")
+        CliRunner.RunWith(env, "review", Path.Combine(subs, "footbridge.csv"), "--out", Path.Combine(db.Folder, "memo.md"), "--no-register")
             .Out.ShouldNotContain("register:");
         CliRunner.RunWith(env, "history", "DEMO-FB-01").Out.ShouldContain("DEMO-FB-01: 1 round, 2 reviews");
         CliRunner.RunWith(env, "register", "check").Out.ShouldContain("sound (schema version");
@@ -96,30 +94,28 @@ public class RegisterServerTests
     [PostgresFact]
     public void ADatabaseWithoutARegister_IsNotCreatedByReading_AndAForeignReviewsTableIsRefused()
     {
-        using var t = new TempSubmission();
-        using var db = TestRegister.Create(RegisterKind.PostgreSql, t.Folder);
+        using var db = new RegisterScratch(RegisterKind.PostgreSql);
         RefusedCleanly(CliRunner.Run("history", "--register", db.Location), "there is no register in PostgreSQL database");
         db.Scalar("SELECT count(*) FROM pg_tables WHERE schemaname = current_schema()").ShouldBe(0, "reading created nothing");
 
         using var conn = Server.Open(TestPostgres.Database, new NpgsqlConnectionStringBuilder(db.Location).SearchPath);
         using (var cmd = new NpgsqlCommand("CREATE TABLE reviews (customer integer)", conn)) cmd.ExecuteNonQuery();
-        Should.Throw<RegisterException>(() => ReviewRegister.Open(db.Location)).Message.ShouldContain("holds a table 'reviews' that is not a CrossCheck register's");
+        Should.Throw<RegisterException>(() => db.Open()).Message.ShouldContain("holds a table 'reviews' that is not a CrossCheck register's");
     }
 
     [PostgresFact]
     public void ARegisterOfANewerSchema_SaysSo_AndNothingIsWritten()
     {
-        using var t = new TempSubmission();
-        using var db = TestRegister.Create(RegisterKind.PostgreSql, t.Folder);
-        using (ReviewRegister.Open(db.Location)) { }
+        using var db = new RegisterScratch(RegisterKind.PostgreSql);
+        using (db.Open()) { }
         using (var conn = Server.Open(TestPostgres.Database, new NpgsqlConnectionStringBuilder(db.Location).SearchPath))
         using (var cmd = new NpgsqlCommand($"UPDATE crosscheck_register SET schema_version = {ReviewRegister.LatestSchemaVersion + 1}", conn))
             cmd.ExecuteNonQuery();
-        string calc = t.Write("calc.csv", SampleText.With());
-        var r = CliRunner.Run("review", calc, "--register", db.Location, "--out", Path.Combine(t.Folder, "memo.md"));
+        string calc = db.Files.Write("calc.csv", SampleText.With());
+        var r = CliRunner.Run("review", calc, "--register", db.Location, "--out", Path.Combine(db.Folder, "memo.md"));
         RefusedCleanly(r, "written by a newer CrossCheck");
         r.Err.ShouldContain("Nothing was written");
-        File.Exists(Path.Combine(t.Folder, "memo.md")).ShouldBeFalse();
+        File.Exists(Path.Combine(db.Folder, "memo.md")).ShouldBeFalse();
         db.Scalar("SELECT count(*) FROM reviews").ShouldBe(0);
         db.Scalar("SELECT schema_version FROM crosscheck_register").ShouldBe(ReviewRegister.LatestSchemaVersion + 1);
         RefusedCleanly(CliRunner.Run("history", "--register", db.Location), "written by a newer CrossCheck");

@@ -60,10 +60,9 @@ public class ResubmissionTests
     [PostgresData]
     public void Rounds_ClosedPersistingAndNewComments_AreTheOnesFixedKeptAndAdded(RegisterKind kind)
     {
-        using var t = new TempSubmission();
-        using var db = TestRegister.Create(kind, t.Folder);
-        using var register = ReviewRegister.Open(db.Location);
-        string calc = Path.Combine(t.Folder, "calc.csv");
+        using var db = new RegisterScratch(kind);
+        using var register = db.Open();
+        string calc = Path.Combine(db.Folder, "calc.csv");
         RoundComparison Record(string text)
         {
             File.WriteAllText(calc, text);
@@ -115,11 +114,10 @@ public class ResubmissionTests
     [PostgresData]
     public void ReviewCommand_WithARegister_MemoJsonAndHistoryShowTheRounds(RegisterKind kind)
     {
-        using var t = new TempSubmission();
-        using var register = TestRegister.Create(kind, t.Folder);
-        string db = register.Location;
-        string calc = Path.Combine(t.Folder, "calc.csv");
-        string memo = Path.Combine(t.Folder, "memo.md");
+        using var register = new RegisterScratch(kind);
+        string db = register.Location, folder = register.Folder;
+        string calc = Path.Combine(folder, "calc.csv");
+        string memo = Path.Combine(folder, "memo.md");
         string[] common = ["--register", db, "--reviewer", "E. Rounds", "--date", "2026-12-01"];
 
         File.WriteAllText(calc, Round1);
@@ -142,7 +140,7 @@ public class ResubmissionTests
         memo2.ShouldContain("| **new** | EM-3-CD | minor | 3 |");
         memo2.ShouldContain("engineer of record remains responsible");
 
-        string html = Path.Combine(t.Folder, "memo.html");
+        string html = Path.Combine(folder, "memo.html");
         CliRunner.Run(["review", calc, "--format", "html", "--out", html, .. common]).ExitCode.ShouldBe(ExitCodes.Comments);
         string memoHtml = File.ReadAllText(html);
         memoHtml.ShouldContain("<h3>Against the previous round</h3>");
@@ -172,12 +170,12 @@ public class ResubmissionTests
         var unknown = CliRunner.Run("history", "NOPE", "--register", db);
         unknown.ExitCode.ShouldBe(ExitCodes.InputError);
         unknown.Err.ShouldContain("no reviews of reference 'NOPE'");
-        var none = CliRunner.Run("history", "KY-LB-02", "--register", Path.Combine(t.Folder, "missing.db"));
+        var none = CliRunner.Run("history", "KY-LB-02", "--register", Path.Combine(folder, "missing.db"));
         none.ExitCode.ShouldBe(ExitCodes.InputError);
         none.Err.ShouldContain("there is no register");
-        File.Exists(Path.Combine(t.Folder, "missing.db")).ShouldBeFalse("history never creates a register");
+        File.Exists(Path.Combine(folder, "missing.db")).ShouldBeFalse("history never creates a register");
 
-        string export = Path.Combine(t.Folder, "reviews.csv");
+        string export = Path.Combine(folder, "reviews.csv");
         CliRunner.Run("register", "export", "--register", db, "--out", export).ExitCode.ShouldBe(ExitCodes.Concur);
         CsvRecords.Parse(File.ReadAllText(export)).Select(r => r["round"]).ShouldBe(["1", "2", "2", "2"]);
         var findings = CliRunner.Run("register", "export", "--register", db, "--findings");
@@ -193,19 +191,17 @@ public class ResubmissionTests
     [PostgresData]
     public void Screen_ResubmittedFolder_IndexAndSummaryShowTheRounds(RegisterKind kind)
     {
-        using var t = new TempSubmission();
-        string subs = Path.Combine(t.Folder, "inbox");
-        using var register = TestRegister.Create(kind, t.Folder);
-        string db = register.Location;
-        Directory.CreateDirectory(subs);
+        using var register = new RegisterScratch(kind);
+        string db = register.Location, folder = register.Folder;
+        string subs = register.Files.MakeFolder("inbox");
         File.WriteAllText(Path.Combine(subs, "loading-bay.csv"), Round1);
-        CliRunner.Run("screen", subs, "--out", Path.Combine(t.Folder, "out1"), "--register", db, "-q").ExitCode.ShouldBe(ExitCodes.Comments);
+        CliRunner.Run("screen", subs, "--out", Path.Combine(folder, "out1"), "--register", db, "-q").ExitCode.ShouldBe(ExitCodes.Comments);
         File.WriteAllText(Path.Combine(subs, "loading-bay.csv"), Round2);
-        var r = CliRunner.Run("screen", subs, "--out", Path.Combine(t.Folder, "out2"), "--register", db);
+        var r = CliRunner.Run("screen", subs, "--out", Path.Combine(folder, "out2"), "--register", db);
         r.Out.ShouldContain("1 closed, 1 persisting, 1 new");
-        var row = CsvRecords.Parse(File.ReadAllText(Path.Combine(t.Folder, "out2", "summary.csv"))).ShouldHaveSingleItem();
+        var row = CsvRecords.Parse(File.ReadAllText(Path.Combine(folder, "out2", "summary.csv"))).ShouldHaveSingleItem();
         (row["round"], row["closed"], row["persisting"], row["new"]).ShouldBe(("2", "1", "1", "1"));
-        File.ReadAllText(Path.Combine(t.Folder, "out2", "index.html")).ShouldContain("1 closed, 1 persisting, 1 new");
-        File.ReadAllText(Path.Combine(t.Folder, "out2", "loading-bay-review.html")).ShouldContain("Against the previous round");
+        File.ReadAllText(Path.Combine(folder, "out2", "index.html")).ShouldContain("1 closed, 1 persisting, 1 new");
+        File.ReadAllText(Path.Combine(folder, "out2", "loading-bay-review.html")).ShouldContain("Against the previous round");
     }
 }

@@ -28,9 +28,9 @@ public class ReviewRegisterTests
     [Fact]
     public void NewRegister_IsWal_MarkedAsARegister_AtTheLatestSchema()
     {
-        using var t = new TempSubmission();
-        string path = Path.Combine(t.Folder, "reg.db");
-        using (var r = ReviewRegister.Open(path))
+        using var db = new RegisterScratch(RegisterKind.SqliteFile);
+        string path = db.Location;
+        using (var r = db.Open())
         {
             r.SchemaVersion.ShouldBe(ReviewRegister.LatestSchemaVersion);
             r.Reviews().ShouldBeEmpty();
@@ -46,12 +46,11 @@ public class ReviewRegisterTests
     [PostgresData]
     public void Record_KeepsEveryFieldAndEveryFindingWithItsCommentId(RegisterKind kind)
     {
-        using var t = new TempSubmission();
-        using var db = TestRegister.Create(kind, t.Folder);
+        using var db = new RegisterScratch(kind);
         var review = Review(Wrong);
         review.Verdict.ShouldBe(Verdict.Revise);
         review.Comments.Count.ShouldBeGreaterThan(0);
-        using var r = ReviewRegister.Open(db.Location);
+        using var r = db.Open();
         var c = r.Record(review, "PC-1", "calc.csv", "sha256:abc");
 
         var row = r.Reviews().ShouldHaveSingleItem();
@@ -89,9 +88,8 @@ public class ReviewRegisterTests
     [PostgresData]
     public void SameFilesAgain_AreARepeatOfTheRound_ChangedFiles_ANewRound(RegisterKind kind)
     {
-        using var t = new TempSubmission();
-        using var db = TestRegister.Create(kind, t.Folder);
-        using var r = ReviewRegister.Open(db.Location);
+        using var db = new RegisterScratch(kind);
+        using var r = db.Open();
         r.Record(Review(Wrong), "PC-1", "calc.csv", "sha256:1").Review.Round.ShouldBe(1);
         var again = r.Record(Review(Wrong), "PC-1", "calc.csv", "sha256:1");
         again.Review.Round.ShouldBe(1);
@@ -112,9 +110,8 @@ public class ReviewRegisterTests
     [PostgresData]
     public void Export_GivesOneRowPerReview_AndOnePerFinding(RegisterKind kind)
     {
-        using var t = new TempSubmission();
-        using var db = TestRegister.Create(kind, t.Folder);
-        using var r = ReviewRegister.Open(db.Location);
+        using var db = new RegisterScratch(kind);
+        using var r = db.Open();
         var wrong = Review(Wrong);
         r.Record(wrong, "PC-1", "calc.csv", "sha256:1");
         r.Record(Review(Right), "PC-1", "calc.csv", "sha256:2");
@@ -156,8 +153,7 @@ public class ReviewRegisterTests
     [PostgresData]
     public void Migrations_RunOnceInOrder_KeepTheData_AndANewerRegisterIsRefused(RegisterKind kind)
     {
-        using var t = new TempSubmission();
-        using var db = TestRegister.Create(kind, t.Folder);
+        using var db = new RegisterScratch(kind);
         var v1 = RegisterSchema.Migrations;
         var v2 = v1.Append(new Migration(v1[^1].Version + 1, "a note per review", "ALTER TABLE reviews ADD COLUMN note TEXT")).ToList();
         using (var r = ReviewRegister.Open(db.Location, v1, TimeSpan.FromSeconds(5)))
@@ -172,7 +168,7 @@ public class ReviewRegisterTests
             r.Reviews().Count.ShouldBe(2); // opening again applies nothing twice (ALTER would fail)
         db.Scalar("SELECT count(note) FROM reviews").ShouldBe(0, "the column the extra migration added is there");
         long before = db.Scalar("SELECT count(*) FROM reviews");
-        var refused = Should.Throw<RegisterException>(() => ReviewRegister.Open(db.Location));
+        var refused = Should.Throw<RegisterException>(() => db.Open());
         refused.Message.ShouldContain("written by a newer CrossCheck");
         refused.Message.ShouldContain("Nothing was written");
         db.Scalar("SELECT count(*) FROM reviews").ShouldBe(before);
@@ -184,8 +180,7 @@ public class ReviewRegisterTests
     [PostgresData]
     public void AVersion1Register_IsUpdated_ItsReviewsNumberedWithinTheirRounds(RegisterKind kind)
     {
-        using var t = new TempSubmission();
-        using var db = TestRegister.Create(kind, t.Folder);
+        using var db = new RegisterScratch(kind);
         var v1 = RegisterSchema.Migrations.Take(1).ToList();
         using (var r = ReviewRegister.Open(db.Location, v1, TimeSpan.FromSeconds(5)))
         {
@@ -204,7 +199,7 @@ public class ReviewRegisterTests
                 });
         }
         if (kind == RegisterKind.SqliteFile) Pragma<long>(db.Location, "user_version").ShouldBe(1);
-        using var updated = ReviewRegister.Open(db.Location);
+        using var updated = db.Open();
         updated.SchemaVersion.ShouldBe(ReviewRegister.LatestSchemaVersion);
         updated.Check().ShouldBeEmpty();
         db.Scalar("SELECT count(*) FROM reviews WHERE round = 1 AND round_review = 2").ShouldBe(1);
@@ -220,15 +215,14 @@ public class ReviewRegisterTests
     [PostgresData]
     public void AFailingMigration_LeavesTheRegisterAsItWas(RegisterKind kind)
     {
-        using var t = new TempSubmission();
-        using var db = TestRegister.Create(kind, t.Folder);
-        using (var r = ReviewRegister.Open(db.Location)) r.Record(Review(Wrong), "PC-1", "calc.csv", "sha256:1");
+        using var db = new RegisterScratch(kind);
+        using (var r = db.Open()) r.Record(Review(Wrong), "PC-1", "calc.csv", "sha256:1");
         var broken = RegisterSchema.Migrations
             .Append(new Migration(RegisterSchema.Migrations[^1].Version + 1, "two steps, the second wrong",
                 "CREATE TABLE extra (x integer); ALTER TABLE nowhere ADD COLUMN y integer"))
             .ToList();
         Should.Throw<RegisterException>(() => ReviewRegister.Open(db.Location, broken, TimeSpan.FromSeconds(5))).Message.ShouldContain("updating the schema");
-        using var again = ReviewRegister.Open(db.Location);
+        using var again = db.Open();
         again.SchemaVersion.ShouldBe(ReviewRegister.LatestSchemaVersion);
         again.Reviews().Count.ShouldBe(1);
         again.Check().ShouldBeEmpty();

@@ -105,14 +105,7 @@ public class ClaimCheckTests
 
     // Portal of docs/REFERENCE-CHECKS.md 5.3 (k = 0.5): fixed feet, H = 30 kN at B. Kleinlogel (from memory) / slope-deflection:
     // M_AB = M_DC = −Hh(3k+1)/(2(6k+1)) = −37.5, M_BA = M_CD = −3kHh/(2(6k+1)) = −22.5, M_BC = M_CB = +22.5.
-    private const string Portal = Reviewing.KnM + """
-        [joints]
-        joint,x,y,restraint
-        A,0,0,fixed
-        B,0,4,free
-        C,6,4,free
-        D,6,0,fixed
-
+    private const string Portal = Reviewing.KnM + SampleText.PortalJoints + "\n\n" + """
         [members]
         member,start,end,E [GPa],I [mm^4]
         AB,A,B,200,200e6

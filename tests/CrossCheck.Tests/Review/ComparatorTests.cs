@@ -1,6 +1,6 @@
 using System.Globalization;
+using System.Text;
 using System.Text.RegularExpressions;
-using CrossCheck.Analysis;
 using CrossCheck.Model;
 using CrossCheck.Review;
 using CrossCheck.Tests.Support;
@@ -19,64 +19,39 @@ public class ComparatorTests
 
     private const string Units = "[info]\nkey,value\nforce unit,N\nlength unit,m\n\n";
 
+    /// <summary>
+    /// A beam on supports A, B, C ... (<paramref name="restraints"/>, in order) with spans of L = 6 m (E = 200 GPa,
+    /// I = 250e6 mm⁴) named <paramref name="spans"/>, each under a UDL of w = 18 N/m in case <paramref name="caseId"/>.
+    /// </summary>
+    private static string Beam(string caseId, string[] restraints, params string[] spans)
+    {
+        var text = new StringBuilder(Units).Append("[supports]\nsupport,restraint\n");
+        for (int i = 0; i < restraints.Length; i++) text.Append((char)('A' + i)).Append(',').Append(restraints[i]).Append('\n');
+        text.Append("\n[spans]\nspan,length,E [GPa],I [mm^4]\n");
+        foreach (var span in spans) text.Append(span).Append(",6,200,250e6\n");
+        text.Append("\n[loads]\ncase,on,kind,w\n");
+        foreach (var span in spans) text.Append(caseId).Append(',').Append(span).Append(",udl,18\n");
+        return text.ToString();
+    }
+
     /// <summary>A fixed at A, on a roller at B, UDL w over L: M_AB = −wL²/8, M_BA = 0 (Hicks, Civil Engineering Formulas, Fig. 2.2 case 10; docs/REFERENCE-CHECKS.md group 2).</summary>
-    private const string Propped = Units + """
-        [supports]
-        support,restraint
-        A,fixed
-        B,roller
-
-        [spans]
-        span,length,E [GPa],I [mm^4]
-        AB,6,200,250e6
-
-        [loads]
-        case,on,kind,w
-        1,AB,udl,18
-
-        """;
+    private static readonly string Propped = Beam("1", ["fixed", "roller"], "AB");
 
     /// <summary>Both ends fixed, UDL w over L: M_AB = −wL²/12, M_BA = +wL²/12 (docs/REFERENCE-CHECKS.md case 1.1; Hicks Fig. 2.2 case 5).</summary>
-    private const string Clamped = Units + """
-        [supports]
-        support,restraint
-        A,fixed
-        B,fixed
-
-        [spans]
-        span,length,E [GPa],I [mm^4]
-        AB,6,200,250e6
-
-        [loads]
-        case,on,kind,w
-        1,AB,udl,18
-
-        """;
+    private static readonly string Clamped = Beam("1", ["fixed", "fixed"], "AB");
 
     private static readonly ReviewOptions Defaults = new(Date: new DateOnly(2026, 12, 1));
 
     private static string Claims(params (string Member, string At, double Moment)[] rows) => Reviewing.Claims(rows);
 
-    private static (Submission Submission, AnalysisResult Analysis) Read(string csv)
-    {
-        var r = TempSubmission.ReadText(csv);
-        r.Succeeded.ShouldBeTrue(string.Join("\n", r.Problems));
-        var s = r.Submission!;
-        return (s, new FrameSolver().Solve(s.Model, s.Cases));
-    }
-
-    private static ReviewResult Review(string csv, ReviewOptions? options = null)
-    {
-        var (s, a) = Read(csv);
-        return ReviewEngine.Review(s, a, options ?? Defaults);
-    }
+    private static ReviewResult Review(string csv, ReviewOptions? options = null) => Reviewing.Of(csv, options ?? Defaults);
 
     private static EndStatus[] Statuses(ReviewResult r) => [.. r.Cases.SelectMany(c => c.EndMoments).Select(e => e.Status).Order()];
 
     /// <summary>The recomputed moment at A of the propped cantilever and the case's peak, checked against the handbook first.</summary>
     private static (double MA, double Peak) ProppedAnalysis()
     {
-        var (_, a) = Read(Propped + Claims(("AB", "A", -81), ("AB", "B", 0)));
+        var (_, a) = Reviewing.ReadAndSolve(Propped + Claims(("AB", "A", -81), ("AB", "B", 0)));
         var c = a.Cases.ShouldHaveSingleItem();
         double mA = c.EndMoment("AB", MemberEnd.Start);
         Near.Equal(mA, -W * L * L / 8, relative: 1e-9, absolute: 1e-9, what: "M_AB = −wL²/8");
@@ -248,24 +223,7 @@ public class ComparatorTests
     // ---- comment ids -------------------------------------------------------------------------------------------------
 
     /// <summary>Two equal spans, UDL on both, case DL: M_B = wL²/8 = 81 N·m (Hicks, Civil Engineering Formulas, Table 2.1).</summary>
-    private static string TwoSpans(string caseId, string span1 = "AB", string span2 = "BC") => Units + $"""
-        [supports]
-        support,restraint
-        A,pinned
-        B,roller
-        C,roller
-
-        [spans]
-        span,length,E [GPa],I [mm^4]
-        {span1},6,200,250e6
-        {span2},6,200,250e6
-
-        [loads]
-        case,on,kind,w
-        {caseId},{span1},udl,18
-        {caseId},{span2},udl,18
-
-        """;
+    private static string TwoSpans(string caseId, string span1 = "AB", string span2 = "BC") => Beam(caseId, ["pinned", "roller", "roller"], span1, span2);
 
     private static string CaseClaims(string caseId, params (string Member, string At, double Moment)[] rows) =>
         "[end-moments]\ncase,member,at,moment\n" +

@@ -19,6 +19,13 @@ public class BadInputCatalogueTests
         return data;
     }
 
+    /// <summary>The entry and the path of its input (a generated input is written into <paramref name="scratch"/>).</summary>
+    private static (BadInput Entry, string Path) Input(string id, TempSubmission scratch)
+    {
+        var entry = BadInputCatalogue.Get(id);
+        return (entry, entry.Path(scratch.Folder));
+    }
+
     [Fact]
     public void Catalogue_HasFortyEntriesOrMore_OfCsvAndPdf_EveryFileListedOnce()
     {
@@ -46,9 +53,8 @@ public class BadInputCatalogueTests
     [MemberData(nameof(Ids))]
     public void Entry_GivesItsMessage_AtItsPlace(string id)
     {
-        var entry = BadInputCatalogue.Get(id);
         using var t = new TempSubmission();
-        string path = entry.Path(t.Folder);
+        var (entry, path) = Input(id, t);
         string where = entry.IsPdf ? entry.ResolvedWhere(path) : entry.Where;
         var outcome = new ReviewJob().Review(path, ReviewOptions.Default);
         string all = string.Join("\n", outcome.Errors.Concat(outcome.Warnings).Select(p => $"{p.Where.Compact}: {p.Message}"));
@@ -82,9 +88,8 @@ public class BadInputCatalogueTests
     [MemberData(nameof(Ids))]
     public void Cli_ExitsAsExpected_WithoutAStackTrace_AndWritesNoMemoWithoutAReview(string id)
     {
-        var entry = BadInputCatalogue.Get(id);
         using var t = new TempSubmission();
-        string path = entry.Path(t.Folder);
+        var (entry, path) = Input(id, t);
         string memo = Path.Combine(t.Folder, "out", "memo.md");
         var r = CliRunner.Run("review", path, "--out", memo, "--quiet");
         r.Err.ShouldNotContain("   at ", Case.Sensitive, "no stack trace");

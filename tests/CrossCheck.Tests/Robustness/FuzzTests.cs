@@ -17,7 +17,7 @@ namespace CrossCheck.Tests.Robustness;
 /// Fuzzing: random mutations of the valid CSV and PDF fixtures, each reviewed from end to end (read, solve, review,
 /// Markdown, HTML and JSON output). Every input must give a review or input errors — never another exception, never a
 /// hang (each input has <see cref="PerInput"/>). CI tries a few hundred inputs; set <c>CROSSCHECK_FUZZ_COUNT</c> for
-/// more (the CSV count; PDF counts are a fifth of it each), and <c>CsCheck_Seed</c> to replay a failure CsCheck printed.
+/// more (the CSV count; PDF counts are a fifth of it each), and the replay variable CsCheck prints with a failure to run that failure again.
 /// </summary>
 public class FuzzTests(ITestOutputHelper output)
 {
@@ -33,7 +33,7 @@ public class FuzzTests(ITestOutputHelper output)
     [
         ("fixtures/demo/footbridge.csv", null),
         ("fixtures/demo/school-hall.csv", null),
-        ("tests/CrossCheck.Tests/Robustness/Seeds/two-bay-shelter.csv", null),
+        ("tests/CrossCheck.Tests/Robustness/Samples/two-bay-shelter.csv", null),
         .. new[] { "info.csv", "joints.csv", "members.csv", "loads.csv", "end-moments.csv", "reactions.csv" }.Select(f => ("fixtures/demo/shed-frame", (string?)f)),
     ];
 
@@ -57,9 +57,7 @@ public class FuzzTests(ITestOutputHelper output)
             }
             else
             {
-                path = Path.Combine(t.Folder, Path.GetFileName(from));
-                Directory.CreateDirectory(path);
-                foreach (var f in Directory.GetFiles(from)) File.Copy(f, Path.Combine(path, Path.GetFileName(f)));
+                path = t.CopyFolder(from, Path.GetFileName(from));
                 File.WriteAllBytes(Path.Combine(path, file), Mutations.Apply(File.ReadAllBytes(Path.Combine(from, file)), edits));
             }
             if (Fuzz.Exercise(path, $"{submission}{(file is null ? "" : "/" + file)} {string.Join(" ", edits.Select(e => e.ToString()))}")) Interlocked.Increment(ref reviewed);
@@ -216,8 +214,7 @@ internal static partial class Fuzz
         string target = Path.Combine(dir, $"{DateTime.UtcNow:yyyyMMddHHmmssfff}-{Path.GetFileName(path)}");
         if (Directory.Exists(path))
         {
-            Directory.CreateDirectory(target);
-            foreach (var f in Directory.GetFiles(path)) File.Copy(f, Path.Combine(target, Path.GetFileName(f)));
+            TempSubmission.CopyFiles(path, target);
         }
         else if (File.Exists(path))
         {

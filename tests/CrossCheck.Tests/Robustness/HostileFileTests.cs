@@ -63,9 +63,7 @@ public class HostileFileTests
         using var t = new TempSubmission();
         string calc = t.Write("calc.csv", SampleText.All);
         string link = SpecialFiles.Link(Path.Combine(t.Folder, "memo.md"), calc);
-        string folder = Path.Combine(t.Folder, "frame");
-        Directory.CreateDirectory(folder);
-        foreach (var f in Directory.GetFiles(ShedFrame)) File.Copy(f, Path.Combine(folder, Path.GetFileName(f)));
+        string folder = t.CopyFolder(ShedFrame, "frame");
         foreach (var (submission, output) in new[] { (calc, calc), (calc, link), (folder, Path.Combine(folder, "members.csv")) })
         {
             string before = File.ReadAllText(output);
@@ -109,9 +107,7 @@ public class HostileFileTests
     public void ATableLinkedToASystemFile_IsRefused_WithoutEchoingIt()
     {
         using var t = new TempSubmission();
-        string folder = Path.Combine(t.Folder, "frame");
-        Directory.CreateDirectory(folder);
-        foreach (var f in Directory.GetFiles(ShedFrame)) File.Copy(f, Path.Combine(folder, Path.GetFileName(f)));
+        string folder = t.CopyFolder(ShedFrame, "frame");
         File.Delete(Path.Combine(folder, "joints.csv"));
         SpecialFiles.Link(Path.Combine(folder, "joints.csv"), "/etc/passwd");
         var r = CliRunner.Run("review", folder, "--quiet");

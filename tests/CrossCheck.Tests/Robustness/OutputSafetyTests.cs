@@ -13,12 +13,6 @@ public class OutputSafetyTests
 {
     private static string ShedFrame => CliRunner.Demo("shed-frame");
 
-    private static void CopyFolder(string from, string to)
-    {
-        Directory.CreateDirectory(to);
-        foreach (var f in Directory.GetFiles(from)) File.Copy(f, Path.Combine(to, Path.GetFileName(f)));
-    }
-
     private static HashSet<string> Everything(string root) =>
         Directory.EnumerateFileSystemEntries(root, "*", SearchOption.AllDirectories).Select(p => Path.GetRelativePath(root, p)).ToHashSet(StringComparer.Ordinal);
 
@@ -26,9 +20,8 @@ public class OutputSafetyTests
     public void SubmissionReachedAs_DotDotEtc_WritesItsDefaultMemoInTheWorkingFolder_AndNowhereElse()
     {
         using var t = new TempSubmission();
-        CopyFolder(ShedFrame, Path.Combine(t.Folder, "etc"));
-        string work = Path.Combine(t.Folder, "a", "b");
-        Directory.CreateDirectory(work);
+        t.CopyFolder(ShedFrame, "etc");
+        string work = t.MakeFolder(Path.Combine("a", "b"));
         var before = Everything(t.Folder);
         var (code, _, err) = ChildProcess.Finish(ChildProcess.CliIn(work, "review", "../../etc", "--quiet"));
         code.ShouldBe(ExitCodes.Comments, err);
@@ -39,8 +32,7 @@ public class OutputSafetyTests
     public void ReferenceAndTitle_DotDotEtc_NameNoFile()
     {
         using var t = new TempSubmission();
-        string work = Path.Combine(t.Folder, "a", "b");
-        Directory.CreateDirectory(work);
+        string work = t.MakeFolder(Path.Combine("a", "b"));
         string path = t.Write(Path.Combine("a", "b", "calc.csv"),
             SampleText.With(info: "[info]\nkey,value\ntitle,../../etc\nreference,../../etc/passwd\nforce unit,kN\nlength unit,m"));
         var before = Everything(t.Folder);
@@ -54,11 +46,10 @@ public class OutputSafetyTests
     public void Screen_OfOddlyNamedSubmissions_WritesOnlyPlainFilesInsideItsOutputFolder()
     {
         using var t = new TempSubmission();
-        string inbox = Path.Combine(t.Folder, "in", "box");
-        Directory.CreateDirectory(inbox);
+        string inbox = t.MakeFolder(Path.Combine("in", "box"));
         string hostile = SampleText.With(info: "[info]\nkey,value\ntitle,../../../etc\nreference,..\\..\\windows\nforce unit,kN\nlength unit,m");
         foreach (var name in new[] { "...csv", "-rf.csv", "a\\..\\b.csv", "CON.csv", "~.csv", " .csv" }) File.WriteAllText(Path.Combine(inbox, name), hostile);
-        CopyFolder(ShedFrame, Path.Combine(inbox, "..."));
+        TempSubmission.CopyFiles(ShedFrame, Path.Combine(inbox, "..."));
         string output = Path.Combine(t.Folder, "out");
         var before = Everything(t.Folder);
         var r = CliRunner.Run("screen", inbox, "--out", output, "--no-register", "--quiet");
@@ -130,8 +121,7 @@ public class OutputSafetyTests
     public void SolveOutputPathThatIsAFolder_IsAnInputError_NotACrash()
     {
         using var t = new TempSubmission();
-        string folder = Path.Combine(t.Folder, "taken");
-        Directory.CreateDirectory(folder);
+        string folder = t.MakeFolder("taken");
         var r = CliRunner.Run("solve", ShedFrame, "--out", folder);
         r.ExitCode.ShouldBe(ExitCodes.InputError, r.Err);
         r.Err.ShouldContain($"crosscheck: cannot write '{folder}'");
@@ -144,8 +134,7 @@ public class OutputSafetyTests
     public void ReviewOutputPathThatIsAFolder_WritesTheMemoIntoIt()
     {
         using var t = new TempSubmission();
-        string folder = Path.Combine(t.Folder, "memos");
-        Directory.CreateDirectory(folder);
+        string folder = t.MakeFolder("memos");
         var r = CliRunner.Run("review", ShedFrame, "--out", folder);
         r.ExitCode.ShouldBe(ExitCodes.Comments, r.Err);
         Directory.GetFileSystemEntries(folder).Select(Path.GetFileName).ShouldBe(["shed-frame-review.md"]);

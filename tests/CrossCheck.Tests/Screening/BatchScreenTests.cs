@@ -32,7 +32,7 @@ public partial class BatchScreenTests
     {
         var plan = BatchPlan.For(60); // 24 correct, 6 with an end left out, 6 wrong claims, 6 sign flips, 6 sway omitted, 12 broken
         plan.Total.ShouldBe(60);
-        using var batch = new GeneratedBatch(plan, seed: 11);
+        using var batch = new GeneratedBatch(plan, variant: 11);
         var report = Screener.Run(batch.Folder, new ScreenOptions(Options, batch.Out, MemoFormat.Html, Parallelism: 2, RegisterPath: batch.Register));
 
         report.Rows.Count.ShouldBe(60);
@@ -107,7 +107,7 @@ public partial class BatchScreenTests
     [Fact]
     public void Screen_Cli_PrintsPlainLinesWhenRedirected_TheSummaryTable_AndExitsByTheWorstOutcome()
     {
-        using var batch = new GeneratedBatch(new BatchPlan(Correct: 4, Omitted: 1, WrongClaim: 1, SignFlip: 0, SwayOmitted: 0, Broken: 0), seed: 5);
+        using var batch = new GeneratedBatch(new BatchPlan(Correct: 4, Omitted: 1, WrongClaim: 1, SignFlip: 0, SwayOmitted: 0, Broken: 0), variant: 5);
         var r = CliRunner.Run("screen", batch.Folder, "--out", batch.Out, "--reviewer", "C. Lines", "--date", "2026-12-01", "--jobs", "2");
         r.ExitCode.ShouldBe(ExitCodes.Comments, r.Err);
         r.Out.ShouldContain("screening 6 submissions");
@@ -119,7 +119,7 @@ public partial class BatchScreenTests
         r.Out.ShouldContain($"register: {batch.Register}");
         File.Exists(batch.Register).ShouldBeTrue("the default register goes beside the screened folder");
 
-        using var allGood = new GeneratedBatch(new BatchPlan(3, 0, 0, 0, 0, 0), seed: 6);
+        using var allGood = new GeneratedBatch(new BatchPlan(3, 0, 0, 0, 0, 0), variant: 6);
         CliRunner.Run("screen", allGood.Folder, "--out", allGood.Out, "--no-register", "-q").ExitCode.ShouldBe(ExitCodes.Concur);
         File.Exists(allGood.Register).ShouldBeFalse();
     }
@@ -127,7 +127,7 @@ public partial class BatchScreenTests
     [Fact]
     public void Screen_OnATerminal_DrawsProgressAndStillSummarises()
     {
-        using var batch = new GeneratedBatch(new BatchPlan(2, 0, 1, 0, 0, 1), seed: 8);
+        using var batch = new GeneratedBatch(new BatchPlan(2, 0, 1, 0, 0, 1), variant: 8);
         var output = new StringWriter();
         var error = new StringWriter();
         var io = new CliIo(output, error, interactive: true);

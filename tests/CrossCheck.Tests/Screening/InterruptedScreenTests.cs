@@ -44,7 +44,7 @@ public class InterruptedScreenTests
     [Fact]
     public void AScreenStoppedBeforeRecording_WritesAnEmptySummaryAndItsNote_AndTheNextRunDoesEverything()
     {
-        using var batch = new GeneratedBatch(new BatchPlan(Correct: 3, Omitted: 1, WrongClaim: 1, SignFlip: 0, SwayOmitted: 0, Broken: 1), seed: 19);
+        using var batch = new GeneratedBatch(new BatchPlan(Correct: 3, Omitted: 1, WrongClaim: 1, SignFlip: 0, SwayOmitted: 0, Broken: 1), variant: 19);
         var options = new ScreenOptions(Options, batch.Out, MemoFormat.Markdown, 1, batch.Register);
         using var stop = new CancellationTokenSource();
         var first = Screener.Run(batch.Folder, options, new StopAfterReviews(stop), stop.Token);
@@ -68,7 +68,7 @@ public class InterruptedScreenTests
     [Fact]
     public void AScreenInterruptedAfterRecording_IsResumed_MissingMemosWritten_NothingRecordedTwice()
     {
-        using var batch = new GeneratedBatch(new BatchPlan(Correct: 4, Omitted: 2, WrongClaim: 2, SignFlip: 0, SwayOmitted: 0, Broken: 1), seed: 23);
+        using var batch = new GeneratedBatch(new BatchPlan(Correct: 4, Omitted: 2, WrongClaim: 2, SignFlip: 0, SwayOmitted: 0, Broken: 1), variant: 23);
         var options = new ScreenOptions(Options, batch.Out, MemoFormat.Markdown, 1, batch.Register);
         string started = Clock.UtcStamp(TimeProvider.System);
         var first = Screener.Run(batch.Folder, options);
@@ -107,7 +107,7 @@ public class InterruptedScreenTests
     {
         Gen.Int[0, 6].Sample(after =>
         {
-            using var batch = new GeneratedBatch(new BatchPlan(Correct: 2, Omitted: 1, WrongClaim: 1, SignFlip: 0, SwayOmitted: 0, Broken: 1), seed: 7 + after);
+            using var batch = new GeneratedBatch(new BatchPlan(Correct: 2, Omitted: 1, WrongClaim: 1, SignFlip: 0, SwayOmitted: 0, Broken: 1), variant: 7 + after);
             var options = new ScreenOptions(Options, batch.Out, MemoFormat.Markdown, 2, batch.Register);
             using var stop = new CancellationTokenSource();
             var first = Screener.Run(batch.Folder, options, new StopAfterReviewed(after, stop), stop.Token);
@@ -126,7 +126,7 @@ public class InterruptedScreenTests
     [Fact]
     public void ScreenKilledBySigterm_ExitsWith143_OrFinishes_AndTheRerunLeavesOneReviewEach()
     {
-        using var batch = new GeneratedBatch(new BatchPlan(30, 5, 5, 0, 0, 0), seed: 41);
+        using var batch = new GeneratedBatch(new BatchPlan(30, 5, 5, 0, 0, 0), variant: 41);
         using var screen = ChildProcess.Cli("screen", batch.Folder, "--out", batch.Out, "--register", batch.Register, "-q", "--jobs", "1");
         var clock = Stopwatch.StartNew();
         while (!screen.HasExited && clock.Elapsed < TimeSpan.FromSeconds(120) && !File.Exists(batch.Register)) Thread.Sleep(5);
@@ -160,8 +160,7 @@ public class InterruptedScreenTests
     public void SubmissionsOverTheTimeBudget_LinksToDevices_AndPipes_AreRows_AndTheBatchGoesOn()
     {
         using var t = new TempSubmission();
-        string inbox = Path.Combine(t.Folder, "inbox");
-        Directory.CreateDirectory(inbox);
+        string inbox = t.MakeFolder("inbox");
         File.WriteAllText(Path.Combine(inbox, "good.csv"), SampleText.All);
         SpecialFiles.Link(Path.Combine(inbox, "zero.csv"), "/dev/zero");
         SpecialFiles.Link(Path.Combine(inbox, "passwd.csv"), "/etc/passwd");
@@ -197,7 +196,7 @@ public class InterruptedScreenTests
     [Fact]
     public void ATemplateFailingWhileRendering_InAScreen_IsExitCode2()
     {
-        using var batch = new GeneratedBatch(new BatchPlan(2, 0, 0, 0, 0, 0), seed: 3);
+        using var batch = new GeneratedBatch(new BatchPlan(2, 0, 0, 0, 0, 0), variant: 3);
         string template = Path.Combine(batch.Root, "broken.sbn");
         File.WriteAllText(template, "{{ model.Title }} {{ model.NoSuchThing }}");
         var r = CliRunner.Run("screen", batch.Folder, "--out", batch.Out, "--no-register", "--template", template, "-q");

@@ -7,9 +7,9 @@ public sealed class GeneratedBatch : IDisposable
 {
     private readonly TempSubmission _temp = new();
 
-    public GeneratedBatch(BatchPlan plan, int seed)
+    public GeneratedBatch(BatchPlan plan, int variant)
     {
-        Submissions = SubmissionFactory.WriteBatch(Folder, plan, seed);
+        Submissions = SubmissionFactory.WriteBatch(Folder, plan, variant);
     }
 
     /// <summary>The folder screened.</summary>

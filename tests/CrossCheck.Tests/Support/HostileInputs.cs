@@ -10,99 +10,64 @@ namespace CrossCheck.Tests.Support;
 /// Makes the bad inputs of the catalogue (<c>fixtures/bad/manifest.csv</c>) that are binary, huge or hostile, so that
 /// none of them is committed: garbage bytes named .csv, over-long lines, files over each limit, truncated PDFs and PDF
 /// bombs (compression bombs, deep nesting, forms painted billions of times). Every file is built from invented content
-/// and a fixed seed, so each run makes the same bytes.
+/// and random numbers of a fixed variant, so each run makes the same bytes.
 /// </summary>
 public static class HostileInputs
 {
+    /// <summary>The generated inputs made whole in memory, by name.</summary>
+    private static readonly Dictionary<string, Func<byte[]>> Made = new(StringComparer.Ordinal)
+    {
+        ["binary-garbage.csv"] = () => Garbage(64 * 1024, 11),
+        ["very-long-line.csv"] = () => Text(SampleText.All.Replace("1,AB,udl,18", "1,AB,udl,18," + new string('9', 200_000), StringComparison.Ordinal)),
+        ["too-many-rows.csv"] = () => Text(SampleText.With(loads: "[loads]\ncase,on,kind,w\n" + string.Concat(Enumerable.Repeat("1,AB,udl,0.01\n", InputLimits.Default.MaxRows + 1)))),
+        ["too-many-members.csv"] = () => Text(Beam(InputLimits.Default.MaxMembers + 1)),
+        ["too-many-cases.csv"] = () => Text(SampleText.With(loads: "[loads]\ncase,on,kind,w\n" + string.Concat(Enumerable.Range(1, 51).Select(i => $"C{i},AB,udl,{i}\n")))),
+        ["empty.pdf"] = () => [],
+        ["truncated.pdf"] = () =>
+        {
+            byte[] whole = File.ReadAllBytes(Path.Combine(RepoPaths.Root, "fixtures", "demo", "footbridge.pdf"));
+            return whole[..(whole.Length * 2 / 5)];
+        },
+        ["bomb-deflate.pdf"] = () => PdfBombs.Deflated(megabytes: 100),
+        ["bomb-double-deflate.pdf"] = () => PdfBombs.DoubleDeflated(megabytes: 100),
+        ["bomb-nesting.pdf"] = () => PdfBombs.NestedObjects(depth: 50_000),
+        ["bomb-content-nesting.pdf"] = () => PdfBombs.NestedContent(depth: 5_000),
+        ["bomb-forms.pdf"] = () => PdfBombs.Forms(levels: 9, fan: 10),
+        ["bomb-letters.pdf"] = () => PdfBombs.Letters(letters: 3_000_000),
+        ["too-many-pages.pdf"] = () => PdfBombs.BlankPages(201),
+        ["pdf-bad-number.pdf"] = () => PdfTestData.SampleBeam("Catalogue base, bad number", xOfB: "6.0.1").Build(),
+        ["pdf-no-end-moments.pdf"] = () => PdfTestData.SampleBeam("Catalogue base, claims left out", claims: false).Build(),
+    };
+
     /// <summary>Writes the generated input <paramref name="name"/> into <paramref name="folder"/> and returns its path.</summary>
     public static string Make(string name, string folder)
     {
         string path = Path.Combine(folder, name);
-        switch (name)
+        if (Made.TryGetValue(name, out var make))
         {
-            case "binary-garbage.csv":
-                File.WriteAllBytes(path, Garbage(64 * 1024, 11));
-                break;
-            case "very-long-line.csv":
-                File.WriteAllText(path, SampleText.All.Replace("1,AB,udl,18", "1,AB,udl,18," + new string('9', 200_000), StringComparison.Ordinal));
-                break;
-            case "too-large.csv":
-            {
-                // Sparse: the size is checked before anything is read, so no 21 MB need be written.
-                using var f = new FileStream(path, FileMode.Create);
-                f.Write(Encoding.UTF8.GetBytes(SampleText.All));
-                f.SetLength(21L * 1024 * 1024);
-                break;
-            }
-            case "too-many-rows.csv":
-                File.WriteAllText(path, SampleText.With(loads: "[loads]\ncase,on,kind,w\n" + string.Concat(Enumerable.Repeat("1,AB,udl,0.01\n", InputLimits.Default.MaxRows + 1))));
-                break;
-            case "too-many-members.csv":
-                File.WriteAllText(path, Beam(InputLimits.Default.MaxMembers + 1));
-                break;
-            case "too-many-cases.csv":
-                File.WriteAllText(path, SampleText.With(loads: "[loads]\ncase,on,kind,w\n" + string.Concat(Enumerable.Range(1, 51).Select(i => $"C{i},AB,udl,{i}\n"))));
-                break;
-            case "empty.pdf":
-                File.WriteAllBytes(path, []);
-                break;
-            case "truncated.pdf":
-            {
-                byte[] whole = File.ReadAllBytes(Path.Combine(RepoPaths.Root, "fixtures", "demo", "footbridge.pdf"));
-                File.WriteAllBytes(path, whole[..(whole.Length * 2 / 5)]);
-                break;
-            }
-            case "bomb-deflate.pdf":
-                File.WriteAllBytes(path, PdfBombs.Deflated(megabytes: 100));
-                break;
-            case "bomb-double-deflate.pdf":
-                File.WriteAllBytes(path, PdfBombs.DoubleDeflated(megabytes: 100));
-                break;
-            case "bomb-nesting.pdf":
-                File.WriteAllBytes(path, PdfBombs.NestedObjects(depth: 50_000));
-                break;
-            case "bomb-content-nesting.pdf":
-                File.WriteAllBytes(path, PdfBombs.NestedContent(depth: 5_000));
-                break;
-            case "bomb-forms.pdf":
-                File.WriteAllBytes(path, PdfBombs.Forms(levels: 9, fan: 10));
-                break;
-            case "bomb-letters.pdf":
-                File.WriteAllBytes(path, PdfBombs.Letters(letters: 3_000_000));
-                break;
-            case "too-many-pages.pdf":
-                File.WriteAllBytes(path, PdfBombs.BlankPages(201));
-                break;
-            case "pdf-bad-number.pdf":
-            {
-                var w = new PdfFixtureWriter().Text("Project: Catalogue base, bad number").Text("Units: kN, m");
-                w.Table(new FixtureTable(["Joint", "x", "y", "Restraint"], [["A", "0", "0", "fixed"], ["B", "6.0.1", "0", "roller"]]));
-                w.Table(new FixtureTable(["Member", "Start", "End", "E [GPa]", "I [mm4]"], [["AB", "A", "B", "200", "250e6"]]));
-                w.Table(new FixtureTable(["Case", "On", "Kind", "w"], [["1", "AB", "udl", "18"]]));
-                w.Table(new FixtureTable(["Case", "Member", "At", "Moment"], [["1", "AB", "A", "-81"], ["1", "AB", "B", "0"]]));
-                w.Save(path);
-                break;
-            }
-            case "pdf-no-end-moments.pdf":
-            {
-                var w = new PdfFixtureWriter().Text("Project: Catalogue base, claims left out").Text("Units: kN, m");
-                w.Table(new FixtureTable(["Joint", "x", "y", "Restraint"], [["A", "0", "0", "fixed"], ["B", "6", "0", "roller"]]));
-                w.Table(new FixtureTable(["Member", "Start", "End", "E [GPa]", "I [mm4]"], [["AB", "A", "B", "200", "250e6"]]));
-                w.Table(new FixtureTable(["Case", "On", "Kind", "w"], [["1", "AB", "udl", "18"]]));
-                w.Save(path);
-                break;
-            }
-            default:
-                return HostileFiles.Make(name, folder) ?? throw new ArgumentException($"no generated input is called '{name}'", nameof(name));
+            File.WriteAllBytes(path, make());
+        }
+        else if (name == "too-large.csv")
+        {
+            // Sparse: the size is checked before anything is read, so no 21 MB need be written.
+            using var f = new FileStream(path, FileMode.Create);
+            f.Write(Encoding.UTF8.GetBytes(SampleText.All));
+            f.SetLength(21L * 1024 * 1024);
+        }
+        else
+        {
+            return HostileFiles.Make(name, folder) ?? throw new ArgumentException($"no generated input is called '{name}'", nameof(name));
         }
         return path;
     }
 
-    /// <summary>Bytes that are no text at all (NULs included), from a fixed seed.</summary>
-    public static byte[] Garbage(int length, int seed)
+    private static byte[] Text(string text) => Encoding.UTF8.GetBytes(text);
+
+    /// <summary>Bytes that are no text at all (NULs included), from random numbers of the given variant.</summary>
+    public static byte[] Garbage(int length, int variant)
     {
         var bytes = new byte[length];
-        new Random(seed).NextBytes(bytes);
+        new Random(variant).NextBytes(bytes);
         return bytes;
     }
 

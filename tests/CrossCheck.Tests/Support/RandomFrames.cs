@@ -3,7 +3,7 @@ using CrossCheck.Model;
 namespace CrossCheck.Tests.Support;
 
 /// <summary>Random regular frames (bays × storeys) with random sections, supports, hinges and loads, for property tests.</summary>
-public sealed record FrameShape(int Bays, int Storeys, bool FixedBases, bool Elastic, bool Hinges, int Seed);
+public sealed record FrameShape(int Bays, int Storeys, bool FixedBases, bool Elastic, bool Hinges, int Variant);
 
 public static class RandomFrames
 {
@@ -12,7 +12,7 @@ public static class RandomFrames
     /// <summary>Builds the frame; joints J{col}_{level}, columns C{col}_{storey}, beams B{bay}_{level}.</summary>
     public static FrameBuilder Build(FrameShape s, int loadCases = 1, Func<double, double, (double, double)>? map = null)
     {
-        var rnd = new Random(s.Seed);
+        var rnd = new Random(s.Variant);
         map ??= (x, y) => (x, y);
         var b = new FrameBuilder();
         if (s.Elastic) b.Elastic();

@@ -1,4 +1,5 @@
 using CrossCheck.Analysis;
+using CrossCheck.Model;
 using CrossCheck.Review;
 
 namespace CrossCheck.Tests.Support;
@@ -8,11 +9,17 @@ public static class Reviewing
 {
     public static ReviewResult Of(string csv, ReviewOptions? options = null)
     {
+        var (s, analysis) = ReadAndSolve(csv);
+        return ReviewEngine.Review(s, analysis, options ?? new ReviewOptions(Date: new DateOnly(2026, 12, 1)));
+    }
+
+    /// <summary>The submission read from the text (which must read without problems) and CrossCheck's analysis of it.</summary>
+    public static (Submission Submission, AnalysisResult Analysis) ReadAndSolve(string csv)
+    {
         var r = TempSubmission.ReadText(csv);
         r.Succeeded.ShouldBeTrue(string.Join("\n", r.Problems));
         var s = r.Submission!;
-        var analysis = new FrameSolver().Solve(s.Model, s.Cases);
-        return ReviewEngine.Review(s, analysis, options ?? new ReviewOptions(Date: new DateOnly(2026, 12, 1)));
+        return (s, new FrameSolver().Solve(s.Model, s.Cases));
     }
 
     public static IReadOnlyList<Flag> Flags(this ReviewResult r, FlagKind kind) => r.AllFlags.Where(f => f.Kind == kind && f.Severity != Severity.Info).ToList();

@@ -24,6 +24,29 @@ public sealed class TempSubmission : IDisposable
         return path;
     }
 
+    /// <summary>A new, empty folder <paramref name="name"/> inside the scratch folder.</summary>
+    public string MakeFolder(string name)
+    {
+        string path = Path.Combine(Folder, name);
+        Directory.CreateDirectory(path);
+        return path;
+    }
+
+    /// <summary>A new folder <paramref name="name"/> inside the scratch folder holding a copy of the files of <paramref name="from"/>.</summary>
+    public string CopyFolder(string from, string name)
+    {
+        string path = Path.Combine(Folder, name);
+        CopyFiles(from, path);
+        return path;
+    }
+
+    /// <summary>Copies the files of the folder <paramref name="from"/> (not its subfolders) into <paramref name="to"/>, made if need be.</summary>
+    public static void CopyFiles(string from, string to)
+    {
+        Directory.CreateDirectory(to);
+        foreach (var f in Directory.GetFiles(from)) File.Copy(f, Path.Combine(to, Path.GetFileName(f)));
+    }
+
     public static ImportResult ReadText(string sectioned)
     {
         using var t = new TempSubmission();
@@ -69,6 +92,19 @@ public static class SampleText
         case,member,at,moment
         1,AB,A,-81
         1,AB,B,0
+        """;
+
+    /// <summary>
+    /// The joints of the portal frame of docs/REFERENCE-CHECKS.md group 5 on fixed feet: columns 4 m high at A–B and
+    /// D–C, the beam B–C 6 m long (members are the test's own).
+    /// </summary>
+    public const string PortalJoints = """
+        [joints]
+        joint,x,y,restraint
+        A,0,0,fixed
+        B,0,4,free
+        C,6,4,free
+        D,6,0,fixed
         """;
 
     public static string All => string.Join("\n\n", Info, Frame, Loads, Claims);

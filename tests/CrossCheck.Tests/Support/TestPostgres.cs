@@ -162,6 +162,8 @@ public sealed class TestRegister : IDisposable
 
     public string Location { get; }
 
+    public ReviewRegister Open() => ReviewRegister.Open(Location);
+
     public static TestRegister Create(RegisterKind kind, string folder, string name = "reg.db")
     {
         if (kind == RegisterKind.SqliteFile) return new TestRegister(kind, Path.Combine(folder, name), null);

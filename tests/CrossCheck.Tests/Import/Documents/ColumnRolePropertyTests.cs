@@ -26,14 +26,14 @@ public partial class ColumnRolePropertyTests
     {
         var expected = Demos.ToDictionary(d => d, d => Findings(CliRunner.Demo(d)));
         int count = int.TryParse(Environment.GetEnvironmentVariable("CROSSCHECK_PROPERTY_COUNT"), out int n) ? n : 24;
-        Gen.Select(Gen.Int[0, Demos.Length - 1], Gen.Int[0, 1_000_000], Gen.Bool).Sample((demo, seed, prose) =>
+        Gen.Select(Gen.Int[0, Demos.Length - 1], Gen.Int[0, 1_000_000], Gen.Bool).Sample((demo, variant, prose) =>
         {
-            var rng = new Random(seed);
-            var layout = new Layout($"property-{seed}") { ShuffleSeed = seed, Prose = prose, Rename = (table, column) => Pick(table, column, rng) };
+            var rng = new Random(variant);
+            var layout = new Layout($"property-{variant}") { ShuffleVariant = variant, Prose = prose, Rename = (table, column) => Pick(table, column, rng) };
             using var t = new TempSubmission();
-            string pdf = PdfTestData.Save(t, $"{Path.GetFileNameWithoutExtension(Demos[demo])}-{seed}.pdf",
+            string pdf = PdfTestData.Save(t, $"{Path.GetFileNameWithoutExtension(Demos[demo])}-{variant}.pdf",
                 SubmissionPdf.Render(SubmissionPdf.ReadCsv(CliRunner.Demo(Demos[demo])), layout));
-            Findings(pdf).ShouldBe(expected[Demos[demo]], $"{Demos[demo]}, seed {seed}, prose {prose}");
+            Findings(pdf).ShouldBe(expected[Demos[demo]], $"{Demos[demo]}, variant {variant}, prose {prose}");
         }, iter: count, threads: 1);
     }
 

@@ -10,19 +10,8 @@ namespace CrossCheck.Tests.Import.Documents;
 /// </summary>
 public class SenseCheckTests
 {
-    private const string Frame = """
-        [info]
-        key,value
-        force unit,kN
-        length unit,m
-
-        [joints]
-        joint,x,y,restraint
-        A,0,0,fixed
-        B,0,4,free
-        C,6,4,free
-        D,6,0,fixed
-
+    // The portal of docs/REFERENCE-CHECKS.md group 5 with relative stiffness (I) and lengths (L); {0} is the length given for BC.
+    private const string Frame = Reviewing.KnM + "\n" + SampleText.PortalJoints + "\n\n" + """
         [members]
         member,start,end,I,L
         AB,A,B,1,4.00

@@ -29,15 +29,17 @@ public class PdfErrorTests
         return (line.Page, line.Number);
     }
 
+    /// <summary>Some problem starts with <paramref name="message"/> and cites the page and line of the PDF that hold <paramref name="text"/>.</summary>
+    private static void ShouldSayAt(IEnumerable<InputProblem> problems, string pdf, string text, string message)
+    {
+        var (page, line) = Where(pdf, text);
+        problems.ShouldContain(p => p.Message.StartsWith(message, StringComparison.Ordinal) && p.Where.Page == page && p.Where.Row == line);
+    }
+
     /// <summary>A small valid submission as a PDF (a propped cantilever, kN and m).</summary>
     private static byte[] Sample(Action<PdfFixtureWriter>? extra = null, int pages = 1)
     {
-        var w = new PdfFixtureWriter();
-        w.Text("Project: Error fixture").Text("Units: kN, m");
-        w.Table(new FixtureTable(["Joint", "x", "y", "Restraint"], [["A", "0", "0", "fixed"], ["B", "6", "0", "roller"]]));
-        w.Table(new FixtureTable(["Member", "Start", "End", "E [GPa]", "I [mm4]"], [["AB", "A", "B", "200", "250e6"]]));
-        w.Table(new FixtureTable(["Case", "On", "Kind", "w"], [["1", "AB", "udl", "18"]]));
-        w.Table(new FixtureTable(["Case", "Member", "At", "Moment"], [["1", "AB", "A", "-81"], ["1", "AB", "B", "0"]]));
+        var w = PdfTestData.SampleBeam("Error fixture");
         extra?.Invoke(w);
         for (int p = 1; p < pages; p++) w.NewPage().Text($"Appendix page {p}");
         return w.Build();
@@ -235,9 +237,8 @@ public class PdfErrorTests
         w.Table(new FixtureTable(["Case", "Member", "At", "Moment"], [["1", "AB", "A", "(81.0)"], ["1", "AB", "B", "0"]]));
         string path = t.WriteBytes("calc.pdf", w.Build());
         var r = SubmissionReader.Read(path);
-        var (page, line) = Where(path, "(81.0)");
-        r.Warnings.ShouldContain(p => p.Message.StartsWith("'moment' = \"(81.0)\" is in parentheses, and the document does not say", StringComparison.Ordinal)
-                                      && p.Where.Page == page && p.Where.Row == line);
+        ShouldSayAt(r.Warnings, path, "(81.0)", "'moment' = \"(81.0)\" is in parentheses, and the document does not say");
+        int line = Where(path, "(81.0)").Line;
         r.Errors.ShouldContain(p => p.Message == "'moment' must be a number, got \"(81.0)\"" && p.Where.Row == line);
     }
 
@@ -251,10 +252,7 @@ public class PdfErrorTests
         w.Paragraph("Supports are listed separately below.");
         w.Table(new FixtureTable(["Joint", "x", "y", "Restraint"], [["C", "0", "0", "fixed"], ["D", "6", "0", "roller"]]));
         string path = t.WriteBytes("calc.pdf", w.Build());
-        var r = SubmissionReader.Read(path);
-        var (page, line) = Where(path, "Restraint");
-        r.Errors.ShouldContain(p => p.Message.StartsWith("a second 'joints' table with different columns (the first is at p.1 line", StringComparison.Ordinal)
-                                    && p.Where.Page == page && p.Where.Row == line);
+        ShouldSayAt(SubmissionReader.Read(path).Errors, path, "Restraint", "a second 'joints' table with different columns (the first is at p.1 line");
     }
 
     [Fact]
@@ -266,9 +264,7 @@ public class PdfErrorTests
             .Table(new FixtureTable(["Joint", "x", "y", "Restraint", "Member", "Start", "End", "E [GPa]", "I [mm4]"],
                 [["A", "0", "0", "fixed", "AB", "A", "B", "200", "250e6"], ["B", "6", "0", "roller", "", "", "", "", ""]]) { GapEm = 2.5 });
         string path = PdfTestData.Save(t, "side-by-side.pdf", w.Build());
-        var (page, line) = Where(path, "Restraint");
-        SubmissionReader.Read(path).Errors.ShouldContain(e => e.Message.StartsWith("two tables stand side by side in this line ('joints' and 'members')", StringComparison.Ordinal)
-                                                            && e.Where.Page == page && e.Where.Row == line);
+        ShouldSayAt(SubmissionReader.Read(path).Errors, path, "Restraint", "two tables stand side by side in this line ('joints' and 'members')");
     }
 
     [Theory]

@@ -251,8 +251,7 @@ public class PdfReaderTests
             .Table(new FixtureTable(["Case", "M_{AB}", "M_{BA}"], [["1", "(81.0)", "0.0"]]));
         string pdf = PdfTestData.Save(t, "calc.pdf", w.Build());
         var x = PdfSubmissionReader.Extract(pdf);
-        string dir = Path.Combine(t.Folder, "tables");
-        Directory.CreateDirectory(dir);
+        string dir = t.MakeFolder("tables");
         foreach (var f in ContractCsv.Render(x.Tables)) File.WriteAllText(Path.Combine(dir, f.FileName), f.Content);
         File.ReadAllText(Path.Combine(dir, "end-moments.csv")).ShouldBe($"# read from calc.pdf p.1 line {x.Tables.Single(tb => tb.Name == "end-moments").Rows[0].Line}\ncase,member,at,moment [kN·m]\n1,AB,A,-81.0\n1,AB,B,0.0\n");
         PdfTestData.Canon(Ok(SubmissionReader.Read(dir))).ShouldBe(PdfTestData.Canon(Ok(SubmissionReader.Read(pdf))));

@@ -14,12 +14,12 @@ public class PdfRoundTripTests
     public static readonly Layout[] Layouts =
     [
         new("helvetica-brackets"),
-        new("dejavu-synonyms-unitsrow-shuffled") { Face = Face.DejaVuSans, Synonyms = true, Units = UnitPlacement.UnitsRow, ShuffleSeed = 7, Numbers = NumberLook.UnicodeMinus, HeaderAlign = Align.Centre },
+        new("dejavu-synonyms-unitsrow-shuffled") { Face = Face.DejaVuSans, Synonyms = true, Units = UnitPlacement.UnitsRow, ShuffleVariant = 7, Numbers = NumberLook.UnicodeMinus, HeaderAlign = Align.Centre },
         new("times-parentheses-labels-break") { Face = Face.Times, Size = 10, Units = UnitPlacement.Parentheses, CaseLabels = true, BreakInTable = true, Prose = true },
         new("courier-wide-thousands-unitsline") { Face = Face.Courier, Size = 8, WideMoments = true, Numbers = NumberLook.Thousands, Units = UnitPlacement.UnitsLine, BreakInTable = true, RepeatHeader = false },
         new("stretched-landscape-negatives-in-brackets") { ColumnWidthEm = 9, HeaderAlign = Align.Centre, Numbers = NumberLook.Parentheses, Landscape = true, Synonyms = true },
         new("dejavu-tight") { Face = Face.DejaVuSans, GapEm = 0.45, RightAlign = false },
-        new("running-header-break-without-header") { RunningHeader = "TEST-RT calculation sheet - fixture", BreakInTable = true, RepeatHeader = false, Prose = true, ShuffleSeed = 3 },
+        new("running-header-break-without-header") { RunningHeader = "TEST-RT calculation sheet - fixture", BreakInTable = true, RepeatHeader = false, Prose = true, ShuffleVariant = 3 },
         new("dejavu-wide-labels-left-aligned") { Face = Face.DejaVuSans, WideMoments = true, RightAlign = false, Numbers = NumberLook.UnicodeMinus, Units = UnitPlacement.UnitsRow },
     ];
 
@@ -35,8 +35,8 @@ public class PdfRoundTripTests
     public static string Source(string name, TempSubmission t) => name switch
     {
         "every-column" => t.Write("every-column.csv", PdfTestData.EveryColumn),
-        "random-1" => t.Write("random-1.csv", PdfTestData.RandomFrame(seed: 11, bays: 2, storeys: 2)),
-        "random-2" => t.Write("random-2.csv", PdfTestData.RandomFrame(seed: 12, bays: 3, storeys: 1)),
+        "random-1" => t.Write("random-1.csv", PdfTestData.RandomFrame(variant: 11, bays: 2, storeys: 2)),
+        "random-2" => t.Write("random-2.csv", PdfTestData.RandomFrame(variant: 12, bays: 3, storeys: 1)),
         _ => CliRunner.Demo(name),
     };
 

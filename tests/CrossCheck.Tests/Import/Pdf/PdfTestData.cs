@@ -78,16 +78,16 @@ public static class PdfTestData
         """;
 
     /// <summary>A regular frame with random sections and loads, written as CSV with its recomputed end moments as the claims.</summary>
-    public static string RandomFrame(int seed, int bays, int storeys)
+    public static string RandomFrame(int variant, int bays, int storeys)
     {
-        var shape = new FrameShape(bays, storeys, FixedBases: seed % 2 == 0, Elastic: false, Hinges: seed % 3 == 0, seed);
+        var shape = new FrameShape(bays, storeys, FixedBases: variant % 2 == 0, Elastic: false, Hinges: variant % 3 == 0, variant);
         var b = RandomFrames.Build(shape, loadCases: 2);
         var model = b.Model;
         var cases = b.Cases;
         var result = new FrameSolver().Solve(model, cases);
         string F(double v) => v.ToString("G7", CultureInfo.InvariantCulture);
         var sb = new StringBuilder();
-        sb.Append("[info]\nkey,value\ntitle,Random frame ").Append(seed).Append("\nforce unit,kN\nlength unit,m\n\n");
+        sb.Append("[info]\nkey,value\ntitle,Random frame ").Append(variant).Append("\nforce unit,kN\nlength unit,m\n\n");
         sb.Append("[joints]\njoint,x [m],y [m],restraint\n");
         foreach (var j in model.Joints) sb.Append(CultureInfo.InvariantCulture, $"{j.Id},{F(j.X)},{F(j.Y)},{Restraint(j.Restraint)}\n");
         sb.Append("\n[members]\nmember,start,end,E [kPa],I [m^4],hinge\n");
@@ -155,6 +155,21 @@ public static class PdfTestData
         return list;
 
         string Opt(double? v) => v is double x ? G(x) : "-";
+    }
+
+    /// <summary>
+    /// The sample beam of <see cref="SampleText"/> (a propped cantilever, kN and m) as PDF tables under a project line:
+    /// joints (B at x = <paramref name="xOfB"/>, as printed), members, loads and, unless left out, the claimed end moments.
+    /// </summary>
+    public static PdfFixtureWriter SampleBeam(string project, string xOfB = "6", bool claims = true)
+    {
+        var w = new PdfFixtureWriter();
+        w.Text("Project: " + project).Text("Units: kN, m");
+        w.Table(new FixtureTable(["Joint", "x", "y", "Restraint"], [["A", "0", "0", "fixed"], ["B", xOfB, "0", "roller"]]));
+        w.Table(new FixtureTable(["Member", "Start", "End", "E [GPa]", "I [mm4]"], [["AB", "A", "B", "200", "250e6"]]));
+        w.Table(new FixtureTable(["Case", "On", "Kind", "w"], [["1", "AB", "udl", "18"]]));
+        if (claims) w.Table(new FixtureTable(["Case", "Member", "At", "Moment"], [["1", "AB", "A", "-81"], ["1", "AB", "B", "0"]]));
+        return w;
     }
 
     /// <summary>Writes a PDF's bytes to a temporary file (kept in CROSSCHECK_KEEP_PDF when that is set, for a look).</summary>

@@ -34,7 +34,7 @@ public sealed record Layout(string Name)
     public double Size { get; init; } = 9;
     public bool Synonyms { get; init; }
     public UnitPlacement Units { get; init; } = UnitPlacement.Brackets;
-    public int? ShuffleSeed { get; init; }
+    public int? ShuffleVariant { get; init; }
     public NumberLook Numbers { get; init; } = NumberLook.Plain;
     public bool RightAlign { get; init; } = true;
     public Align HeaderAlign { get; init; } = Align.Left;
@@ -168,7 +168,7 @@ public static class SubmissionPdf
             string printedName = layout.Rename?.Invoke(spec.Name, c.Name) ?? (layout.Synonyms ? Words.GetValueOrDefault(c.Name, c.Name) : name);
             cols.Add(new Column(c, printedName, string.IsNullOrEmpty(unit) ? null : unit, i));
         }
-        if (layout.ShuffleSeed is int seed) cols = cols.Shuffled(seed);
+        if (layout.ShuffleVariant is int variant) cols = cols.Shuffled(variant);
         var rows = t.Rows.Where(r => !r.IsBlank).ToList();
         Dictionary<int, string>? labels = null;
         int caseCol = cols.FindIndex(c => c.Spec?.Name == "case");
@@ -333,9 +333,9 @@ public static class SubmissionPdf
         return (new FixtureTable(header, cells) { Caption = unit is null ? null : $" [{unit}]" }, ends);
     }
 
-    private static List<T> Shuffled<T>(this List<T> list, int seed)
+    private static List<T> Shuffled<T>(this List<T> list, int variant)
     {
-        var rnd = new Random(seed);
+        var rnd = new Random(variant);
         return list.OrderBy(_ => rnd.Next()).ToList();
     }
 }

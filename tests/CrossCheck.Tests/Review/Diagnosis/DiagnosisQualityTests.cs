@@ -9,7 +9,7 @@ using static CrossCheck.Tests.Support.HandMethods;
 namespace CrossCheck.Tests.Review.Diagnosis;
 
 /// <summary>
-/// How often the diagnosis is right, and how often it names a cause that is not there: per cause, on the seeded
+/// How often the diagnosis is right, and how often it names a cause that is not there: per cause, on the planted
 /// submissions of <see cref="DiagnosisTests"/> (ranked first / found), on correct claims of every reference case and on
 /// random single slips — one claim of a correct submission changed by an arbitrary amount that is no recognisable
 /// mistake (false causes). The table is printed (run with <c>--logger "console;verbosity=detailed"</c>).
@@ -27,18 +27,18 @@ public class DiagnosisQualityTests(ITestOutputHelper output)
     [Fact]
     public void PerCause_RankedFirstAndFound_AndNoFalseCauses()
     {
-        var rows = new SortedDictionary<string, (int Seeded, int First, int Found)>(StringComparer.Ordinal);
+        var rows = new SortedDictionary<string, (int Planted, int First, int Found)>(StringComparer.Ordinal);
         var notOneComment = new List<string>();
-        foreach (var seeded in ((IEnumerable<object[]>)DiagnosisTests.All).Select(d => (DiagnosisTests.Seeded)d[0]))
+        foreach (var planted in ((IEnumerable<object[]>)DiagnosisTests.All).Select(d => (DiagnosisTests.PlantedMistake)d[0]))
         {
-            var review = DiagnosisTests.Review(seeded.Model(), seeded.Claims());
+            var review = DiagnosisTests.Review(planted.Model(), planted.Claims());
             var causes = review.Cases[0].Causes;
             // One mistake, one major comment, with every finding it explains beneath it.
             var majors = review.Comments.Where(c => c.Severity == Severity.Major).ToList();
             if (majors.Count != 1 || majors[0].Cause is null)
-                notOneComment.Add($"{seeded}: {string.Join("; ", review.Comments.Select(c => $"{c.Id} {c.Severity}"))}");
-            var (n, first, found) = rows.GetValueOrDefault(seeded.Code);
-            rows[seeded.Code] = (n + 1, first + (causes.FirstOrDefault()?.Code == seeded.Code ? 1 : 0), found + (causes.Any(c => c.Code == seeded.Code) ? 1 : 0));
+                notOneComment.Add($"{planted}: {string.Join("; ", review.Comments.Select(c => $"{c.Id} {c.Severity}"))}");
+            var (n, first, found) = rows.GetValueOrDefault(planted.Code);
+            rows[planted.Code] = (n + 1, first + (causes.FirstOrDefault()?.Code == planted.Code ? 1 : 0), found + (causes.Any(c => c.Code == planted.Code) ? 1 : 0));
         }
 
         // Correct claims: no cause at all.
@@ -80,7 +80,7 @@ public class DiagnosisQualityTests(ITestOutputHelper output)
 
         output.WriteLine($"planted mistakes not given exactly one major comment naming the mistake: {notOneComment.Count}");
         foreach (var n in notOneComment) output.WriteLine("  " + n);
-        rows.Values.ShouldAllBe(r => r.First == r.Seeded, table.ToString());
+        rows.Values.ShouldAllBe(r => r.First == r.Planted, table.ToString());
         notOneComment.ShouldBeEmpty();
         correctFalse.ShouldBe(0, table.ToString());
         slips.ShouldBeGreaterThan(100);

@@ -12,7 +12,7 @@ namespace CrossCheck.Tests.Review.Diagnosis;
 
 /// <summary>
 /// The focused search (screens, candidates where the evidence is, a stated bound) must give the same review as the
-/// exhaustive one, which forms and scores every hypothesis of every family: on every seeded mistake of
+/// exhaustive one, which forms and scores every hypothesis of every family: on every planted mistake of
 /// <see cref="DiagnosisTests"/>, on the reference cases of <see cref="DiagnosisQualityTests"/> (correct claims, noise,
 /// single slips), on the demo and fixture submissions, on a generated batch, and on frames with planted changes of the
 /// structure. Compared as the whole review JSON (verdict, findings, causes, comments) and the causes in full.
@@ -38,12 +38,12 @@ public class DiagnosisSearchTests(ITestOutputHelper output)
         return (focused.DiagnosisWork.Tried, exhaustive.DiagnosisWork.Tried);
     }
 
-    public static TheoryData<DiagnosisTests.Seeded> Seeded => DiagnosisTests.All;
+    public static TheoryData<DiagnosisTests.PlantedMistake> Mistakes => DiagnosisTests.All;
 
     [Theory]
-    [MemberData(nameof(Seeded))]
-    public void SeededMistakes(DiagnosisTests.Seeded seeded) =>
-        Same(o => DiagnosisTests.Review(seeded.Model(), seeded.Claims(), o), seeded.ToString());
+    [MemberData(nameof(Mistakes))]
+    public void PlantedMistakes(DiagnosisTests.PlantedMistake planted) =>
+        Same(o => DiagnosisTests.Review(planted.Model(), planted.Claims(), o), planted.ToString());
 
     [Fact]
     public void ReferenceCases_CorrectClaimsNoiseAndSingleSlips()
@@ -57,10 +57,10 @@ public class DiagnosisSearchTests(ITestOutputHelper output)
             var exact = b.Model.Members.SelectMany(m => new[] { (m.Id, S, r.EndMoment(m.Id, S)), (m.Id, En, r.EndMoment(m.Id, En)) }).ToArray();
             double peak = exact.Max(e => Math.Abs(e.Item3));
             Count(Same(o => DiagnosisTests.Review(b, exact, o), $"{id}, correct"));
-            for (int seed = 0; seed < 3; seed++)
+            for (int variant = 0; variant < 3; variant++)
             {
                 var noisy = exact.Select(e => (e.Item1, e.Item2, e.Item3 + (peak * (0.03 + (0.05 * rnd.NextDouble())) * (rnd.Next(2) == 0 ? -1 : 1)))).ToArray();
-                Count(Same(o => DiagnosisTests.Review(b, noisy, o), $"{id}, noise {seed}"));
+                Count(Same(o => DiagnosisTests.Review(b, noisy, o), $"{id}, noise {variant}"));
             }
             for (int k = 0; k < exact.Length; k++)
             {
@@ -101,7 +101,7 @@ public class DiagnosisSearchTests(ITestOutputHelper output)
     [Fact]
     public void GeneratedSubmissions()
     {
-        using var batch = new GeneratedBatch(BatchPlan.For(60), seed: 17);
+        using var batch = new GeneratedBatch(BatchPlan.For(60), variant: 17);
         int reviewed = 0;
         foreach (var g in batch.Submissions)
         {
@@ -120,11 +120,11 @@ public class DiagnosisSearchTests(ITestOutputHelper output)
     [InlineData(BuildingMistake.LoadMoved, 3)]
     [InlineData(BuildingMistake.WrongClaim, 4)]
     [InlineData(BuildingMistake.None, 5)]
-    public void BuildingFrames_SameReviewFromFewerHypotheses(BuildingMistake mistake, int seed)
+    public void BuildingFrames_SameReviewFromFewerHypotheses(BuildingMistake mistake, int variant)
     {
         using var temp = new TempSubmission();
         string path = Path.Combine(temp.Folder, "frame.csv");
-        BuildingFrame.Write(path, storeys: 6, bays: 5, mistake, seed);
+        BuildingFrame.Write(path, storeys: 6, bays: 5, mistake, variant);
         var s = SubmissionReader.Read(path).Submission!;
         var analysis = new FrameSolver().Solve(s.Model, s.Cases);
         var (focused, exhaustive) = Same(o => ReviewEngine.Review(s, analysis, o), mistake.ToString());
@@ -140,15 +140,15 @@ public class DiagnosisSearchTests(ITestOutputHelper output)
     public void RandomFramesWithAPlantedChange()
     {
         int compared = 0;
-        for (int seed = 0; seed < 24; seed++)
+        for (int variant = 0; variant < 24; variant++)
         {
-            var b = RandomFrames.Build(new FrameShape(2 + (seed % 3), 2 + (seed % 2), seed % 2 == 0, Elastic: false, Hinges: true, seed));
+            var b = RandomFrames.Build(new FrameShape(2 + (variant % 3), 2 + (variant % 2), variant % 2 == 0, Elastic: false, Hinges: true, variant));
             var model = b.Model;
             var c = b.Cases[0];
-            var rnd = new Random(seed);
+            var rnd = new Random(variant);
             StructureModel author = model;
             var authorCase = c;
-            switch (seed % 3)
+            switch (variant % 3)
             {
                 case 0 when model.Members.Any(m => m.Hinge != Hinge.None):
                 {
@@ -172,7 +172,7 @@ public class DiagnosisSearchTests(ITestOutputHelper output)
             if (!new FrameSolver().TrySolve(author, [authorCase], out var claimed, out _)) continue;
             var r = claimed.Cases[0];
             var claims = model.Members.SelectMany(m => new[] { (m.Id, S, Math.Round(r.EndMoment(m.Id, S), 3)), (m.Id, En, Math.Round(r.EndMoment(m.Id, En), 3)) }).ToArray();
-            Same(o => DiagnosisTests.Review(b, claims, o), $"seed {seed}");
+            Same(o => DiagnosisTests.Review(b, claims, o), $"variant {variant}");
             compared++;
         }
         compared.ShouldBeGreaterThan(15);

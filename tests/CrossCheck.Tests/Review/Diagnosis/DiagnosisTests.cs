@@ -7,14 +7,14 @@ using static CrossCheck.Tests.Support.HandMethods;
 namespace CrossCheck.Tests.Review.Diagnosis;
 
 /// <summary>
-/// Every cause code on several seeded submissions: a published reference case (docs/REFERENCE-CHECKS.md) with the
+/// Every cause code on several submissions with a planted mistake: a published reference case (docs/REFERENCE-CHECKS.md) with the
 /// author's mistake made by a route independent of the product (published values of another case, a hand
 /// slope-deflection or moment distribution in <see cref="HandMethods"/>, or plain arithmetic). The cause must rank
 /// first. Correct claims and random noise must give no cause. Units: kN and m.
 /// </summary>
 public class DiagnosisTests
 {
-    public sealed record Seeded(string Code, string Name, Func<FrameBuilder> Model, Func<(string Member, MemberEnd End, double M)[]> Claims)
+    public sealed record PlantedMistake(string Code, string Name, Func<FrameBuilder> Model, Func<(string Member, MemberEnd End, double M)[]> Claims)
     {
         public override string ToString() => $"{Code}: {Name}";
     }
@@ -44,7 +44,7 @@ public class DiagnosisTests
         [Udl(20, 5), Sum(Udl(12, 7.5), Point(60, 3, 7.5)), Point(45, 1.5, 4)];
     private static readonly string[] Members4a = ["AB", "BC", "CD"];
 
-    public static TheoryData<Seeded> All => new(
+    public static TheoryData<PlantedMistake> All => new(
     [
         // sway-omitted: claims are the no-sway (symmetric-load) formulas of Kleinlogel (from memory) / Pilkey Table 13-2 while H = 30 kN also acts.
         new("sway-omitted", "fixed portal k=0.5, UDL + H: claims of case 5.1", () => ReferenceModels.Portal(0.5, Restraint.Fixed).Udl("BC", 18).Force("B", 30, LoadDirection.Right),
@@ -197,21 +197,21 @@ public class DiagnosisTests
         var model = b.Model;
         int row = 1;
         var list = claims.Select(c => new ClaimedEndMoment("1", c.Member, c.End == S ? model.Member(c.Member).Start : model.Member(c.Member).End,
-            c.End, c.M, c.M, new SourceRef("seeded.csv", "end-moments", ++row, "moment"))).ToList();
+            c.End, c.M, c.M, new SourceRef("planted.csv", "end-moments", ++row, "moment"))).ToList();
         var units = new DisplayUnits(new UnitChoice("kN", 1), new UnitChoice("m", 1), new UnitChoice("kN·m", 1), new UnitChoice("m", 1));
         var info = SubmissionInfo.Empty with { Units = units };
-        var s = new Submission("seeded.csv", info, model, b.Cases, new Claims(list, [], []));
+        var s = new Submission("planted.csv", info, model, b.Cases, new Claims(list, [], []));
         return ReviewEngine.Review(s, new FrameSolver().Solve(s.Model, s.Cases), options);
     }
 
     [Theory]
     [MemberData(nameof(All))]
-    public void SeededMistake_IsTheFirstCause(Seeded seeded)
+    public void PlantedMistake_IsTheFirstCause(PlantedMistake planted)
     {
-        var review = Review(seeded.Model(), seeded.Claims());
+        var review = Review(planted.Model(), planted.Claims());
         var causes = review.Cases[0].Causes;
         causes.ShouldNotBeEmpty($"no cause found; differences: {string.Join(", ", review.Cases[0].EndMoments.Select(e => $"{e.Member}@{e.At} {e.Difference:0.###}"))}");
-        causes[0].Code.ShouldBe(seeded.Code, string.Join("\n", causes.Select(c => $"{c.Code} {c.Confidence} {c.Explains} {c.Message}")));
+        causes[0].Code.ShouldBe(planted.Code, string.Join("\n", causes.Select(c => $"{c.Code} {c.Confidence} {c.Explains} {c.Message}")));
         causes[0].Explains.ShouldBeGreaterThan(0.9);
     }
 
@@ -223,9 +223,9 @@ public class DiagnosisTests
         var model = b.Model;
         var claims = new[] { ("S1", S, 0.0), ("S1", En, 81.0), ("S2", S, -81.0), ("S2", En, 0.0) }
             .Select((c, i) => new ClaimedEndMoment("2", c.Item1, c.Item2 == S ? model.Member(c.Item1).Start : model.Member(c.Item1).End, c.Item2, c.Item3, c.Item3,
-                new SourceRef("seeded.csv", "end-moments", i + 2))).ToList();
+                new SourceRef("planted.csv", "end-moments", i + 2))).ToList();
         var units = new DisplayUnits(new UnitChoice("kN", 1), new UnitChoice("m", 1), new UnitChoice("kN·m", 1), new UnitChoice("m", 1));
-        var s = new Submission("seeded.csv", SubmissionInfo.Empty with { Units = units }, model, b.Cases, new Claims(claims, [], []));
+        var s = new Submission("planted.csv", SubmissionInfo.Empty with { Units = units }, model, b.Cases, new Claims(claims, [], []));
         var review = ReviewEngine.Review(s, new FrameSolver().Solve(s.Model, s.Cases));
         review.Cases.First(c => c.Case == "2").Causes[0].Code.ShouldBe("load-misplaced");
     }
@@ -250,8 +250,8 @@ public class DiagnosisTests
         review.Verdict.ShouldBe(Verdict.Concur);
     }
 
-    /// <summary>Noise patterns per reference case; CROSSCHECK_NOISE_SEEDS=30 for the longer run (see DEVELOPERS.md).</summary>
-    private static int Seeds => int.TryParse(Environment.GetEnvironmentVariable("CROSSCHECK_NOISE_SEEDS"), out int n) ? n : 5;
+    /// <summary>Noise patterns per reference case; CROSSCHECK_NOISE_PATTERNS=30 for the longer run (see DEVELOPERS.md).</summary>
+    private static int NoisePatterns => int.TryParse(Environment.GetEnvironmentVariable("CROSSCHECK_NOISE_PATTERNS"), out int n) ? n : 5;
 
     public static TheoryData<string, int> NoiseCases
     {
@@ -259,19 +259,19 @@ public class DiagnosisTests
         {
             var data = new TheoryData<string, int>();
             foreach (var c in ReferenceModels.All().Where(c => c.Model.Model.Members.Count >= 2))
-                for (int seed = 0; seed < Seeds; seed++) data.Add(c.Id, seed);
+                for (int variant = 0; variant < NoisePatterns; variant++) data.Add(c.Id, variant);
             return data;
         }
     }
 
     [Theory]
     [MemberData(nameof(NoiseCases))]
-    public void RandomNoise_HasNoCause(string id, int seed)
+    public void RandomNoise_HasNoCause(string id, int variant)
     {
         var b = ReferenceModels.All().First(c => c.Id == id).Model;
         var exact = Exact(b);
         double peak = exact.Max(e => Math.Abs(e.Item3));
-        var rnd = new Random(id.Sum(ch => ch * 31) + seed); // deterministic: string hash codes vary between runs
+        var rnd = new Random(id.Sum(ch => ch * 31) + variant); // deterministic: string hash codes vary between runs
         // Every end off by 3–8 % of the peak, in a random direction: sloppy arithmetic, no single mistake.
         var noisy = exact.Select(e => (e.Item1, e.Item2, e.Item3 + (peak * (0.03 + (0.05 * rnd.NextDouble())) * (rnd.Next(2) == 0 ? -1 : 1)))).ToArray();
         var review = Review(b, noisy);

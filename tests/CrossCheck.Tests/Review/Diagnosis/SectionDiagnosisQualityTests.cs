@@ -21,10 +21,10 @@ public class SectionDiagnosisQualityTests(ITestOutputHelper output)
 {
     private const double L = 6, G = 18, Q = 12, GammaG = 1.35, GammaQ = 1.5;
     private const MemberEnd S = MemberEnd.Start, En = MemberEnd.End;
-    private static readonly SourceRef Here = new("seeded.csv");
+    private static readonly SourceRef Here = new("planted.csv");
 
-    /// <summary>A seeded submission: <c>Make(true)</c> holds the mistake, <c>Make(false)</c> the correct claims by the same hand route.</summary>
-    public sealed record Seed(string Code, string Name, string Case, Func<bool, Submission> Make)
+    /// <summary>A submission with a planted mistake: <c>Make(true)</c> holds the mistake, <c>Make(false)</c> the correct claims by the same hand route.</summary>
+    public sealed record PlantedSection(string Code, string Name, string Case, Func<bool, Submission> Make)
     {
         public override string ToString() => $"{Code}: {Name}";
     }
@@ -49,7 +49,7 @@ public class SectionDiagnosisQualityTests(ITestOutputHelper output)
     private static Submission Make(FrameBuilder b, Combination[] combos, Claims claims)
     {
         var units = new DisplayUnits(new UnitChoice("kN", 1), new UnitChoice("m", 1), new UnitChoice("kN·m", 1), new UnitChoice("m", 1));
-        return new Submission("seeded.csv", SubmissionInfo.Empty with { Units = units }, b.Model, b.Cases, claims) { Combinations = combos };
+        return new Submission("planted.csv", SubmissionInfo.Empty with { Units = units }, b.Model, b.Cases, claims) { Combinations = combos };
     }
 
     private static ClaimedEndMoment End(string c, string member, MemberEnd end, double v) =>
@@ -179,7 +179,7 @@ public class SectionDiagnosisQualityTests(ITestOutputHelper output)
     private static readonly Combination UlsW = Combo("ULS-W", ("G", 1.0, false), ("W", 1.5, false));
     private const double WUls = (GammaG * G) + (GammaQ * Q);
 
-    public static TheoryData<Seed> All => new(
+    public static TheoryData<PlantedSection> All => new(
     [
         // pattern-ignored: the envelope written with every span loaded (the all-loaded arrangement, by hand).
         new("pattern-ignored", "2 spans, 1.35G + 1.5Q patterned", "ENV", m => Envelope(2, x => x ? HandEnvelope(2, WUls, 0) : HandEnvelope(2, GammaG * G, GammaQ * Q), m)),
@@ -224,22 +224,22 @@ public class SectionDiagnosisQualityTests(ITestOutputHelper output)
 
     [Theory]
     [MemberData(nameof(All))]
-    public void SeededMistake_RanksFirst(Seed seed)
+    public void PlantedMistake_RanksFirst(PlantedSection planted)
     {
-        var c = CaseOf(Review(seed.Make(true)), seed.Case);
+        var c = CaseOf(Review(planted.Make(true)), planted.Case);
         var causes = c.AllCauses.ToList();
         output.WriteLine(string.Join("\n", causes.Select(x => $"{x.Code} ({x.Claims}) {x.Confidence} {x.Explains}: {x.Message}")));
-        // The first cause of the kind of claims seeded.
+        // The first cause of the kind of claims planted.
         causes.ShouldNotBeEmpty();
-        causes.OrderByDescending(x => x.Reproduces).First().Code.ShouldBe(seed.Code);
+        causes.OrderByDescending(x => x.Reproduces).First().Code.ShouldBe(planted.Code);
     }
 
     [Theory]
     [MemberData(nameof(All))]
-    public void CorrectClaims_AgreeAndGiveNoCause(Seed seed)
+    public void CorrectClaims_AgreeAndGiveNoCause(PlantedSection planted)
     {
-        var r = Review(seed.Make(false));
-        var c = CaseOf(r, seed.Case);
+        var r = Review(planted.Make(false));
+        var c = CaseOf(r, planted.Case);
         c.AllCauses.ShouldBeEmpty();
         // The hand route (slope-deflection, span statics, every arrangement enumerated) and the product agree on every figure.
         c.SpanMoments.ShouldAllBe(x => x.Status == EndStatus.Agree);
@@ -247,44 +247,44 @@ public class SectionDiagnosisQualityTests(ITestOutputHelper output)
         c.Envelope.ShouldAllBe(x => x.Status == EndStatus.Agree);
         c.EndMoments.Where(e => e.Claimed is not null).ShouldAllBe(e => e.Status == EndStatus.Agree);
         r.Verdict.ShouldBe(Verdict.Concur, string.Join("\n", r.Comments.Select(x => x.Text)));
-        (c.SpanMoments.Count + c.Shears.Count + c.Envelope.Count + c.EndMoments.Count(e => e.Claimed is not null)).ShouldBeGreaterThan(0, seed.Name);
+        (c.SpanMoments.Count + c.Shears.Count + c.Envelope.Count + c.EndMoments.Count(e => e.Claimed is not null)).ShouldBeGreaterThan(0, planted.Name);
     }
 
     [Fact]
     public void PerCause_RankedFirstAndFound_AndNoFalseCauses()
     {
-        var rows = new SortedDictionary<string, (int Seeded, int First, int Found)>(StringComparer.Ordinal);
+        var rows = new SortedDictionary<string, (int Planted, int First, int Found)>(StringComparer.Ordinal);
         int correct = 0, correctFalse = 0, slips = 0, slipFalse = 0;
         var falseCodes = new SortedDictionary<string, int>(StringComparer.Ordinal);
         var rnd = new Random(20261205);
-        foreach (var seed in ((IEnumerable<object[]>)All).Select(d => (Seed)d[0]))
+        foreach (var planted in ((IEnumerable<object[]>)All).Select(d => (PlantedSection)d[0]))
         {
-            var causes = CaseOf(Review(seed.Make(true)), seed.Case).AllCauses.OrderByDescending(x => x.Reproduces).ToList();
-            var (n, first, found) = rows.GetValueOrDefault(seed.Code);
-            rows[seed.Code] = (n + 1, first + (causes.FirstOrDefault()?.Code == seed.Code ? 1 : 0), found + (causes.Any(x => x.Code == seed.Code) ? 1 : 0));
+            var causes = CaseOf(Review(planted.Make(true)), planted.Case).AllCauses.OrderByDescending(x => x.Reproduces).ToList();
+            var (n, first, found) = rows.GetValueOrDefault(planted.Code);
+            rows[planted.Code] = (n + 1, first + (causes.FirstOrDefault()?.Code == planted.Code ? 1 : 0), found + (causes.Any(x => x.Code == planted.Code) ? 1 : 0));
 
-            var right = seed.Make(false);
+            var right = planted.Make(false);
             correct++;
-            correctFalse += CaseOf(Review(right), seed.Case).AllCauses.Count();
+            correctFalse += CaseOf(Review(right), planted.Case).AllCauses.Count();
             // Random single slips: one claim off by 5–60 % of the largest claim of its kind, written to two decimals.
             foreach (var slipped in Slips(right, rnd))
             {
                 slips++;
-                var found2 = CaseOf(Review(slipped), seed.Case).AllCauses.ToList();
+                var found2 = CaseOf(Review(slipped), planted.Case).AllCauses.ToList();
                 if (found2.Count == 0) continue;
                 slipFalse++;
                 foreach (var x in found2) falseCodes[x.Code] = falseCodes.GetValueOrDefault(x.Code) + 1;
-                output.WriteLine($"false cause on {seed.Name}: {string.Join(", ", found2.Select(x => x.Code))}");
+                output.WriteLine($"false cause on {planted.Name}: {string.Join(", ", found2.Select(x => x.Code))}");
             }
         }
-        var table = new StringBuilder("cause                        seeded  ranked first  found\n");
+        var table = new StringBuilder("cause                        planted ranked first  found\n");
         foreach (var (code, (n, first, found)) in rows)
             table.Append(CultureInfo.InvariantCulture, $"{code,-28} {n,6}  {first,12}  {found,5}\n");
         table.Append(CultureInfo.InvariantCulture, $"correct submissions: {correct}, false causes: {correctFalse}\n");
         table.Append(CultureInfo.InvariantCulture, $"random single slips: {slips}, with a false cause: {slipFalse} ({string.Join(", ", falseCodes.Select(kv => $"{kv.Key} {kv.Value}"))})\n");
         output.WriteLine(table.ToString());
 
-        rows.Values.ShouldAllBe(r => r.First == r.Seeded, table.ToString());
+        rows.Values.ShouldAllBe(r => r.First == r.Planted, table.ToString());
         correctFalse.ShouldBe(0, table.ToString());
         slips.ShouldBeGreaterThan(60);
         slipFalse.ShouldBe(0, table.ToString());
