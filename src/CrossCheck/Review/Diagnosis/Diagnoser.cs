@@ -56,8 +56,6 @@ public sealed class Diagnoser
     /// <summary>Linear solves and factorisations this diagnoser made (for measurements).</summary>
     internal (int Solves, int Factorisations) Work => (_solver.Solves, _solver.Factorisations);
 
-    private sealed record Scored(Hypothesis H, double Explains, double Worst, bool Systematic, int Family, int Index);
-
     /// <summary>Likely causes of the case's discrepancies, best first; empty when nothing explains them.</summary>
     /// <exception cref="OperationCanceledException"><paramref name="cancel"/> was cancelled (checked before every hypothesis).</exception>
     public IReadOnlyList<Cause> Diagnose(CaseReview review, CancellationToken cancel = default)
@@ -69,12 +67,12 @@ public sealed class Diagnoser
         if (loadCase is null) return [];
         var x = new DiagnosisContext(_s, _analysis, _o, loadCase, review, ends, _solver);
         double[] c = x.Claimed, r = x.Recomputed;
-        double res0 = Norm2(c, r);
-        if (MaxAbs(c, r) <= review.AgreeTolerance) return [];
+        double res0 = HypothesisRanking.SquaredDistance(c, r);
+        if (HypothesisRanking.LargestDistance(c, r) <= review.AgreeTolerance) return [];
 
         // Each hypothesis is scored as it is formed, and kept only when it passes: no family's predictions pile up.
         double agree = review.AgreeTolerance, minor = review.MinorTolerance;
-        var kept = new List<Scored>();
+        var kept = new List<HypothesisRanking.Fit>();
         int index = 0;
         for (int f = 0; f < Families.Length; f++)
         {
@@ -85,14 +83,7 @@ public sealed class Diagnoser
                 {
                     cancel.ThrowIfCancellationRequested();
                     Tried++;
-                    double res = Norm2(c, h.Predicted);
-                    double explains = res0 > 0 ? Math.Clamp(1 - (res / res0), 0, 1) : 0;
-                    double worst = MaxAbs(c, h.Predicted);
-                    // A cause must remove most of the difference: all of it to within tolerance, or at least 90 % of it.
-                    // (Many variants are tried, so a partial fit to scattered errors is not evidence of anything.)
-                    if (explains >= 0.5 && (worst <= agree || (explains >= 0.9 && worst <= minor)))
-                        kept.Add(new Scored(h, explains, worst, h.Code.Term().Systematic, f, index));
-                    index++;
+                    if (HypothesisRanking.Score(h, c, res0, agree, minor, f, index++) is { } fit) kept.Add(fit);
                 }
             }
             catch (Exception ex) when (ex is StructureException or NotSupportedException or ArgumentException or InvalidOperationException)
@@ -100,36 +91,12 @@ public sealed class Diagnoser
                 // A hypothesis that cannot be formed for this structure (e.g. a mechanism) simply does not apply.
             }
         }
-
-        // Within tolerance first; there a systematic mistake before a slip that can reproduce any wrong figure by
-        // construction, then the simplest specific mistake; otherwise the one that explains most. Equally good hypotheses
-        // keep the order of the whole search (family, then the family's own order), however they were tried.
-        var scored = kept
-            .OrderBy(x => x.Worst <= agree ? 0 : x.Worst <= minor ? 1 : 2)
-            .ThenBy(x => x.Systematic ? 0 : 1)
-            .ThenBy(x => x.Worst <= agree ? x.H.Simplicity : 0)
-            .ThenByDescending(x => Math.Round(x.Explains, 4))
-            .ThenBy(x => x.H.Simplicity)
-            .ThenBy(x => x.Family)
-            .ThenBy(x => x.H.Order)
-            .ThenBy(x => x.Index)
-            .ToList();
-        // When a mistake reproduces the claims within tolerance, alternatives that do not come close are noise.
-        if (scored.Count > 0 && scored[0].Worst <= agree)
-            scored = scored.Where(x => x.Worst <= minor).ToList();
-        // One entry per code (its best variant); confidence shared between equally good explanations.
-        var best = scored.GroupBy(x => x.H.Code).Select(g => g.First()).Take(3).ToList();
-        int fully = best.Count(x => x.Worst <= agree && x.H.ConfidenceCap >= 1);
-        return best.Select(s => ToCause(s, x, fully)).ToList();
+        return HypothesisRanking.Best(kept, agree, minor).Select(r => ToCause(r, x)).ToList();
     }
 
-    private static Cause ToCause(Scored s, DiagnosisContext x, int fully)
+    private static Cause ToCause(HypothesisRanking.Ranked s, DiagnosisContext x)
     {
-        double agree = x.Agree, minor = x.Review.MinorTolerance;
-        double confidence = s.Worst <= agree ? 0.95 / Math.Max(1, fully)
-            : s.Worst <= minor ? 0.7 * s.Explains
-            : 0.5 * s.Explains;
-        confidence = Math.Min(confidence, s.H.ConfidenceCap);
+        double agree = x.Agree;
         string fit = s.Worst <= agree
             ? "Redoing the analysis with this mistake reproduces every claimed moment within tolerance."
             : string.Create(CultureInfo.InvariantCulture,
@@ -137,7 +104,7 @@ public sealed class Diagnoser
         var explained = new List<EndKey>();
         for (int i = 0; i < x.Keys.Count; i++)
             if (Math.Abs(x.Claimed[i] - x.Recomputed[i]) > agree && Math.Abs(x.Claimed[i] - s.H.Predicted[i]) <= agree) explained.Add(x.Keys[i]);
-        return new Cause(s.H.Code, Math.Round(confidence, 3), Math.Round(s.Explains, 3), s.H.Message, (fit + " " + s.H.Evidence).Trim())
+        return new Cause(s.H.Code, Math.Round(s.Confidence, 3), Math.Round(s.Explains, 3), s.H.Message, (fit + " " + s.H.Evidence).Trim())
         {
             Identity = s.H.Identity.Length > 0 ? s.H.Identity : s.H.Code.Json(),
             CorrectWorking = s.H.CorrectWorking,
@@ -145,19 +112,5 @@ public sealed class Diagnoser
             Reproduces = s.Worst <= agree,
             Explained = explained,
         };
-    }
-
-    private static double Norm2(double[] a, double[] b)
-    {
-        double s = 0;
-        for (int i = 0; i < a.Length; i++) s += (a[i] - b[i]) * (a[i] - b[i]);
-        return s;
-    }
-
-    private static double MaxAbs(double[] a, double[] b)
-    {
-        double s = 0;
-        for (int i = 0; i < a.Length; i++) s = Math.Max(s, Math.Abs(a[i] - b[i]));
-        return s;
     }
 }
