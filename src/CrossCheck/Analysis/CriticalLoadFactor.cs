@@ -34,7 +34,7 @@ public static class CriticalLoadFactor
     public const double MemberShare = 0.1;
 
     /// <summary>Unknowns up to which the eigenproblem is solved densely.</summary>
-    public const int DenseLimit = 600;
+    public const int DenseLimit = 120;
 
     /// <summary>
     /// α_cr of <paramref name="model"/> under the axial forces <paramref name="axial"/> gives (start and end of each
