@@ -30,7 +30,9 @@ public static class ReviewEngine
         // One diagnoser for the whole review: the cases share its factorisation of the structure.
         var diagnoser = new Diagnosis.Diagnoser(s, analysis, options);
         var cases = new List<CaseReview>();
-        foreach (var id in CaseIds(s, analysis))
+        var ids = CaseIds(s, analysis);
+        var alphas = CriticalLoadFactors(s, analysis, ids, cancel);
+        foreach (var id in ids)
         {
             cancel.ThrowIfCancellationRequested();
             var review = Compare(s, analysis, id, options);
@@ -47,7 +49,7 @@ public static class ReviewEngine
             if (options.Diagnose && Diagnosis.SectionDiagnoser.HasDifferences(review))
                 review = review with { SectionCauses = new Diagnosis.SectionDiagnoser(s, analysis, options).Diagnose(review) };
             cancel.ThrowIfCancellationRequested();
-            if (SwaySensitivity.HasVerticalLoad(s, id)) review = WithSwaySensitivity(s.Model, analysis, review, result);
+            if (alphas.TryGetValue(id, out var alpha)) review = WithSwaySensitivity(review, alpha);
             if (conditioning is not null && result is not null)
             {
                 review = review with { Flags = [.. review.Flags, conditioning] };
@@ -84,15 +86,21 @@ public static class ReviewEngine
         return SectionComparison.Add(s, result, review, options) with { Combination = s.Combination(id) };
     }
 
-    /// <summary>The elastic critical load factor of a case with vertical load and, below 10, its <c>second-order</c> flag.</summary>
-    private static CaseReview WithSwaySensitivity(StructureModel model, AnalysisResult analysis, CaseReview review, CaseResult? result)
-    {
-        double? alpha = result is not null ? SwaySensitivity.Of(model, result)
-            : analysis.Envelope(review.Case) is { } envelope ? SwaySensitivity.Of(model, envelope) : null;
-        return SwaySensitivity.Flag(review.Case, alpha) is { } flag
+    /// <summary>
+    /// The elastic critical load factor of every case and combination with vertical load, computed side by side (each is
+    /// an eigenproblem of its own, the costliest part of a large frame's review).
+    /// </summary>
+    private static Dictionary<string, double?> CriticalLoadFactors(Submission s, AnalysisResult analysis, List<string> ids, CancellationToken cancel) =>
+        ids.Where(id => SwaySensitivity.HasVerticalLoad(s, id)).ToList().AsParallel().AsOrdered().WithCancellation(cancel)
+            .Select(id => (Id: id, Alpha: analysis.Cases.FirstOrDefault(c => c.Case == id) is { } result ? SwaySensitivity.Of(s.Model, result)
+                : analysis.Envelope(id) is { } envelope ? SwaySensitivity.Of(s.Model, envelope) : null))
+            .ToDictionary(x => x.Id, x => x.Alpha, StringComparer.Ordinal);
+
+    /// <summary>The case with its critical load factor and, below 10, its <c>second-order</c> flag.</summary>
+    private static CaseReview WithSwaySensitivity(CaseReview review, double? alpha) =>
+        SwaySensitivity.Flag(review.Case, alpha) is { } flag
             ? review with { AlphaCr = alpha, Flags = [.. review.Flags, flag] }
             : review with { AlphaCr = alpha };
-    }
 
     /// <summary>
     /// A check that rests only on claims the independent analysis confirms (every one agrees) has felt the spread of an
