@@ -15,7 +15,7 @@ public class MemoBrowserTests(BrowserFixture browser)
 
     public static TheoryData<string> Demos => new() { "footbridge.csv", "shed-frame" };
 
-    [Theory]
+    [TheoryNeeding("chromium", "chromedriver")]
     [MemberData(nameof(Demos))]
     public void DemoMemo_OpensWithoutConsoleErrors_WithEveryDrawingSizedAndLabelled(string demo)
     {
@@ -77,7 +77,7 @@ public class MemoBrowserTests(BrowserFixture browser)
         Png.Read(page.AsByteArray).InkShare().ShouldBeGreaterThan(0.02);
     }
 
-    [Fact]
+    [FactNeeding("chromium", "chromedriver")]
     public void EnvelopeMemo_DrawsEveryMembersLargestAndLeastMoment_AndIsNotBlank()
     {
         using var t = new TempSubmission();
@@ -101,7 +101,7 @@ public class MemoBrowserTests(BrowserFixture browser)
         png.DistinctColours().ShouldBeGreaterThan(20);
     }
 
-    [Fact]
+    [FactNeeding("chromium", "chromedriver")]
     public void ConsoleCheck_SeesAnErrorWhenThereIsOne()
     {
         // The console check above is only worth something if it can fail.
@@ -112,7 +112,7 @@ public class MemoBrowserTests(BrowserFixture browser)
         _browser.ConsoleErrors().ShouldContain(m => m.Contains("drawing failed", StringComparison.Ordinal));
     }
 
-    [Fact]
+    [FactNeeding("chromium", "chromedriver")]
     public void BlankCheck_SeesABlankPicture()
     {
         using var t = new TempSubmission();

@@ -9,7 +9,7 @@ namespace CrossCheck.Tests.Browser;
 [Collection("Browser")]
 public class PdfMemoTests
 {
-    [Theory]
+    [TheoryNeeding("chromium")]
     [InlineData("footbridge.csv", "Alder Mill footbridge", "claim 141.7")]
     [InlineData("shed-frame", "Depot storage shed", "claim 20.9")]
     public void PdfMemo_ReadsBack_WithTitleVerdictDrawingsAndCautions(string demo, string title, string claimLabel)

@@ -15,7 +15,7 @@ namespace CrossCheck.Tests.Import.Documents;
 /// </summary>
 public class DocumentAccuracyTests(ITestOutputHelper output)
 {
-    [Fact]
+    [FactNeeding("chromium", "soffice")]
     public void DemoWorkbook_ReviewsToRevise_NamesTheCause_AndCitesTheCell()
     {
         string xlsx = Path.Combine(RepoPaths.Root, "fixtures", "demo", "cycle-hub.xlsx");
@@ -30,7 +30,7 @@ public class DocumentAccuracyTests(ITestOutputHelper output)
         review.Comments.ShouldContain(c => c.Id.StartsWith("KL-", StringComparison.Ordinal));
     }
 
-    [Fact]
+    [FactNeeding("chromium", "soffice")]
     public void CellsReadRight_OverTheWorkbookFixtures_AndTheDocumentsOtherProgramsMake()
     {
         using var t = new TempSubmission();

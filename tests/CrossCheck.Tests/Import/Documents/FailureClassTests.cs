@@ -31,7 +31,7 @@ public class FailureClassTests
     private static readonly string MomentsTable = Table("Table 4: End moments", ["Case", "Member", "At", "Moment (kN·m)"],
         ["ULS-2", "AB", "A", "0.0"], ["ULS-2", "AB", "B", "103.5"], ["ULS-2", "BC", "B", "-103.5"], ["ULS-2", "BC", "C", "0.0"]);
 
-    [Fact]
+    [FactNeeding("chromium", "groff", "enscript", "ps2pdf", "soffice")]
     public void RelativeSecondMoment_HeadedIRel_IsReadAsRelativeStiffness()
     {
         string pdf = Producers.Chromium(Html(HtmlGeometry(relative: true) + LoadsTable + MomentsTable), "i-rel");
@@ -47,7 +47,7 @@ public class FailureClassTests
             ["AB", "udl", "18.0", "", ""], ["BC", "udl", "18.0", "", ""], ["AB", "point", "", "40.0", "3.00"])
         + MomentsTable), "load-kinds");
 
-    [Fact]
+    [FactNeeding("chromium", "groff", "enscript", "ps2pdf", "soffice")]
     public void ColumnHeadedLoad_HoldingLoadKinds_IsReadAsTheKind_WithAWarning()
     {
         string pdf = LoadKindsPdf();
@@ -60,7 +60,7 @@ public class FailureClassTests
         ReviewsLikeItsCsv(pdf, Csv(), Verdict.Concur);
     }
 
-    [Fact]
+    [FactNeeding("chromium", "groff", "enscript", "ps2pdf", "soffice")]
     public void ResultsTable_WithTheCaseInItsCaption_ContinuingUnderItsRepeatedHeader_IsOneTable()
     {
         string moments = Table("Table 4: End moments, load case ULS-2", ["Member", "At", "Moment (kN·m)"],
@@ -123,7 +123,7 @@ public class FailureClassTests
         .TE
         """;
 
-    [Fact]
+    [FactNeeding("chromium", "groff", "enscript", "ps2pdf", "soffice")]
     public void CaseInCaptions_InParenthesesAndBeforeAColon_AndUnitsWithoutCaret_FromATypesetter()
     {
         string pdf = Producers.Groff(GroffCalc, "typeset");
@@ -168,7 +168,7 @@ public class FailureClassTests
         ULS-2   BC       C             0.0
         """;
 
-    [Fact]
+    [FactNeeding("chromium", "groff", "enscript", "ps2pdf", "soffice")]
     public void MonospacePrintout_WithRuleLinesAndCapitalHeaders_IsRead()
     {
         string pdf = Producers.Enscript(PlainTextCalc, "printout");
@@ -206,7 +206,7 @@ public class FailureClassTests
         ["ULS-2", "BC", "B", -double.Parse(mB, System.Globalization.CultureInfo.InvariantCulture)], ["ULS-2", "BC", "C", 0.0],
     ], widthMm: 26).ToString();
 
-    [Fact]
+    [FactNeeding("chromium", "groff", "enscript", "ps2pdf", "soffice")]
     public void SpreadsheetPrintout_NumbersEndingUnderTheNextHeader_AreReadInTheirOwnColumns()
     {
         // The author typed 130.5 for the support moment (wL²/8 + 3PL/32 = 103.5): the review must say revise, as for the CSV.

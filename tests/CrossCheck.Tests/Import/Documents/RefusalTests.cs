@@ -15,7 +15,7 @@ public class RefusalTests
     private static readonly string Loads = Table("Table 3: Loads (ULS-2)", ["On", "Kind", "w (kN/m)", "P (kN)", "a (m)"],
         ["AB", "udl", "18.0", "", ""], ["BC", "udl", "18.0", "", ""], ["AB", "point", "", "40.0", "3.00"]);
 
-    [Fact]
+    [FactNeeding("chromium", "soffice")]
     public void HeaderOnTwoLevels_OneColumnPerLoadCase_IsRefusedAtItsPageAndLine()
     {
         string moments = "<p>Table 4: End moments</p><table><thead><tr><th>Member</th><th>At</th><th colspan=\"2\" style=\"text-align:center\">Moment (kN·m)</th></tr>"
@@ -31,7 +31,7 @@ public class RefusalTests
         refusal.Where.Row.ShouldNotBeNull();
     }
 
-    [Fact]
+    [FactNeeding("chromium", "soffice")]
     public void TableDrawnAsAPicture_IsNamedWithItsPageAndLines()
     {
         string png = Producers.Screenshot(Html(Table("", ["Member", "At", "Moment (kN·m)"], ["AB", "B", "103.5"], ["BC", "B", "-103.5"])), "moments-picture");
@@ -44,7 +44,7 @@ public class RefusalTests
         r.Errors.ShouldContain(e => e.Message.Contains("no 'end-moments' table", StringComparison.Ordinal));
     }
 
-    [Fact]
+    [FactNeeding("chromium", "soffice")]
     public void Extract_OfAWorkbook_SaysPerColumnHowItsRoleWasDecided_AndHowSure()
     {
         using var t = new TempSubmission();

@@ -57,7 +57,7 @@ public partial class WorkbookTests
         /* 33 */ ["BC", "C", new Fods.WithUnit(0, "kNm")],
     ], widthMm: 24, hiddenColumns: new HashSet<int> { 7 }).ToString();
 
-    [Fact]
+    [FactNeeding("soffice")]
     public void CalcSheet_TablesAmongTitlesAndNotes_ReviewLikeTheCsv_AndCiteSheetAndCell()
     {
         string xlsx = Producers.Spreadsheet(CalcWorkbook(), "kiln-lane", "xlsx");
@@ -90,7 +90,7 @@ public partial class WorkbookTests
                 ["ULS-2", "AB", "A", 0.0], ["ULS-2", "AB", "B", 103.5], ["ULS-2", "BC", "B", -103.5], ["ULS-2", "BC", "C", 0.0]])
             .ToString();
 
-    [Fact]
+    [FactNeeding("soffice")]
     public void SheetPerTable_WithHeaderWordsTheFormatDoesNotKnow_IsReadByItsSheetNamesAndContents()
     {
         string xlsx = Producers.Spreadsheet(SheetPerTable(), "sheet-per-table", "xlsx");
