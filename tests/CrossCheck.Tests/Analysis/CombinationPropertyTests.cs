@@ -12,9 +12,7 @@ namespace CrossCheck.Tests.Analysis;
 /// </summary>
 public class CombinationPropertyTests
 {
-    private static readonly Gen<FrameShape> Shapes =
-        Gen.Select(Gen.Int[1, 3], Gen.Int[1, 2], Gen.Bool, Gen.Bool, Gen.Bool, Gen.Int)
-            .Select(t => new FrameShape(t.Item1, t.Item2, t.Item3 || t.Item5, t.Item4, t.Item5, t.Item6));
+    private static readonly Gen<FrameShape> Shapes = RandomFrames.Shapes(maxStoreys: 2);
 
     private static readonly SourceRef Here = new("test");
 

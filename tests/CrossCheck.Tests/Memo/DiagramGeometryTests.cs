@@ -145,12 +145,8 @@ public class DiagramGeometryTests
     [Fact]
     public void CaseDiagram_HasOnePathPerMember_AndIsWellFormedXml()
     {
-        var review = Reviewing.Of(Reviewing.KnM + """
-            [supports]
-            support,restraint
-            A,pinned
-            B,roller
-            C,roller
+        var review = Reviewing.Of(Reviewing.KnM + $"""
+            {CombinationBeam.Supports}
 
             [spans]
             span,length,I

@@ -10,18 +10,7 @@ namespace CrossCheck.Tests.Review;
 public class ClaimCheckTests
 {
     // Two equal spans 6 m, w = 18 kN/m on both: support moment wL²/8 = 81 kN·m (Hicks, Civil Engineering Formulas, Table 2.1).
-    private const string TwoSpans = Reviewing.KnM + """
-        [supports]
-        support,restraint
-        A,pinned
-        B,roller
-        C,roller
-
-        [spans]
-        span,length,E [GPa],I [mm^4]
-        AB,6,200,250e6
-        BC,6,200,250e6
-
+    private const string TwoSpans = Reviewing.KnM + CombinationBeam.Geometry + "\n\n" + """
         [loads]
         on,kind,w
         AB,udl,18

@@ -242,12 +242,7 @@ public class CombinationReviewTests
 
     private static string Portal(string loads) => Reviewing.KnM + $"""
 
-            [joints]
-            joint,x,y,restraint
-            A,0,0,fixed
-            B,0,4,free
-            C,6,4,free
-            D,6,0,fixed
+            {SampleText.PortalJoints}
 
             [members]
             member,start,end,E [GPa],I [mm^4]

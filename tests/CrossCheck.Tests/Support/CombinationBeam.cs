@@ -7,18 +7,24 @@ namespace CrossCheck.Tests.Support;
 /// </summary>
 public static class CombinationBeam
 {
-    public const string Tables = """
+    /// <summary>The beam's supports (A pinned, B and C on rollers), which other two-span test beams share; no newline at the end.</summary>
+    public const string Supports = """
         [supports]
         support,restraint
         A,pinned
         B,roller
         C,roller
+        """;
 
+    /// <summary>The beam's supports and spans without its loads (single-case tests load it their own way); no newline at the end.</summary>
+    public const string Geometry = Supports + "\n\n" + """
         [spans]
         span,length,E [GPa],I [mm^4]
         AB,6,200,250e6
         BC,6,200,250e6
+        """;
 
+    public const string Tables = Geometry + "\n\n" + """
         [loads]
         case,on,kind,w
         G,AB,udl,18

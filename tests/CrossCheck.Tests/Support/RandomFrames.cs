@@ -1,4 +1,5 @@
 using CrossCheck.Model;
+using CsCheck;
 
 namespace CrossCheck.Tests.Support;
 
@@ -8,6 +9,14 @@ public sealed record FrameShape(int Bays, int Storeys, bool FixedBases, bool Ela
 public static class RandomFrames
 {
     public static readonly LoadDirection[] Directions = [LoadDirection.Down, LoadDirection.Up, LoadDirection.Left, LoadDirection.Right];
+
+    /// <summary>
+    /// Random shapes for property tests: 1 to 3 bays, 1 to <paramref name="maxStoreys"/> storeys, fixed or pinned bases,
+    /// elastic supports or not, hinges or not (a frame with hinges always on fixed bases), any variant.
+    /// </summary>
+    public static Gen<FrameShape> Shapes(int maxStoreys = 3) =>
+        Gen.Select(Gen.Int[1, 3], Gen.Int[1, maxStoreys], Gen.Bool, Gen.Bool, Gen.Bool, Gen.Int)
+            .Select(t => new FrameShape(t.Item1, t.Item2, t.Item3 || t.Item5, t.Item4, t.Item5, t.Item6));
 
     /// <summary>Builds the frame; joints J{col}_{level}, columns C{col}_{storey}, beams B{bay}_{level}.</summary>
     public static FrameBuilder Build(FrameShape s, int loadCases = 1, Func<double, double, (double, double)>? map = null)

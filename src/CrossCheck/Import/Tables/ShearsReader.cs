@@ -12,23 +12,9 @@ internal sealed class ShearsReader : ITableReader
     {
         if (d.Table("shears") is not { } t) return;
         var v = d.View(t, TableSchema.Shears);
-        var claims = new List<ClaimedShear>();
-        var seen = new Dictionary<(string, string, MemberEnd), SourceRef>();
-        foreach (var row in v.Rows)
-        {
-            string c = v.Id(row, "case", required: false) ?? "1";
-            string? member = v.Id(row, "member");
-            string? at = v.Id(row, "at");
-            double? value = v.Number(row, "V", required: true);
-            if (member is null || at is null || value is null || !d.ClaimCase(v, row, c)) continue;
-            var end = MemberEndCell.Resolve(d.Model, member, at);
-            if (end is MemberEnd e && !seen.TryAdd((c, member, e), v.RowRef(row)))
-            {
-                d.Error(v.RowRef(row), Messages.ShearTwice(member, at, c, seen[(c, member, e)].Compact));
-                continue;
-            }
-            claims.Add(new ClaimedShear(c, member, at, end, value.Value, value.Value / (v.Unit("V")?.ToSi ?? 1), v.CellRef(row, "V")));
-        }
+        var claims = EndClaimRows.Read(d, v, "V", Messages.ShearTwice)
+            .Select(r => new ClaimedShear(r.Case, r.Member, r.At, r.End, r.Value, r.AsWritten, r.Source))
+            .ToList();
         d.Claims = d.Claims with { Shears = claims };
     }
 }

@@ -5,44 +5,32 @@ using CrossCheck.Model;
 namespace CrossCheck.Review.Diagnosis;
 
 /// <summary>What every hypothesis family of one case may use: the compared ends, the shared solves and the evidence.</summary>
-internal sealed class DiagnosisContext
+internal sealed class DiagnosisContext : CaseClaimsContext
 {
     private readonly Dictionary<EndKey, int> _index;
     private Dictionary<string, List<int>>? _byMember;
 
     public DiagnosisContext(Submission submission, AnalysisResult analysis, ReviewOptions options, LoadCase loadCase, CaseReview review,
         List<EndMomentFinding> ends, DiagnosisSolver solver)
+        : base(submission, analysis, review, ends.Select(e => e.Claimed!.Value).ToArray(), ends.Select(e => e.Recomputed!.Value).ToArray())
     {
-        S = submission;
-        Analysis = analysis;
         Options = options;
         Case = loadCase;
-        Review = review;
         Ends = ends;
         Solver = solver;
         Keys = ends.Select(e => e.Key!.Value).ToList();
-        Claimed = ends.Select(e => e.Claimed!.Value).ToArray();
-        Recomputed = ends.Select(e => e.Recomputed!.Value).ToArray();
-        Quote = new Quoting(submission);
         _index = new Dictionary<EndKey, int>(Keys.Count);
         for (int i = 0; i < Keys.Count; i++) _index.TryAdd(Keys[i], i);
         Evidence = new Evidence(this);
     }
 
-    public Submission S { get; }
-    public StructureModel Model => S.Model;
-    public AnalysisResult Analysis { get; }
     public ReviewOptions Options { get; }
     public LoadCase Case { get; }
-    public CaseReview Review { get; }
 
-    /// <summary>The ends compared, in the order of <see cref="Keys"/>, <see cref="Claimed"/> and <see cref="Recomputed"/>.</summary>
+    /// <summary>The ends compared, in the order of <see cref="Keys"/>, <see cref="CaseClaimsContext.Claimed"/> and <see cref="CaseClaimsContext.Recomputed"/>.</summary>
     public List<EndMomentFinding> Ends { get; }
 
     public List<EndKey> Keys { get; }
-    public double[] Claimed { get; }
-    public double[] Recomputed { get; }
-    public Quoting Quote { get; }
 
     /// <summary>The solves of the review, shared by every case and hypothesis.</summary>
     public DiagnosisSolver Solver { get; }

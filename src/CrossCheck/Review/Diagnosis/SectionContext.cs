@@ -21,36 +21,25 @@ internal interface ISectionFamily
 }
 
 /// <summary>What every family of one case and one kind of claim may use.</summary>
-internal sealed class SectionContext
+internal sealed class SectionContext : CaseClaimsContext
 {
     private readonly Dictionary<string, CaseResult> _alone = new(StringComparer.Ordinal);
     private ClaimStatics? _statics;
 
     public SectionContext(Submission submission, AnalysisResult analysis, CaseReview review, SectionKind kind, List<SectionClaim> claims, ToleranceBand band)
+        : base(submission, analysis, review, claims.Select(c => c.Claimed).ToArray(), claims.Select(c => c.Recomputed).ToArray())
     {
-        S = submission;
-        Analysis = analysis;
-        Review = review;
         Kind = kind;
         Claims = claims;
         Band = band;
-        Claimed = claims.Select(c => c.Claimed).ToArray();
-        Recomputed = claims.Select(c => c.Recomputed).ToArray();
         Result = analysis.Cases.FirstOrDefault(c => c.Case == review.Case);
         Envelope = analysis.Envelope(review.Case);
         Combination = submission.Combination(review.Case);
-        Quote = new Quoting(submission);
     }
 
-    public Submission S { get; }
-    public StructureModel Model => S.Model;
-    public AnalysisResult Analysis { get; }
-    public CaseReview Review { get; }
     public SectionKind Kind { get; }
     public List<SectionClaim> Claims { get; }
     public ToleranceBand Band { get; }
-    public double[] Claimed { get; }
-    public double[] Recomputed { get; }
 
     /// <summary>The case's result (a load case or a derived combination); null for a patterned combination.</summary>
     public CaseResult? Result { get; }
@@ -60,8 +49,6 @@ internal sealed class SectionContext
 
     /// <summary>The combination the case stands for; null for a load case.</summary>
     public Combination? Combination { get; }
-
-    public Quoting Quote { get; }
 
     /// <summary>
     /// A load case's response to its loads alone, on the structure without support movements (which the combination's own

@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text;
+using CrossCheck.Tests.Support;
 
 namespace CrossCheck.Tests.Import.Documents;
 
@@ -19,11 +20,7 @@ public static class CalcSources
         force unit,kN
         length unit,m
 
-        [supports]
-        support,restraint
-        A,pinned
-        B,roller
-        C,roller
+        {CombinationBeam.Supports}
 
         [spans]
         span,length [m],{(relative ? "I" : "E [GPa],I [mm^4]")}
