@@ -43,7 +43,7 @@ internal static class CommandSupport
             return;
         }
         Fail($"'{path}' could not be read ({errors.Count} problem{(errors.Count == 1 ? "" : "s")}):", io);
-        foreach (var e in errors) io.Error.WriteLine($"  {Clean(e.Where.Compact)}: {Clean(e.Message)}");
+        foreach (var e in errors) io.Error.WriteLine($"  {Clean(e.Where.Located)}: {Clean(e.Message)}");
     }
 
     /// <summary>

@@ -42,7 +42,7 @@ internal static class ExtractCommand
         if (x.Tables.Count == 0)
         {
             CommandSupport.Fail(outcome.Problem!, io);
-            foreach (var e in x.Problems.Where(p => p.IsError)) io.Error.WriteLine(CommandSupport.Clean($"  {e.Where.Compact}: {e.Message}"));
+            foreach (var e in x.Problems.Where(p => p.IsError)) io.Error.WriteLine(CommandSupport.Clean($"  {e.Where.Located}: {e.Message}"));
             return ExitCodes.InputError;
         }
         PrintFound(x, io);
@@ -63,7 +63,7 @@ internal static class ExtractCommand
             return ExitCodes.Concur;
         }
         CommandSupport.Fail($"the tables read from '{path}' have {errors.Count} problem{(errors.Count == 1 ? "" : "s")}; correct them in {outDir} and review the folder:", io);
-        foreach (var e in errors) io.Error.WriteLine(CommandSupport.Clean($"  {e.Where.Compact}: {e.Message}"));
+        foreach (var e in errors) io.Error.WriteLine(CommandSupport.Clean($"  {e.Where.Located}: {e.Message}"));
         return ExitCodes.InputError;
     }
 

@@ -62,6 +62,14 @@ public sealed record SourceRef(
         }
     }
 
+    /// <summary>
+    /// <see cref="Compact"/> with the table named when the file's own name does not say it: <c>calc.csv:28:case (table
+    /// combinations)</c>, but <c>members.csv:7:I</c> for a folder's table file. For messages to a person.
+    /// </summary>
+    public string Located =>
+        Table is { Length: > 0 } t && !string.Equals(System.IO.Path.GetFileNameWithoutExtension(File), t, StringComparison.OrdinalIgnoreCase)
+            ? $"{Compact} (table {t})" : Compact;
+
     /// <summary>The row without the column: <c>end-moments.csv:4</c>, <c>calc.pdf:p3:14</c>, <c>calc.xlsx:Loads!7</c>.</summary>
     public string RowCompact => (this with { Column = null, SheetColumn = null }).Compact;
 

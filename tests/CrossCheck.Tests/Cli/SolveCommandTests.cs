@@ -72,7 +72,7 @@ public class SolveCommandTests
     {
         var r = CliRunner.Run("solve", TempFile("[joints]\njoint,x,y\nA,0,zero"));
         r.ExitCode.ShouldBe(ExitCodes.InputError);
-        r.Err.ShouldContain("calc.csv:3:y: 'y' must be a number, got \"zero\"");
+        r.Err.ShouldContain("calc.csv:3:y (table joints): 'y' must be a number, got \"zero\"");
         r.Err.ShouldNotContain("   at ");
         r.Out.ShouldBeEmpty();
     }

@@ -163,7 +163,7 @@ public class InputLimitsTests
         string path = t.Write("calc.csv", Loads(4));
         var low = CliRunner.Run("review", path, "--max-rows", "3", "--out", Path.Combine(t.Folder, "m.md"));
         low.ExitCode.ShouldBe(ExitCodes.InputError);
-        low.Err.ShouldContain("calc.csv:17: table 'loads' has 4 rows; CrossCheck reads at most 3 rows per table (raise the limit with --max-rows)");
+        low.Err.ShouldContain("calc.csv:17 (table loads): table 'loads' has 4 rows; CrossCheck reads at most 3 rows per table (raise the limit with --max-rows)");
         CliRunner.Run("solve", path, "--max-rows", "4").ExitCode.ShouldBe(ExitCodes.Concur);
         var members = CliRunner.Run("solve", t.Write("beam.csv", HostileInputs.Beam(5)), "--max-members", "4");
         members.ExitCode.ShouldBe(ExitCodes.InputError);
